@@ -1,0 +1,2 @@
+/** Media, species, hitting models and channel taps. */
+package dev.nanoplan.physics;
