@@ -1,0 +1,2 @@
+/** Nodes, layouts, link evaluation and the link graph. */
+package dev.nanoplan.network;
