@@ -1,5 +1,12 @@
 package dev.nanoplan.cli;
 
+/** Entry point of the {@code nanoplan} command line. */
 public final class Main {
-    public static void main(String[] args) { System.exit(0); }
+
+    private Main() {
+    }
+
+    public static void main(String[] args) {
+        System.exit(NanoplanCommand.execute(args));
+    }
 }

@@ -1,0 +1,207 @@
+package dev.nanoplan.network;
+
+import dev.nanoplan.count.BinomialTerm;
+import dev.nanoplan.count.CountLaw;
+import dev.nanoplan.count.CountModel;
+import dev.nanoplan.count.CountModels;
+import dev.nanoplan.count.CountPmf;
+import dev.nanoplan.count.CountTerm;
+import dev.nanoplan.count.LogTails;
+import dev.nanoplan.count.MixtureTerm;
+import dev.nanoplan.count.PoissonTerm;
+import dev.nanoplan.detect.BinaryDetection;
+import dev.nanoplan.detect.BinaryThresholdSearch;
+import dev.nanoplan.detect.MultiLevelQuantizer;
+import dev.nanoplan.detect.MultiLevelResult;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+
+/**
+ * Evaluates one link: builds the law of the slot count given each sent level (DESIGN.md §5.6),
+ * turns it into pmfs with the chosen count model, and runs detection and capacity (§5.7).
+ *
+ * <p>The count given level i is Bin(n_i, p_0) + Σ_{k=1..L} [earlier symbol k: mixture over
+ * levels j with the prior of Bin(n_j, p_k)] + interference terms (other emitters, supplied by the
+ * caller) + Poisson(background per slot). Molecules act independently; earlier symbols are i.i.d.
+ *
+ * <p>Near-perfect binary links: when the window-based minimum error falls below
+ * {@value #LOG_REFINE_BELOW}, the error probability and its threshold are recomputed exactly in
+ * log space ({@link LogTails}), so {@code log10ErrorProbability} stays finite and correct far
+ * below 1e-300.
+ */
+public final class LinkEvaluator {
+
+    /** Below this window-based error the log-space path takes over. */
+    static final double LOG_REFINE_BELOW = 1e-10;
+    private static final double LN10 = Math.log(10);
+
+    private LinkEvaluator() {
+    }
+
+    /** Evaluates an isolated link (no other emitters). */
+    public static LinkEvaluation evaluate(LinkSpec spec) {
+        return evaluate(spec, List.of());
+    }
+
+    /**
+     * Evaluates a link whose receiver also counts the given independent interference terms (e.g.
+     * other emitters' current symbols and leftovers).
+     */
+    public static LinkEvaluation evaluate(LinkSpec spec, List<CountTerm> interference) {
+        CountModel model = CountModels.of(spec.countModel());
+        int m = spec.levels();
+        List<CountLaw> laws = new ArrayList<>(m);
+        for (int i = 0; i < m; i++) {
+            laws.add(lawGivenLevel(spec, i, interference));
+        }
+        List<CountPmf> pmfs = new ArrayList<>(m);
+        for (CountLaw law : laws) {
+            pmfs.add(model.pmf(law));
+        }
+        double truncated = 0;
+        for (CountPmf p : pmfs) {
+            truncated = Math.max(truncated, p.truncatedMass());
+        }
+        double isiMean = 0;
+        double[] w = isiWeights(spec);
+        for (int k = 1; k < spec.taps().length; k++) {
+            for (int j = 0; j < m; j++) {
+                isiMean += w[j] * spec.molecules(j) * spec.tap(k);
+            }
+        }
+        double interferenceMean = 0;
+        for (CountTerm t : interference) {
+            interferenceMean += t.mean();
+        }
+        double signalMean = (spec.molecules(m - 1) - spec.molecules(0)) * spec.tap(0);
+
+        if (m == 2) {
+            BinaryDetection d = BinaryThresholdSearch.search(pmfs.get(0), pmfs.get(1), spec.priorOne());
+            long minErrTau = d.minErrorThreshold();
+            double log10Err = Math.log10(d.minErrorProbability());
+            if (!(d.minErrorProbability() >= LOG_REFINE_BELOW) && spec.countModel() == dev.nanoplan.count.CountModelKind.EXACT) {
+                long[] best = refineInLogSpace(laws.get(0), laws.get(1), spec.priorOne(), minErrTau);
+                minErrTau = best[0];
+                log10Err = Double.longBitsToDouble(best[1]) / LN10;
+            }
+            return new LinkEvaluation(spec, List.copyOf(pmfs), d, null, minErrTau, Math.pow(10, log10Err), log10Err,
+                    signalMean, isiMean, interferenceMean, spec.backgroundMoleculesPerSlot(), truncated);
+        }
+        MultiLevelResult r = MultiLevelQuantizer.optimise(pmfs);
+        double symbolError = mapSymbolError(pmfs);
+        return new LinkEvaluation(spec, List.copyOf(pmfs), null, r, -1, symbolError, Math.log10(symbolError),
+                signalMean, isiMean, interferenceMean, spec.backgroundMoleculesPerSlot(), truncated);
+    }
+
+    /** Weights of earlier symbols' levels: the binary prior, or uniform for more levels. */
+    static double[] isiWeights(LinkSpec spec) {
+        int m = spec.levels();
+        double[] w = new double[m];
+        if (m == 2) {
+            w[0] = 1 - spec.priorOne();
+            w[1] = spec.priorOne();
+        } else {
+            Arrays.fill(w, 1.0 / m);
+        }
+        return w;
+    }
+
+    /** The law of the slot count given that level i is sent now. */
+    public static CountLaw lawGivenLevel(LinkSpec spec, int level, List<CountTerm> interference) {
+        List<CountTerm> terms = new ArrayList<>();
+        terms.add(new BinomialTerm(spec.molecules(level), spec.tap(0)));
+        double[] w = isiWeights(spec);
+        for (int k = 1; k < spec.taps().length; k++) {
+            double p = spec.tap(k);
+            if (p == 0) {
+                continue;
+            }
+            List<CountTerm> parts = new ArrayList<>(spec.levels());
+            for (int j = 0; j < spec.levels(); j++) {
+                parts.add(new BinomialTerm(spec.molecules(j), p));
+            }
+            terms.add(new MixtureTerm(w, parts));
+        }
+        terms.addAll(interference);
+        if (spec.backgroundMoleculesPerSlot() > 0) {
+            terms.add(new PoissonTerm(spec.backgroundMoleculesPerSlot()));
+        }
+        return new CountLaw(terms);
+    }
+
+    /**
+     * Exact minimum of ln[(1−q)·P(Y ≥ τ | 0) + q·P(Y < τ | 1)] over τ, in log space. The two
+     * tails are monotone in τ, so the crossing is found by bisection and the minimum by a local
+     * scan around it.
+     *
+     * @return {τ, Double.doubleToLongBits(ln error)}
+     */
+    static long[] refineInLogSpace(CountLaw law0, CountLaw law1, double q, long start) {
+        double lnQ0 = Math.log1p(-q);
+        double lnQ1 = Math.log(q);
+        long lo = (long) Math.floor(law0.mean()) + 1;
+        long hi = (long) Math.ceil(law1.mean());
+        if (hi < lo) {
+            hi = lo;
+        }
+        // bisection for the crossing of the decreasing and increasing log tails
+        while (hi - lo > 1) {
+            long mid = lo + (hi - lo) / 2;
+            double a = lnQ0 + LogTails.logUpperTail(law0, mid);
+            double b = lnQ1 + LogTails.logLowerTail(law1, mid);
+            if (a > b) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        long bestTau = start;
+        double best = lnError(law0, law1, lnQ0, lnQ1, start);
+        for (long t = Math.max(0, lo - 8); t <= hi + 8; t++) {
+            double e = lnError(law0, law1, lnQ0, lnQ1, t);
+            if (e < best) {
+                best = e;
+                bestTau = t;
+            }
+        }
+        return new long[] {bestTau, Double.doubleToLongBits(best)};
+    }
+
+    private static double lnError(CountLaw law0, CountLaw law1, double lnQ0, double lnQ1, long tau) {
+        double a = lnQ0 + LogTails.logUpperTail(law0, tau);
+        double b = lnQ1 + LogTails.logLowerTail(law1, tau);
+        double hiV = Math.max(a, b);
+        if (hiV == Double.NEGATIVE_INFINITY) {
+            return hiV;
+        }
+        return hiV + Math.log1p(Math.exp(Math.min(a, b) - hiV));
+    }
+
+    /** Symbol error of the maximum a-posteriori detector at uniform inputs: 1 − Σ_y max_i P_i(y)/M. */
+    static double mapSymbolError(List<CountPmf> pmfs) {
+        long lo = Long.MAX_VALUE;
+        long hi = Long.MIN_VALUE;
+        for (CountPmf p : pmfs) {
+            lo = Math.min(lo, p.offset());
+            hi = Math.max(hi, p.last());
+        }
+        int m = pmfs.size();
+        // error = Σ_y (Σ_i P_i(y) − max_i P_i(y)) / M, summed without 1 − x cancellation
+        double err = 0;
+        for (long y = lo; y <= hi; y++) {
+            double sum = 0;
+            double max = 0;
+            for (CountPmf p : pmfs) {
+                double v = p.probability(y);
+                sum += v;
+                max = Math.max(max, v);
+            }
+            err += sum - max;
+        }
+        for (CountPmf p : pmfs) {
+            err += p.truncatedMass();
+        }
+        return Math.min(1, err / m);
+    }
+}

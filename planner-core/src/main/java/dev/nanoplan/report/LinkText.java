@@ -1,0 +1,119 @@
+package dev.nanoplan.report;
+
+import dev.nanoplan.detect.BinaryDetection;
+import dev.nanoplan.detect.MultiLevelResult;
+import dev.nanoplan.network.LinkEvaluation;
+import dev.nanoplan.network.LinkSpec;
+import java.util.Arrays;
+import java.util.Locale;
+
+/** The human-readable table and one-line verdict of {@code nanoplan link}. */
+public final class LinkText {
+
+    private LinkText() {
+    }
+
+    public static String render(LinkEvaluation e, double eventualHitProbability) {
+        LinkSpec s = e.spec();
+        StringBuilder b = new StringBuilder();
+        row(b, "hit probability F(T)", g(s.tap(0)), "fraction of one release counted in its own slot");
+        if (Double.isFinite(eventualHitProbability)) {
+            row(b, "eventual hit F(∞)", g(eventualHitProbability), "fraction ever counted");
+        }
+        row(b, "taps p0..pL", tapsText(s.taps()), "per-slot hit probabilities (ISI memory " + s.isiMemory() + ")");
+        row(b, "levels (molecules)", Arrays.toString(s.levelMolecules()), "count model " + s.countModel().id());
+        row(b, "mean counts", String.format(Locale.ROOT, "signal %s, ISI %s, background %s",
+                g(e.signalMeanMolecules()), g(e.isiMeanMolecules()), g(e.backgroundMeanMolecules())), "per slot");
+        BinaryDetection d = e.binary();
+        MultiLevelResult m = e.multiLevel();
+        if (d != null) {
+            row(b, "threshold τ", Long.toString(d.miThreshold()), "decide 1 iff count ≥ τ (best MI at prior "
+                    + g(s.priorOne()) + ")");
+            row(b, "mutual information", bits(d.mutualInformationBits()), "bit/symbol at τ and the prior");
+            row(b, "min error probability", errText(e), "at τ = " + e.minErrorThreshold());
+            row(b, "capacity", bits(d.capacityBits()), String.format(Locale.ROOT, "bit/symbol (τ = %d, prior one %.3f)",
+                    d.capacityThreshold(), d.capacityPriorOne()));
+        } else {
+            row(b, "thresholds", Arrays.toString(m.thresholds()), "capacity-achieving, decide level j in cell j");
+            row(b, "input distribution", probs(m.inputDistribution()), "capacity-achieving");
+            row(b, "MI at uniform inputs", bits(m.uniformMutualInformationBits()), "best thresholds "
+                    + Arrays.toString(m.uniformThresholds()));
+            row(b, "symbol error (MAP)", errText(e), "uniform inputs");
+            row(b, "capacity", bits(m.capacityBits()), "bit/symbol (hard decisions)");
+            row(b, "soft capacity", bits(m.softCapacityBits()), "bit/symbol, unquantised counts (upper bound)");
+        }
+        row(b, "rate", String.format(Locale.ROOT, "%.4g bit/s", e.rateBitsPerS()), "capacity / symbol time "
+                + g(s.symbolTimeS()) + " s");
+        b.append('\n').append(verdict(e)).append('\n');
+        b.append("Note: ").append(Cautions.SHORT).append('\n');
+        return b.toString();
+    }
+
+    /** One line saying whether the link is usable, and why not. */
+    public static String verdict(LinkEvaluation e) {
+        double c = e.capacityBits();
+        double max = Math.log(e.spec().levels()) / Math.log(2);
+        String word;
+        if (c >= 0.9 * max) {
+            word = "Strong link";
+        } else if (c >= 0.5 * max) {
+            word = "Usable link";
+        } else if (c >= 0.1 * max) {
+            word = "Weak link";
+        } else {
+            word = "Unusable link";
+        }
+        String why = "";
+        if (c < 0.9 * max) {
+            if (e.isiMeanMolecules() > e.signalMeanMolecules()) {
+                why = "; leftovers of earlier symbols exceed the signal: lengthen the symbol time";
+            } else if (e.backgroundMeanMolecules() > e.signalMeanMolecules()) {
+                why = "; background exceeds the signal: release more molecules";
+            } else {
+                why = "; signal is small: release more molecules or move closer";
+            }
+        }
+        return String.format(Locale.ROOT, "%s: %.3f of %.0f bit/symbol, %.4g bit/s, error %s%s.", word, c, max,
+                e.rateBitsPerS(), errText(e), why);
+    }
+
+    static String errText(LinkEvaluation e) {
+        double p = e.minErrorProbability();
+        if (p > 0 && p >= 1e-300) {
+            return String.format(Locale.ROOT, "%.3g", p);
+        }
+        return String.format(Locale.ROOT, "10^%.1f", e.log10ErrorProbability());
+    }
+
+    private static String tapsText(double[] t) {
+        StringBuilder b = new StringBuilder();
+        int n = Math.min(t.length, 6);
+        for (int i = 0; i < n; i++) {
+            b.append(i == 0 ? "" : ", ").append(String.format(Locale.ROOT, "%.3g", t[i]));
+        }
+        if (t.length > n) {
+            b.append(", … (").append(t.length).append(" taps)");
+        }
+        return b.toString();
+    }
+
+    private static String probs(double[] p) {
+        StringBuilder b = new StringBuilder("[");
+        for (int i = 0; i < p.length; i++) {
+            b.append(i == 0 ? "" : ", ").append(String.format(Locale.ROOT, "%.3f", p[i]));
+        }
+        return b.append(']').toString();
+    }
+
+    private static String bits(double v) {
+        return String.format(Locale.ROOT, "%.4f", v);
+    }
+
+    private static String g(double v) {
+        return String.format(Locale.ROOT, "%.4g", v);
+    }
+
+    private static void row(StringBuilder b, String name, String value, String note) {
+        b.append(String.format(Locale.ROOT, "%-22s %-34s %s%n", name, value, note));
+    }
+}

@@ -1,0 +1,123 @@
+package dev.nanoplan.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+
+class LinkCommandTest {
+
+    record Run(int status, String out, String err) {
+    }
+
+    static Run run(String... args) {
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        int status = NanoplanCommand.execute(new PrintWriter(out), new PrintWriter(err), args);
+        return new Run(status, out.toString(), err.toString());
+    }
+
+    static final String[] EXAMPLE = {"link", "--distance-um", "15", "--radius-um", "5", "--diffusion-um2-per-s", "100",
+        "--symbol-time-s", "0.5", "--molecules", "500", "--isi-memory", "5", "--json"};
+
+    @Test
+    void jsonCarriesTheContractKeys() throws Exception {
+        Run r = run(EXAMPLE);
+        assertThat(r.status()).as(r.err()).isZero();
+        JsonNode j = new ObjectMapper().readTree(r.out());
+        for (String key : new String[] {"hit_probability", "eventual_hit_probability", "taps", "threshold",
+            "mutual_information_bits", "capacity_bits", "capacity_prior_one", "capacity_threshold",
+            "min_error_probability", "min_error_threshold", "rate_bits_per_s", "log10_error_probability"}) {
+            assertThat(j.has(key)).as(key).isTrue();
+        }
+        assertThat(j.get("taps").size()).isEqualTo(6);
+        // F(∞) = r/d for an absorbing sphere in an open medium (Redner 2001, first passage to a sphere)
+        assertThat(j.get("eventual_hit_probability").asDouble()).isCloseTo(5.0 / 15.0, org.assertj.core.data.Offset.offset(1e-15));
+        double c = j.get("capacity_bits").asDouble();
+        assertThat(c).isBetween(0.0, 1.0);
+        assertThat(j.get("mutual_information_bits").asDouble()).isLessThanOrEqualTo(c + 1e-12);
+        assertThat(j.get("rate_bits_per_s").asDouble()).isCloseTo(c / 0.5, org.assertj.core.data.Offset.offset(1e-12));
+        assertThat(r.err()).isEmpty();
+    }
+
+    @Test
+    void multiLevelReportsThresholdsAndInputs() throws Exception {
+        for (int levels : new int[] {3, 4}) {
+            String[] args = java.util.Arrays.copyOf(EXAMPLE, EXAMPLE.length + 2);
+            args[EXAMPLE.length] = "--levels";
+            args[EXAMPLE.length + 1] = Integer.toString(levels);
+            Run r = run(args);
+            assertThat(r.status()).as(r.err()).isZero();
+            JsonNode j = new ObjectMapper().readTree(r.out());
+            assertThat(j.get("thresholds").size()).isEqualTo(levels - 1);
+            assertThat(j.get("input_distribution").size()).isEqualTo(levels);
+            double cap = j.get("capacity_bits").asDouble();
+            assertThat(cap).isLessThanOrEqualTo(Math.log(levels) / Math.log(2) + 1e-12);
+            assertThat(j.get("soft_capacity_bits").asDouble()).isGreaterThanOrEqualTo(cap - 1e-9);
+        }
+    }
+
+    @Test
+    void textOutputEndsWithVerdictAndCaution() {
+        String[] args = java.util.Arrays.copyOf(EXAMPLE, EXAMPLE.length - 1);
+        Run r = run(args);
+        assertThat(r.status()).isZero();
+        assertThat(r.out()).contains("capacity").contains("link:").contains("not validated for clinical use");
+    }
+
+    @Test
+    void takesTapsInsteadOfGeometry() throws Exception {
+        Run r = run("link", "--taps", "0.2,0.05,0.01", "--symbol-time-s", "1", "--molecules", "100", "--json");
+        assertThat(r.status()).as(r.err()).isZero();
+        JsonNode j = new ObjectMapper().readTree(r.out());
+        assertThat(j.get("hit_probability").asDouble()).isEqualTo(0.2);
+        assertThat(j.get("eventual_hit_probability").isNull()).isTrue();
+    }
+
+    @Test
+    void writesPlots(@TempDir Path dir) throws Exception {
+        for (String name : new String[] {"p.svg", "p.png"}) {
+            Path f = dir.resolve(name);
+            String[] args = java.util.Arrays.copyOf(EXAMPLE, EXAMPLE.length + 2);
+            args[EXAMPLE.length] = "--plot";
+            args[EXAMPLE.length + 1] = f.toString();
+            Run r = run(args);
+            assertThat(r.status()).as(r.err()).isZero();
+            assertThat(Files.size(f)).isGreaterThan(1000);
+        }
+    }
+
+    @ParameterizedTest
+    @CsvSource(delimiter = '|', value = {
+        "--distance-um 4 --radius-um 5 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 | --distance-um",
+        "--distance-um 10 --radius-um -1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 | --radius-um",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s NaN --symbol-time-s 1 --molecules 10 | --diffusion-um2-per-s",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 0 --molecules 10 | --symbol-time-s",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s Infinity --molecules 10 | --symbol-time-s",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 --prior-one 1 | --prior-one",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 --levels 1 | --levels",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 --count-model fancy | --count-model",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 0 | --molecules",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules ten | --molecules",
+        "--taps 0.5,1.5 --symbol-time-s 1 --molecules 10 | --taps",
+        "--distance-um 10 --radius-um 1 --symbol-time-s 1 --molecules 10 | --diffusion-um2-per-s",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 --half-life-s -3 | --half-life-s",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 --plot x.gif | --plot",
+    })
+    void badInputIsOneLineNamingTheOption(String args, String option) {
+        String[] a = ("link " + args).trim().split("\\s+");
+        Run r = run(a);
+        assertThat(r.status()).isEqualTo(2);
+        assertThat(r.out()).isEmpty();
+        assertThat(r.err()).contains(option).doesNotContain("Exception").doesNotContain("\tat ");
+        assertThat(r.err().lines().filter(l -> !l.startsWith("(see:")).count()).isEqualTo(1);
+    }
+}
