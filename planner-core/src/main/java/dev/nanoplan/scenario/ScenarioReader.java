@@ -226,6 +226,7 @@ public final class ScenarioReader {
             List<Node> nodes = new ArrayList<>();
             List<ScenarioValidator.NodeFact> nodeFacts = new ArrayList<>();
             boolean nodesComplete = true;
+            boolean idsComplete = true;
             List<JsonNode> nodeNodes = root.array("nodes", true);
             if (nodeNodes != null && nodeNodes.isEmpty()) {
                 error("nodes", "must list at least one node");
@@ -234,9 +235,11 @@ public final class ScenarioReader {
                 Obj o = element(nodeNodes.get(i), "nodes[" + i + "]");
                 if (o == null) {
                     nodesComplete = false;
+                    idsComplete = false;
                     continue;
                 }
                 NodeParts parts = node(o, i);
+                idsComplete &= parts.fact().id() != null && parts.fact().role() != null;
                 nodeFacts.add(parts.fact());
                 nodesComplete &= parts.fact().species() != null
                         && (parts.fact().role() != Role.RELAY || parts.fact().emitsSpecies() != null);
@@ -245,6 +248,7 @@ public final class ScenarioReader {
                 }
             }
             nodesComplete &= nodeNodes != null;
+            idsComplete &= nodeNodes != null;
 
             List<ScenarioValidator.DemandFact> demandFacts = new ArrayList<>();
             List<Demand> demands = new ArrayList<>();
@@ -268,7 +272,7 @@ public final class ScenarioReader {
             Flow flow = medium == null ? null : medium.flow();
             String flowProfile = flow == null ? flowProfileSeen : flow.profile();
             errors.addAll(ScenarioValidator.check(volume, flowProfile, speciesFacts, speciesComplete, nodeFacts,
-                    nodesComplete, demandFacts));
+                    nodesComplete, idsComplete, demandFacts));
             if (!errors.isEmpty() || volume == null || signalling == null) {
                 return null;
             }
@@ -321,6 +325,7 @@ public final class ScenarioReader {
                     }
                     default:
                         o.problem("shape", "unknown shape '" + shape + "', expected open, box or cylinder");
+                        return null; // the other fields cannot be judged without a known shape
                 }
             }
             o.finish();
@@ -367,6 +372,7 @@ public final class ScenarioReader {
                     default:
                         o.problem("profile", "unknown flow profile '" + profile
                                 + "', expected none, uniform or poiseuille");
+                        return null; // the other fields cannot be judged without a known profile
                 }
             }
             o.finish();
@@ -416,9 +422,10 @@ public final class ScenarioReader {
             String cm = o.optionalString("count_model", CountModelKind.EXACT.id());
             CountModelKind kind = null;
             if (cm != null) {
-                try {
-                    kind = CountModelKind.parse(cm);
-                } catch (IllegalArgumentException e) {
+                for (CountModelKind k : CountModelKind.values()) {
+                    kind = k.id().equals(cm) ? CountModelKind.parse(cm) : kind;
+                }
+                if (kind == null) {
                     o.problem("count_model", "unknown count model '" + cm + "', expected exact, poisson or gaussian");
                 }
             }

@@ -63,7 +63,7 @@ public final class ScenarioValidator {
         for (int i = 0; i < demands.size(); i++) {
             demandFacts.add(new DemandFact(i, demands.get(i).from(), demands.get(i).to()));
         }
-        return check(volume, flow == null ? null : flow.profile(), speciesFacts, true, nodeFacts, true, demandFacts);
+        return check(volume, flow == null ? null : flow.profile(), speciesFacts, true, nodeFacts, true, true, demandFacts);
     }
 
     /** A declared species name (null if it failed to parse). */
@@ -87,9 +87,12 @@ public final class ScenarioValidator {
      * @param speciesComplete whether every declared species' name is known
      * @param nodesComplete whether every node's species names are known (needed to call a species
      *     unused)
+     * @param idsComplete whether every node's id and role are known (needed to call a demand's node
+     *     unknown or unfit)
      */
     static List<ScenarioProblem> check(Volume volume, String flowProfile, List<NamedFact> species,
-            boolean speciesComplete, List<NodeFact> nodes, boolean nodesComplete, List<DemandFact> demands) {
+            boolean speciesComplete, List<NodeFact> nodes, boolean nodesComplete, boolean idsComplete,
+            List<DemandFact> demands) {
         List<ScenarioProblem> out = new ArrayList<>();
 
         if ("poiseuille".equals(flowProfile) && volume != null && !(volume instanceof Volume.Cylinder)) {
@@ -142,7 +145,7 @@ public final class ScenarioValidator {
 
         findOverlaps(nodes, out);
 
-        for (DemandFact d : demands) {
+        for (DemandFact d : idsComplete ? demands : List.<DemandFact>of()) {
             String p = "demands[" + d.index() + "]";
             if (d.from() != null) {
                 NodeFact from = byId.get(d.from());
