@@ -1,0 +1,68 @@
+package dev.nanoplan.scenario;
+
+import dev.nanoplan.geometry.Volume;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.stream.Collectors;
+
+/**
+ * A validated layout: the content of a {@value #FORMAT} scenario file.
+ *
+ * <p>Every instance satisfies all checks of {@link ScenarioValidator} (the compact constructor
+ * runs them), so consumers need not re-check ids, species references, volume containment or
+ * overlaps. Values keep the file's units, named in every accessor (µm, s, µm²/s, K, mPa·s).
+ * Construction costs O(n) expected time for n nodes.
+ *
+ * @param name free text (file default empty)
+ * @param volume the fluid region
+ * @param medium the fluid (file default {@link Medium#DEFAULT})
+ * @param species declared species, at least one, unique names, each used by some node
+ * @param signalling symbol timing and detection settings
+ * @param nodes the machines, at least one, unique ids
+ * @param demands requested data flows (file default none)
+ * @param targets what the layout should achieve (file default {@link Targets#DEFAULT})
+ */
+public record Scenario(String name, Volume volume, Medium medium, List<Species> species, Signalling signalling,
+        List<Node> nodes, List<Demand> demands, Targets targets) {
+
+    /** The only supported value of the file's {@code format} field. */
+    public static final String FORMAT = "nanoplan/1";
+
+    /** @throws IllegalArgumentException listing every cross-field problem if the parts do not fit */
+    public Scenario {
+        Checks.required("name", name);
+        Checks.required("volume", volume);
+        Checks.required("medium", medium);
+        Checks.required("signalling", signalling);
+        Checks.required("targets", targets);
+        species = List.copyOf(Checks.required("species", species));
+        nodes = List.copyOf(Checks.required("nodes", nodes));
+        demands = List.copyOf(Checks.required("demands", demands));
+        if (species.isEmpty()) {
+            throw new IllegalArgumentException("species must not be empty");
+        }
+        if (nodes.isEmpty()) {
+            throw new IllegalArgumentException("nodes must not be empty");
+        }
+        List<ScenarioProblem> problems = ScenarioValidator.check(volume, medium.flow(), species, nodes, demands);
+        if (!problems.isEmpty()) {
+            throw new IllegalArgumentException("invalid scenario:\n"
+                    + problems.stream().map(ScenarioProblem::toString).collect(Collectors.joining("\n")));
+        }
+    }
+
+    /** Nodes by id, in file order. O(n) per call: cache the result. */
+    public Map<String, Node> nodesById() {
+        Map<String, Node> m = new LinkedHashMap<>();
+        nodes.forEach(n -> m.put(n.id(), n));
+        return m;
+    }
+
+    /** Species by name, in file order. */
+    public Map<String, Species> speciesByName() {
+        Map<String, Species> m = new LinkedHashMap<>();
+        species.forEach(s -> m.put(s.name(), s));
+        return m;
+    }
+}
