@@ -111,7 +111,7 @@ public final class ExactCountModel implements CountModel {
             while (queue.size() > 1) {
                 Window a = queue.poll();
                 Window b = queue.poll();
-                queue.add(merge(a, b).trim(mergeEps));
+                queue.add(merge(a, b).trimMore(mergeEps));
             }
             acc = queue.poll();
         }

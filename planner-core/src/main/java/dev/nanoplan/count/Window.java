@@ -28,22 +28,29 @@ final class Window {
     }
 
     /**
-     * Drops whole cells from both ends while the mass dropped on that side stays below
-     * {@code epsPerSide}; the dropped mass is added to {@link #below} / {@link #above}.
+     * Drops whole cells from both ends while the mass dropped on that side, including what
+     * was already dropped there, stays below {@code epsPerSide}.
      */
     Window trim(double epsPerSide) {
+        return trimTo(epsPerSide, epsPerSide);
+    }
+
+    /** Drops further cells while the dropped mass grows by less than {@code extraPerSide}. */
+    Window trimMore(double extraPerSide) {
+        return trimTo(below + extraPerSide, above + extraPerSide);
+    }
+
+    private Window trimTo(double limitBelow, double limitAbove) {
         int lo = 0;
         int hi = p.length - 1;
-        double cut = 0;
-        while (lo < hi && cut + p[lo] < epsPerSide) {
-            cut += p[lo++];
+        double newBelow = below;
+        while (lo < hi && newBelow + p[lo] < limitBelow) {
+            newBelow += p[lo++];
         }
-        double newBelow = below + cut;
-        cut = 0;
-        while (hi > lo && cut + p[hi] < epsPerSide) {
-            cut += p[hi--];
+        double newAbove = above;
+        while (hi > lo && newAbove + p[hi] < limitAbove) {
+            newAbove += p[hi--];
         }
-        double newAbove = above + cut;
         if (lo == 0 && hi == p.length - 1) {
             return this;
         }
