@@ -132,10 +132,7 @@ final class TermWindows {
             p[i] = downs[nd - 1 - i];
         }
         System.arraycopy(ups, 0, p, nd, nu);
-        double z = tailBelow + tailAbove;
-        for (double v : p) {
-            z += v;
-        }
+        double z = Window.sum(p) + tailBelow + tailAbove;
         double inv = 1 / z;
         for (int i = 0; i < p.length; i++) {
             p[i] *= inv;

@@ -59,6 +59,18 @@ final class Window {
         return new Window(offset + lo, q, newBelow, newAbove);
     }
 
+    /** Σ a[i] with Neumaier's compensated summation (error about 2⁻⁵³, independent of length). */
+    static double sum(double[] a) {
+        double s = 0;
+        double c = 0;
+        for (double v : a) {
+            double t = s + v;
+            c += Math.abs(s) >= Math.abs(v) ? (s - t) + v : (v - t) + s;
+            s = t;
+        }
+        return s + c;
+    }
+
     CountPmf toPmf() {
         return new CountPmf(offset, p, below, above);
     }
