@@ -33,12 +33,13 @@ public final class GaussianCountModel implements CountModel {
         DENSITY
     }
 
+    private static final NormalDistribution STANDARD = NormalDistribution.of(0, 1);
+    private static final double MIN_SIGMA = 1e-9;
+
     /** Continuity-corrected model with truncation 1e-15. */
     public static final GaussianCountModel DEFAULT =
             new GaussianCountModel(Variant.CONTINUITY_CORRECTED, ExactCountModel.DEFAULT_TRUNCATION_MASS);
 
-    private static final NormalDistribution STANDARD = NormalDistribution.of(0, 1);
-    private static final double MIN_SIGMA = 1e-9;
 
     private final Variant variant;
     private final double truncationMass;
