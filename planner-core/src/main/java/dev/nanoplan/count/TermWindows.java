@@ -94,7 +94,7 @@ final class TermWindows {
         boolean done = k >= max;
         while (!done) {
             double r = up.at(k);
-            if (r < 1 && u * r / (1 - r) < eps) {
+            if (r < 1 && u * r < eps * (1 - r)) {
                 tailAbove = tail(k, u, max, up, +1);
                 break;
             }
@@ -115,7 +115,7 @@ final class TermWindows {
         done = k <= min;
         while (!done) {
             double s = down.at(k);
-            if (s < 1 && u * s / (1 - s) < eps) {
+            if (s < 1 && u * s < eps * (1 - s)) {
                 tailBelow = tail(k, u, min, down, -1);
                 break;
             }
@@ -152,7 +152,7 @@ final class TermWindows {
                 break;
             }
             double r2 = ratio.at(k);
-            if (k != bound && r2 < 1 && u * r2 / (1 - r2) < TAIL_REL * sum) {
+            if (k != bound && r2 < 1 && u * r2 < TAIL_REL * sum * (1 - r2)) {
                 sum += u * r2 / (1 - r2);
                 break;
             }
