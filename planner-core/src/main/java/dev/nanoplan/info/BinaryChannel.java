@@ -58,8 +58,9 @@ public final class BinaryChannel {
     }
 
     /**
-     * Mutual information in bits with the complements given separately (each pair must sum
-     * to 1 within 1e-6; it is renormalised to sum to 1).
+     * Mutual information in bits with the complements given separately (each pair must be
+     * non-negative and sum to 1 within 1e-6; it is renormalised to sum to 1, so an entry such
+     * as 1 + 4e-16 from summed tails is accepted).
      *
      * @param priorOne q in [0, 1]
      * @param e0 P(Y = 1 | X = 0)
@@ -194,8 +195,10 @@ public final class BinaryChannel {
     }
 
     private static double checkPair(String name, double p, double oneMinusP) {
-        checkProbability(name, p);
-        checkProbability("1 - " + name, oneMinusP);
+        if (!(p >= 0) || !(oneMinusP >= 0)) {
+            throw new IllegalArgumentException(
+                    name + " and its complement must be >= 0, got " + p + " and " + oneMinusP);
+        }
         double s = p + oneMinusP;
         if (Math.abs(s - 1) > 1e-6) {
             throw new IllegalArgumentException(
