@@ -24,7 +24,9 @@ import java.util.List;
  * whose two rows are at total-variation distance Δ = |1 − ε₀ − ε₁| is a degraded binary erasure
  * channel with erasure probability 1 − Δ, so its capacity is at most Δ bits (data-processing
  * inequality, T. M. Cover and J. A. Thomas, <i>Elements of Information Theory</i>, 2nd ed.,
- * 2006, Theorem 2.8.1). Ties go to the smallest τ.
+ * 2006, Theorem 2.8.1), and where the divergence bound max_x D(W_x ‖ r) (any output
+ * distribution r bounds the capacity from above; Arimoto 1972) is below the best capacity so
+ * far. Ties go to the smallest τ.
  *
  * <p>Complexity O(K) time and memory for a union window of K counts (a few logarithms per
  * threshold for the mutual information; the capacity only near the best thresholds).
@@ -53,7 +55,7 @@ public final class BinaryThresholdSearch {
         double[] p1 = w.prefix[1];
         double[] s1 = w.suffix[1];
         double q = priorOne;
-        double[] mi = new double[n];
+        double[] mi = BinaryChannel.mutualInformationBits(q, s0, p0, p1, s1);
         double[] err = new double[n];
         int bestMi = 0;
         int bestErr = 0;
@@ -64,7 +66,6 @@ public final class BinaryThresholdSearch {
             double c0 = p0[t];
             double e1 = p1[t];
             double c1 = s1[t];
-            mi[t] = BinaryChannel.mutualInformationBits(q, e0, c0, e1, c1);
             err[t] = Math.min(1, (1 - q) * e0 + q * e1);
             if (mi[t] > mi[bestMi]) {
                 bestMi = t;
@@ -81,7 +82,9 @@ public final class BinaryThresholdSearch {
         int bestCap = bestDelta;
         BinaryCapacity cap = BinaryChannel.capacity(s0[bestCap], p0[bestCap], p1[bestCap], s1[bestCap]);
         for (int t = 0; t < n; t++) {
-            if (t == bestDelta || delta(s0[t], p0[t], p1[t], s1[t]) < cap.bits() - 1e-15) {
+            if (t == bestDelta || delta(s0[t], p0[t], p1[t], s1[t]) < cap.bits() - 1e-15
+                    || divergenceBoundBits(cap.priorOne(), s0[t], p0[t], p1[t], s1[t])
+                            < cap.bits() - 1e-12) {
                 continue;
             }
             BinaryCapacity c = BinaryChannel.capacity(s0[t], p0[t], p1[t], s1[t]);
@@ -93,6 +96,37 @@ public final class BinaryThresholdSearch {
         return new BinaryDetection(w.first + bestMi, mi[bestMi], w.first + bestErr, err[bestErr],
                 w.first + bestCap, cap.bits(), cap.priorOne(), Math.min(1, s0[bestCap]),
                 Math.min(1, p1[bestCap]), w.first, mi, err);
+    }
+
+    /**
+     * Upper bound max_x D(W_x ‖ r) on the capacity of the binary channel (bits), with r the
+     * output distribution at prior q; valid for every r (S. Arimoto, IEEE Trans. Inf. Theory
+     * IT-18(1), 1972, Theorem 1). Four logarithms, against about fifteen for the capacity.
+     */
+    private static double divergenceBoundBits(double q, double e0, double c0, double e1, double c1) {
+        double s0 = e0 + c0;
+        double s1 = e1 + c1;
+        e0 /= s0;
+        c0 /= s0;
+        e1 /= s1;
+        c1 /= s1;
+        double r1 = (1 - q) * e0 + q * c1;
+        double r0 = (1 - q) * c0 + q * e1;
+        double d0 = xlog(c0, r0) + xlog(e0, r1);
+        double d1 = xlog(e1, r0) + xlog(c1, r1);
+        return Math.max(d0, d1) / Math.log(2);
+    }
+
+    /** w·ln(w/r), 0 for w = 0; +∞ when r = 0 &lt; w (the bound is then void). */
+    private static double xlog(double w, double r) {
+        if (w == 0) {
+            return 0;
+        }
+        if (r == 0) {
+            return Double.POSITIVE_INFINITY;
+        }
+        double ratio = w / r;
+        return w * (ratio < Double.POSITIVE_INFINITY ? Math.log(ratio) : Math.log(w) - Math.log(r));
     }
 
     /** |1 − ε₀ − ε₁| from the pair with the smaller operands (c0 − e1 = c1 − e0). */

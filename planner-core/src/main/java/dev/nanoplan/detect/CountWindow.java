@@ -89,8 +89,11 @@ final class CountWindow {
                 throw new IllegalArgumentException("count pmf " + i
                         + " (window plus truncated mass) must sum to 1, sums to " + total);
             }
-            for (int k = 0; k < size; k++) {
-                m[k] /= total;
+            if (total != 1) {
+                double inv = 1 / total;
+                for (int k = 0; k < size; k++) {
+                    m[k] *= inv;
+                }
             }
         }
         return new CountWindow(lo, mass);

@@ -40,6 +40,9 @@ public final class BinaryChannel {
     private static final double GOLDEN = (Math.sqrt(5) - 1) / 2;
     private static final double EPS = 0x1.0p-52;
 
+    /** Mutual information below which the batch method returns 0 without logarithms, bits. */
+    public static final double NEGLIGIBLE_BITS = 1e-20;
+
     private BinaryChannel() {
     }
 
@@ -75,6 +78,50 @@ public final class BinaryChannel {
         double s0 = checkPair("e0", e0, oneMinusE0);
         double s1 = checkPair("e1", e1, oneMinusE1);
         return miNats(priorOne, e0 / s0, oneMinusE0 / s0, e1 / s1, oneMinusE1 / s1) / LN2;
+    }
+
+    /**
+     * Mutual information in bits of many binary channels at one prior: element i uses
+     * (e0[i], oneMinusE0[i], e1[i], oneMinusE1[i]) as in
+     * {@link #mutualInformationBits(double, double, double, double, double)}, with the same
+     * checks. Meant for threshold sweeps (one call per sweep, at most four logarithms per
+     * channel, no allocation besides the result). Entries whose rigorous upper bound
+     * Δ·h(q) is below {@value #NEGLIGIBLE_BITS} bit are returned as 0 without evaluating
+     * logarithms (absolute error below that bound); Δ = |1 − e0 − e1| is the total-variation
+     * distance of the rows, and a binary-input channel with distance Δ is a degraded binary
+     * erasure channel with erasure probability 1 − Δ, whose mutual information at prior q is
+     * Δ·h(q) (data-processing inequality, T. M. Cover and J. A. Thomas, <i>Elements of
+     * Information Theory</i>, 2nd ed., 2006, Theorem 2.8.1).
+     *
+     * @return a new array of the common length, each entry in [0, 1]
+     * @throws IllegalArgumentException on arrays of unequal length or an invalid entry
+     */
+    public static double[] mutualInformationBits(double priorOne, double[] e0, double[] oneMinusE0,
+                                                 double[] e1, double[] oneMinusE1) {
+        checkProbability("priorOne", priorOne);
+        int n = e0.length;
+        if (oneMinusE0.length != n || e1.length != n || oneMinusE1.length != n) {
+            throw new IllegalArgumentException("crossover arrays must have equal lengths");
+        }
+        double[] out = new double[n];
+        double hq = Entropy.binaryBits(priorOne);
+        for (int i = 0; i < n; i++) {
+            double s0 = checkPair("e0", e0[i], oneMinusE0[i]);
+            double s1 = checkPair("e1", e1[i], oneMinusE1[i]);
+            double lowSum = oneMinusE0[i] + e1[i];
+            double highSum = oneMinusE1[i] + e0[i];
+            double delta = lowSum <= highSum
+                    ? Math.abs(oneMinusE0[i] - e1[i]) + 4 * EPS * lowSum
+                    : Math.abs(oneMinusE1[i] - e0[i]) + 4 * EPS * highSum;
+            if (delta * hq < NEGLIGIBLE_BITS) {
+                continue; // out[i] = 0 within the bound
+            }
+            double a0 = 1 / s0;
+            double a1 = 1 / s1;
+            out[i] = miNats(priorOne, e0[i] * a0, oneMinusE0[i] * a0, e1[i] * a1,
+                    oneMinusE1[i] * a1) / LN2;
+        }
+        return out;
     }
 
     /**

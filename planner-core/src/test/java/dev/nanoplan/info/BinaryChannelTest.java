@@ -153,4 +153,33 @@ class BinaryChannelTest {
         assertThat(c.bits()).isGreaterThanOrEqualTo(0.0)
                 .isCloseTo(ba.capacityBits(), within(1e-13 + ba.gapBits()));
     }
+
+    @Test
+    void batchMutualInformationMatchesDefinition() {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(23L);
+        int n = 200;
+        double[] e0 = new double[n];
+        double[] c0 = new double[n];
+        double[] e1 = new double[n];
+        double[] c1 = new double[n];
+        for (int i = 0; i < n; i++) {
+            // include nearly useless channels (e0 + e1 within 1e-25 of 1) and tiny tails
+            e0[i] = i % 3 == 0 ? Math.pow(10, -30 * rng.nextDouble()) : rng.nextDouble();
+            c0[i] = 1 - e0[i];
+            e1[i] = i % 4 == 0 ? c0[i] : rng.nextDouble();
+            c1[i] = i % 4 == 0 ? e0[i] : 1 - e1[i];
+        }
+        double q = 0.37;
+        double[] batch = BinaryChannel.mutualInformationBits(q, e0, c0, e1, c1);
+        for (int i = 0; i < n; i++) {
+            double r1 = (1 - q) * e0[i] + q * c1[i];
+            double definition = h(r1) - (1 - q) * h(e0[i]) - q * h(e1[i]);
+            // Cover & Thomas 2006, eq. (2.39): I(X;Y) = H(Y) - H(Y|X)
+            assertThat(batch[i]).isCloseTo(definition, within(1e-12));
+            assertThat(batch[i]).isCloseTo(BinaryChannel.mutualInformationBits(q, e0[i], c0[i], e1[i], c1[i]),
+                    within(BinaryChannel.NEGLIGIBLE_BITS));
+        }
+        assertThatThrownBy(() -> BinaryChannel.mutualInformationBits(q, e0, c0, e1, new double[1]))
+                .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("lengths");
+    }
 }
