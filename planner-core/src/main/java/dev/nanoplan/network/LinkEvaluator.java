@@ -88,7 +88,7 @@ public final class LinkEvaluator {
             return new LinkEvaluation(spec, List.copyOf(pmfs), d, null, minErrTau, Math.pow(10, log10Err), log10Err,
                     signalMean, isiMean, interferenceMean, spec.backgroundMoleculesPerSlot(), truncated);
         }
-        MultiLevelResult r = MultiLevelQuantizer.optimise(pmfs);
+        MultiLevelResult r = MultiLevelQuantizer.DEFAULT.optimise(pmfs);
         double symbolError = mapSymbolError(pmfs);
         return new LinkEvaluation(spec, List.copyOf(pmfs), null, r, -1, symbolError, Math.log10(symbolError),
                 signalMean, isiMean, interferenceMean, spec.backgroundMoleculesPerSlot(), truncated);

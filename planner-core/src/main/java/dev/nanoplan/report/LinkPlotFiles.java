@@ -2,12 +2,11 @@ package dev.nanoplan.report;
 
 import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.detect.BinaryDetection;
+import dev.nanoplan.detect.FirstThresholdSweep;
 import dev.nanoplan.detect.MultiLevelResult;
 import dev.nanoplan.network.LinkEvaluation;
 import java.io.IOException;
-import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -51,7 +50,8 @@ public final class LinkPlotFiles {
                     b.capacityBits(), b.mutualInformationBits(), b.miThreshold(), e.spec().priorOne());
         } else {
             thresholds = m.thresholds();
-            mi = new LinkPlot.Series("MI", m.firstThreshold(), m.miBitsByFirstThreshold());
+            FirstThresholdSweep.Curve curve = FirstThresholdSweep.sweep(e.givenLevel(), thresholds, m.inputDistribution());
+            mi = new LinkPlot.Series("MI", curve.firstThreshold(), curve.miBits());
             chosen = thresholds[0];
             title = String.format(Locale.ROOT, "Link, %d levels: capacity %.4f bit/symbol", lm.length, m.capacityBits());
         }
