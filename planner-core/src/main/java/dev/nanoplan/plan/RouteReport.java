@@ -1,0 +1,33 @@
+package dev.nanoplan.plan;
+
+import java.util.List;
+
+/**
+ * The chosen route of one demand (the {@code routes} entries of DESIGN.md §4.3).
+ *
+ * @param from                    demand source id
+ * @param to                      demand destination id
+ * @param hops                    node ids, source first; empty when unreachable
+ * @param bottleneckCapacityBits  capacity of the weakest hop (0 when unreachable)
+ * @param bottleneckFrom          weakest hop's emitter (null when unreachable)
+ * @param bottleneckTo            weakest hop's receiver (null when unreachable)
+ * @param endToEndCapacityBits    capacity of the decode-and-forward cascade (≤ bottleneck)
+ * @param rateBitsPerS            end-to-end capacity / symbol time
+ * @param latencyS                hops × symbol time
+ * @param directCapacityBits      capacity of the direct link, or null when there is none
+ * @param bottleneckLimitedBy     why the weakest hop is weak (null when unreachable)
+ * @param advice                  what would fix it, in words a device engineer acts on
+ */
+public record RouteReport(String from, String to, List<String> hops, double bottleneckCapacityBits,
+        String bottleneckFrom, String bottleneckTo, double endToEndCapacityBits, double rateBitsPerS,
+        double latencyS, Double directCapacityBits, Impairment bottleneckLimitedBy, String advice) {
+
+    public RouteReport {
+        hops = List.copyOf(hops);
+    }
+
+    /** True when a route exists. */
+    public boolean reachable() {
+        return !hops.isEmpty();
+    }
+}
