@@ -142,6 +142,9 @@ public final class LinkEvaluator {
         double lnQ1 = Math.log(q);
         long lo = (long) Math.floor(law0.mean()) + 1;
         long hi = (long) Math.ceil(law1.mean());
+        // past the largest possible "0" count ε₀ is already 0 and ε₁ only grows: τ* ≤ max₀ + 1
+        long cap = law0.maxValue() == Long.MAX_VALUE ? Long.MAX_VALUE : law0.maxValue() + 1;
+        hi = Math.min(hi, cap);
         if (hi < lo) {
             hi = lo;
         }
@@ -158,7 +161,7 @@ public final class LinkEvaluator {
         }
         long bestTau = start;
         double best = lnError(law0, law1, lnQ0, lnQ1, start);
-        for (long t = Math.max(0, lo - 8); t <= hi + 8; t++) {
+        for (long t = Math.max(0, lo - 8); t <= Math.min(hi + 8, cap); t++) {
             double e = lnError(law0, law1, lnQ0, lnQ1, t);
             if (e < best) {
                 best = e;
