@@ -55,10 +55,11 @@ public final class LinkEvaluator {
         for (int i = 0; i < m; i++) {
             laws.add(lawGivenLevel(spec, i, interference));
         }
-        List<CountPmf> pmfs = new ArrayList<>(m);
-        for (CountLaw law : laws) {
-            pmfs.add(model.pmf(law));
+        List<CountLaw> own = new ArrayList<>(m);
+        for (int i = 0; i < m; i++) {
+            own.add(CountLaw.of(new BinomialTerm(spec.molecules(i), spec.tap(0))));
         }
+        List<CountPmf> pmfs = model.pmfs(sharedLaw(spec, interference), own);
         double truncated = 0;
         for (CountPmf p : pmfs) {
             truncated = Math.max(truncated, p.truncatedMass());
@@ -111,6 +112,13 @@ public final class LinkEvaluator {
     public static CountLaw lawGivenLevel(LinkSpec spec, int level, List<CountTerm> interference) {
         List<CountTerm> terms = new ArrayList<>();
         terms.add(new BinomialTerm(spec.molecules(level), spec.tap(0)));
+        terms.addAll(sharedLaw(spec, interference).terms());
+        return new CountLaw(terms);
+    }
+
+    /** What every level's count shares: own leftovers, interference and background. */
+    static CountLaw sharedLaw(LinkSpec spec, List<CountTerm> interference) {
+        List<CountTerm> terms = new ArrayList<>();
         double[] w = isiWeights(spec);
         for (int k = 1; k < spec.taps().length; k++) {
             double p = spec.tap(k);
