@@ -1,0 +1,151 @@
+package dev.nanoplan.plan;
+
+import dev.nanoplan.count.CountTerm;
+import dev.nanoplan.network.AnalyticChannel;
+import dev.nanoplan.network.ChannelEntry;
+import dev.nanoplan.network.Crosstalk;
+import dev.nanoplan.network.LinkEvaluation;
+import dev.nanoplan.network.LinkEvaluator;
+import dev.nanoplan.network.LinkSpec;
+import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Signalling;
+import dev.nanoplan.scenario.Species;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Everything needed to evaluate one emitter → receiver link, and to re-evaluate it with one
+ * thing changed (the what-ifs behind {@code limited_by}, the advice and the budgets).
+ */
+final class LinkContext {
+
+    final Scenario scenario;
+    final Node emitter;
+    final Node receiver;
+    final Species species;
+    final ChannelEntry entry;
+    final List<Crosstalk.Interferer> interferers;
+    final int exactCount;
+    final boolean analytic;
+
+    LinkContext(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry,
+            List<Crosstalk.Interferer> interferers, int exactCount) {
+        this.scenario = scenario;
+        this.emitter = emitter;
+        this.receiver = receiver;
+        this.species = species;
+        this.entry = entry;
+        this.interferers = interferers;
+        this.exactCount = exactCount;
+        this.analytic = entry.source().equals(dev.nanoplan.network.ChannelMatrix.ANALYTIC);
+    }
+
+    Signalling signalling() {
+        return scenario.signalling();
+    }
+
+    double symbolTimeS() {
+        return scenario.signalling().symbolTimeS();
+    }
+
+    /** Prior weights of the levels: binary prior, uniform for more levels. */
+    static double[] weights(Signalling s) {
+        double[] w = new double[s.levels()];
+        if (s.levels() == 2) {
+            w[0] = 1 - s.priorOne();
+            w[1] = s.priorOne();
+        } else {
+            java.util.Arrays.fill(w, 1.0 / s.levels());
+        }
+        return w;
+    }
+
+    /** Levels of a node sending {@code top} molecules for its highest level. */
+    long[] levels(long top) {
+        return LinkSpec.evenLevels(signalling().levels(), Math.max(top, signalling().levels() - 1));
+    }
+
+    LinkSpec spec(double[] taps, long top, double symbolTimeS, double backgroundPerS) {
+        Signalling s = signalling();
+        return new LinkSpec(taps, levels(top), s.priorOne(), backgroundPerS * symbolTimeS, s.countModel(),
+                symbolTimeS);
+    }
+
+    /** The link as laid out. */
+    LinkEvaluation evaluate() {
+        return evaluate(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(),
+                scenario.medium().backgroundMoleculesPerS(), interferers);
+    }
+
+    LinkEvaluation evaluate(double[] taps, long top, double symbolTimeS, double backgroundPerS,
+            List<Crosstalk.Interferer> others) {
+        List<CountTerm> terms = Crosstalk.terms(others, exactCount);
+        return LinkEvaluator.evaluate(spec(taps, top, symbolTimeS, backgroundPerS), terms);
+    }
+
+    /** Gaussian estimate of the link as laid out ({@link dev.nanoplan.network.GaussianScreen}). */
+    double screenBits() {
+        return dev.nanoplan.network.GaussianScreen.estimateBits(spec(entry.taps(), emitter.moleculesPerSymbol(),
+                symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), Crosstalk.terms(interferers, exactCount));
+    }
+
+    /** Capacity without ISI (earlier symbols leave nothing). */
+    double capacityWithoutIsi() {
+        return evaluate(new double[] {entry.tap(0)}, emitter.moleculesPerSymbol(), symbolTimeS(),
+                scenario.medium().backgroundMoleculesPerS(), interferers).capacityBits();
+    }
+
+    /** Capacity without crosstalk. */
+    double capacityWithoutCrosstalk() {
+        return evaluate(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(),
+                scenario.medium().backgroundMoleculesPerS(), List.of()).capacityBits();
+    }
+
+    /** Capacity without background. */
+    double capacityWithoutNoise() {
+        return evaluate(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(), 0, interferers).capacityBits();
+    }
+
+    /** Capacity with the emitter sending {@code top} molecules, the rest unchanged. */
+    LinkEvaluation withMolecules(long top) {
+        return evaluate(entry.taps(), top, symbolTimeS(), scenario.medium().backgroundMoleculesPerS(), interferers);
+    }
+
+    /** Own and every interferer's molecules scaled by {@code factor}. */
+    LinkEvaluation allScaled(double factor) {
+        List<Crosstalk.Interferer> scaled = new ArrayList<>(interferers.size());
+        for (Crosstalk.Interferer i : interferers) {
+            scaled.add(i.scaled(factor));
+        }
+        long top = Math.max(1, Math.round(emitter.moleculesPerSymbol() * factor));
+        return evaluate(entry.taps(), top, symbolTimeS(), scenario.medium().backgroundMoleculesPerS(), scaled);
+    }
+
+    /** Analytic only: the link with the emitter moved to centre distance {@code distanceUm}. */
+    LinkEvaluation atDistance(double distanceUm) {
+        double[] taps = AnalyticChannel.model(distanceUm, receiver.radiusUm(), species)
+                .taps(symbolTimeS(), signalling().isiMemorySymbols());
+        return evaluate(taps, emitter.moleculesPerSymbol(), symbolTimeS(), scenario.medium().backgroundMoleculesPerS(),
+                interferers);
+    }
+
+    /** Analytic only: the link and its interferers with symbol time {@code t} (same memory L). */
+    LinkEvaluation withSymbolTime(double t, Map<String, Node> nodes) {
+        int memory = signalling().isiMemorySymbols();
+        double[] taps = AnalyticChannel.model(distance(), receiver.radiusUm(), species).taps(t, memory);
+        List<Crosstalk.Interferer> others = new ArrayList<>(interferers.size());
+        for (Crosstalk.Interferer i : interferers) {
+            Node n = nodes.get(i.id());
+            double d = n.positionUm().distance(receiver.positionUm());
+            double[] it = AnalyticChannel.model(d, receiver.radiusUm(), species).taps(t, memory);
+            others.add(new Crosstalk.Interferer(i.id(), it, i.levelMolecules(), i.weights()));
+        }
+        return evaluate(taps, emitter.moleculesPerSymbol(), t, scenario.medium().backgroundMoleculesPerS(), others);
+    }
+
+    double distance() {
+        return emitter.positionUm().distance(receiver.positionUm());
+    }
+}

@@ -1,0 +1,109 @@
+package dev.nanoplan.plan;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+
+/**
+ * Side-by-side comparison of two plans, demand by demand (matched by from/to).
+ *
+ * <p>Molecules per delivered bit of a route = Σ over its hops' emitters of their molecules per
+ * symbol (the scenario's configured top level) ÷ end-to-end bits per symbol; +∞ when nothing is
+ * delivered.
+ *
+ * @param nameA first plan's scenario name
+ * @param nameB second plan's scenario name
+ * @param rows  one per demand present in either plan (A's order, then B-only demands)
+ */
+public record PlanComparison(String nameA, String nameB, List<Row> rows) {
+
+    /**
+     * One demand in both plans; a side is null when that plan lacks the demand.
+     *
+     * @param from demand source
+     * @param to   demand destination
+     * @param a    the demand in plan A, or null
+     * @param b    the demand in plan B, or null
+     */
+    public record Row(String from, String to, Side a, Side b) {
+    }
+
+    /**
+     * One plan's figures for a demand.
+     *
+     * @param capacityBits          end-to-end bits per symbol (0 when unreachable)
+     * @param rateBitsPerS          end-to-end rate
+     * @param latencyS              hops × T (0 when unreachable)
+     * @param hops                  number of hops (0 when unreachable)
+     * @param moleculesPerBit       molecules released along the route per delivered bit
+     * @param bottleneck            "from->to" of the weakest hop, or null
+     * @param bottleneckLimitedBy   its impairment, or null
+     */
+    public record Side(double capacityBits, double rateBitsPerS, double latencyS, int hops, double moleculesPerBit,
+            String bottleneck, Impairment bottleneckLimitedBy) {
+    }
+
+    public PlanComparison {
+        rows = List.copyOf(rows);
+    }
+
+    /** Compares two plans. */
+    public static PlanComparison of(Plan a, Plan b) {
+        Map<String, RouteReport> inB = new HashMap<>();
+        b.routes().forEach(r -> inB.put(NetworkPlanner.key(r.from(), r.to()), r));
+        List<Row> rows = new ArrayList<>();
+        java.util.Set<String> seen = new java.util.HashSet<>();
+        for (RouteReport r : a.routes()) {
+            String k = NetworkPlanner.key(r.from(), r.to());
+            if (seen.add(k)) {
+                RouteReport rb = inB.get(k);
+                rows.add(new Row(r.from(), r.to(), side(a, r), rb == null ? null : side(b, rb)));
+            }
+        }
+        for (RouteReport r : b.routes()) {
+            if (seen.add(NetworkPlanner.key(r.from(), r.to()))) {
+                rows.add(new Row(r.from(), r.to(), null, side(b, r)));
+            }
+        }
+        return new PlanComparison(a.scenario().name(), b.scenario().name(), rows);
+    }
+
+    static Side side(Plan p, RouteReport r) {
+        if (!r.reachable()) {
+            return new Side(0, 0, 0, 0, Double.POSITIVE_INFINITY, null, null);
+        }
+        var nodes = p.scenario().nodesById();
+        double molecules = 0;
+        for (int i = 0; i + 1 < r.hops().size(); i++) {
+            molecules += nodes.get(r.hops().get(i)).moleculesPerSymbol();
+        }
+        double perBit = r.endToEndCapacityBits() > 0 ? molecules / r.endToEndCapacityBits() : Double.POSITIVE_INFINITY;
+        return new Side(r.endToEndCapacityBits(), r.rateBitsPerS(), r.latencyS(), r.hops().size() - 1, perBit,
+                r.bottleneckFrom() + "->" + r.bottleneckTo(), r.bottleneckLimitedBy());
+    }
+
+    /** Plain-text table, one line per demand and plan. */
+    public String toText() {
+        StringBuilder sb = new StringBuilder();
+        sb.append("A: ").append(nameA).append('\n').append("B: ").append(nameB).append('\n');
+        sb.append(String.format(Locale.ROOT, "%-24s %-4s %10s %10s %9s %5s %12s %s%n", "demand", "plan", "bit/sym",
+                "bit/s", "latency s", "hops", "mol/bit", "bottleneck"));
+        for (Row r : rows) {
+            line(sb, r.from() + " -> " + r.to(), "A", r.a());
+            line(sb, "", "B", r.b());
+        }
+        return sb.toString();
+    }
+
+    private static void line(StringBuilder sb, String demand, String plan, Side s) {
+        if (s == null) {
+            sb.append(String.format(Locale.ROOT, "%-24s %-4s %s%n", demand, plan, "(no such demand)"));
+            return;
+        }
+        sb.append(String.format(Locale.ROOT, "%-24s %-4s %10.4f %10.4g %9.3g %5d %12.4g %s%n", demand, plan,
+                s.capacityBits(), s.rateBitsPerS(), s.latencyS(), s.hops(), s.moleculesPerBit(),
+                s.bottleneck() == null ? "unreachable" : s.bottleneck() + " (" + s.bottleneckLimitedBy().id() + ")"));
+    }
+}

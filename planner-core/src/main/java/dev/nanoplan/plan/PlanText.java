@@ -1,0 +1,72 @@
+package dev.nanoplan.plan;
+
+import dev.nanoplan.report.Cautions;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+
+/** Plain-text summary of a {@link Plan}: links, routes with bottleneck and advice, budgets, warnings. */
+public final class PlanText {
+
+    /** Links listed at the top (strongest) and bottom (weakest) of the table. */
+    public static final int TOP_LINKS = 10;
+
+    private PlanText() {
+    }
+
+    /** Renders the plan; ends with the caution line {@link Cautions#SHORT}. */
+    public static String render(Plan plan) {
+        StringBuilder sb = new StringBuilder();
+        sb.append("Plan: ").append(plan.scenario().name()).append(" (channel ").append(plan.channel()).append(")\n");
+        sb.append(String.format(Locale.ROOT, "%d links above the floor, %d demands%n%n", plan.links().size(),
+                plan.routes().size()));
+        List<LinkReport> sorted = new ArrayList<>(plan.links());
+        sorted.sort(Comparator.comparingDouble(LinkReport::capacityBits).reversed());
+        List<LinkReport> shown = new ArrayList<>(sorted.subList(0, Math.min(TOP_LINKS, sorted.size())));
+        for (int i = Math.max(shown.size(), sorted.size() - TOP_LINKS); i < sorted.size(); i++) {
+            shown.add(sorted.get(i));
+        }
+        sb.append("Links (strongest ").append(Math.min(TOP_LINKS, sorted.size())).append(" and weakest)\n");
+        sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10s %10s %10s %6s %10s %9s %-9s %s%n", "from", "to",
+                "sp", "signal", "interf.", "isi", "tau", "log10 Pe", "bit/sym", "limit", "top interferer"));
+        for (LinkReport l : shown) {
+            sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10.3g %10.3g %10.3g %6d %10.2f %9.4f %-9s %s%s%n",
+                    l.from(), l.to(), l.species(), l.signalMean(), l.interferenceMean(), l.isiMean(), l.threshold(),
+                    l.log10ErrorProbability(), l.capacityBits(), l.limitedBy().id(),
+                    l.topInterferer() == null ? "-" : String.format(Locale.ROOT, "%s (%.0f%%)", l.topInterferer(),
+                            100 * l.topInterfererShare()),
+                    l.modelCaveat() == null ? "" : "  [" + l.modelCaveat() + "]"));
+        }
+        sb.append("\nRoutes\n");
+        for (RouteReport r : plan.routes()) {
+            if (!r.reachable()) {
+                sb.append(String.format(Locale.ROOT, "  %s -> %s: unreachable. %s%n", r.from(), r.to(), r.advice()));
+                continue;
+            }
+            sb.append(String.format(Locale.ROOT,
+                    "  %s -> %s via %s: %.4f bit/symbol end to end (%.4g bit/s), latency %.3g s, bottleneck %s -> %s"
+                            + " %.4f bit (%s)%s%n      advice: %s%n",
+                    r.from(), r.to(), String.join(" > ", r.hops()), r.endToEndCapacityBits(), r.rateBitsPerS(),
+                    r.latencyS(), r.bottleneckFrom(), r.bottleneckTo(), r.bottleneckCapacityBits(),
+                    r.bottleneckLimitedBy().id(),
+                    r.directCapacityBits() == null ? ", no direct link"
+                            : String.format(Locale.ROOT, ", direct %.4f bit", r.directCapacityBits()),
+                    r.advice()));
+        }
+        sb.append("\nBudgets\n");
+        sb.append(String.format(Locale.ROOT, "%-12s %14s %14s %16s %-8s %s%n", "node", "N needed", "molecules/s",
+                "per mission", "feasible", "reason"));
+        for (BudgetReport b : plan.budgets()) {
+            sb.append(String.format(Locale.ROOT, "%-12s %14d %14.4g %16.4g %-8s %s%n", b.node(),
+                    b.moleculesPerSymbolNeeded(), b.moleculesPerS(), b.moleculesPerMission(),
+                    b.feasible() ? "yes" : "NO", b.reason()));
+        }
+        if (!plan.warnings().isEmpty()) {
+            sb.append("\nWarnings\n");
+            plan.warnings().forEach(w -> sb.append("  - ").append(w).append('\n'));
+        }
+        sb.append('\n').append(Cautions.SHORT).append('\n');
+        return sb.toString();
+    }
+}

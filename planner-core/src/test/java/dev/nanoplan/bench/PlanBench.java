@@ -1,0 +1,64 @@
+package dev.nanoplan.bench;
+
+import dev.nanoplan.plan.NetworkPlanner;
+import dev.nanoplan.plan.Plan;
+import dev.nanoplan.plan.PlanOptions;
+import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.SwarmGenerator;
+import java.util.concurrent.TimeUnit;
+import org.openjdk.jmh.annotations.Benchmark;
+import org.openjdk.jmh.annotations.BenchmarkMode;
+import org.openjdk.jmh.annotations.Mode;
+import org.openjdk.jmh.annotations.OutputTimeUnit;
+import org.openjdk.jmh.annotations.Param;
+import org.openjdk.jmh.annotations.Scope;
+import org.openjdk.jmh.annotations.Setup;
+import org.openjdk.jmh.annotations.State;
+
+/**
+ * Whole-plan timings on generated swarms (SwarmGenerator, seed 1). JMH, e.g.
+ * {@code java -Xmx2g -cp target/test-classes:target/classes:<deps> org.openjdk.jmh.Main PlanBench -f 1 -wi 1 -i 3};
+ * the 10,000-node single shot: {@code java -Xmx2g -cp ... dev.nanoplan.bench.PlanBench 10000}.
+ */
+@State(Scope.Benchmark)
+@BenchmarkMode(Mode.SingleShotTime)
+@OutputTimeUnit(TimeUnit.MILLISECONDS)
+public class PlanBench {
+
+    @Param({"1000"})
+    public int nodes;
+
+    private Scenario scenario;
+
+    @Setup
+    public void setup() {
+        scenario = SwarmGenerator.generate(nodes, 1);
+    }
+
+    @Benchmark
+    public Plan plan() {
+        return NetworkPlanner.plan(scenario, PlanOptions.DEFAULT);
+    }
+
+    /** Single run: args[0] = nodes (default 10,000); prints wall time, links, routes and heap used. */
+    public static void main(String[] args) {
+        int n = args.length > 0 ? Integer.parseInt(args[0]) : 10_000;
+        Scenario s = SwarmGenerator.generate(n, 1);
+        long t0 = System.nanoTime();
+        double[] last = {0};
+        Plan p = NetworkPlanner.plan(s, PlanOptions.DEFAULT.withProgress(f -> {
+            synchronized (last) {
+                if (f >= last[0] + 0.1) {
+                    last[0] = f;
+                    System.err.printf("progress %.0f%% at %.1f s%n", 100 * f, (System.nanoTime() - t0) / 1e9);
+                }
+            }
+        }));
+        long t1 = System.nanoTime();
+        Runtime rt = Runtime.getRuntime();
+        long reachable = p.routes().stream().filter(r -> r.reachable()).count();
+        System.out.printf("nodes=%d time=%.2f s links=%d routes=%d reachable=%d budgets=%d heapUsed=%d MB max=%d MB%n",
+                n, (t1 - t0) / 1e9, p.links().size(), p.routes().size(), reachable, p.budgets().size(),
+                (rt.totalMemory() - rt.freeMemory()) >> 20, rt.maxMemory() >> 20);
+    }
+}
