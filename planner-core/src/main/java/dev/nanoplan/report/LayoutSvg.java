@@ -73,7 +73,7 @@ public final class LayoutSvg {
     }
 
     /** Default width of one view in pixels. */
-    public static final int DEFAULT_WIDTH_PX = 660;
+    public static final int DEFAULT_WIDTH_PX = 640;
     /** Default largest height of one view in pixels. */
     public static final int DEFAULT_MAX_HEIGHT_PX = 620;
     /** Default number of non-route links drawn. */
@@ -143,13 +143,23 @@ public final class LayoutSvg {
      * @throws IllegalArgumentException if the sizes leave no plot area
      */
     public static Transform transform(Scenario scenario, View view, int widthPx, int maxHeightPx) {
+        return transform(scenario, view, widthPx, maxHeightPx, false);
+    }
+
+    /**
+     * As {@link #transform(Scenario, View, int, int)}, but with {@code zoomToNodes} a box or
+     * cylinder whose nodes fill less than {@value #ZOOM_BELOW} of the view's area is replaced by the
+     * nodes' padded extent (clipped to the volume), so crowded layouts in a large tank stay legible.
+     */
+    public static Transform transform(Scenario scenario, View view, int widthPx, int maxHeightPx,
+            boolean zoomToNodes) {
         double plotW = widthPx - 2.0 * MARGIN_PX;
         double plotMaxH = maxHeightPx - (double) TOP_PX - LEGEND_PX;
         if (!(plotW > 0) || plotMaxH < MIN_PLOT_HEIGHT_PX) {
             throw new IllegalArgumentException("widthPx/maxHeightPx too small for a layout view: " + widthPx + " x "
                     + maxHeightPx);
         }
-        double[] e = extent(scenario, view);
+        double[] e = zoomToNodes ? zoomedExtent(scenario, view) : extent(scenario, view);
         double spanU = e[2] - e[0];
         double spanV = e[3] - e[1];
         double scale = Math.min(plotW / spanU, plotMaxH / spanV);
@@ -160,22 +170,29 @@ public final class LayoutSvg {
         return new Transform(e[0], e[1], spanU, spanV, scale, left, bottom, widthPx, height);
     }
 
-    /** {@link #render(Plan, View, int, int, int)} with the default sizes. */
+    /** {@link #render(Plan, View, int, int, int, boolean)} with the default sizes, zoomed to the nodes. */
     public static String render(Plan plan, View view) {
-        return render(plan, view, DEFAULT_WIDTH_PX, DEFAULT_MAX_HEIGHT_PX, DEFAULT_MAX_LINKS);
+        return render(plan, view, DEFAULT_WIDTH_PX, DEFAULT_MAX_HEIGHT_PX, DEFAULT_MAX_LINKS, true);
+    }
+
+    /** The whole volume, not zoomed. */
+    public static String render(Plan plan, View view, int widthPx, int maxHeightPx, int maxLinks) {
+        return render(plan, view, widthPx, maxHeightPx, maxLinks, false);
     }
 
     /**
      * One view as an {@code <svg>} element.
      *
-     * @param maxLinks how many links besides the route hops to draw at most (the strongest), ≥ 0
+     * @param maxLinks    how many links besides the route hops to draw at most (the strongest), ≥ 0
+     * @param zoomToNodes see {@link #transform(Scenario, View, int, int, boolean)}
      */
-    public static String render(Plan plan, View view, int widthPx, int maxHeightPx, int maxLinks) {
+    public static String render(Plan plan, View view, int widthPx, int maxHeightPx, int maxLinks,
+            boolean zoomToNodes) {
         if (maxLinks < 0) {
             throw new IllegalArgumentException("maxLinks must be >= 0, got " + maxLinks);
         }
         Scenario s = plan.scenario();
-        Transform t = transform(s, view, widthPx, maxHeightPx);
+        Transform t = transform(s, view, widthPx, maxHeightPx, zoomToNodes);
         String gradientId = "np-ramp-" + view.name().toLowerCase(Locale.ROOT);
         StringBuilder sb = new StringBuilder(4096);
         sb.append("<svg xmlns=\"http://www.w3.org/2000/svg\" class=\"layout\" width=\"").append(t.widthPx())
@@ -289,6 +306,28 @@ public final class LayoutSvg {
         return hops;
     }
 
+    /** Zoom when the nodes' extent covers less than this fraction of the volume's view area. */
+    public static final double ZOOM_BELOW = 0.5;
+
+    static double[] zoomedExtent(Scenario s, View view) {
+        double[] whole = extent(s, view);
+        if (s.volume() instanceof Volume.Open) {
+            return whole;
+        }
+        double[] n = nodeExtent(s, view);
+        double[] z = {Math.max(n[0], whole[0]), Math.max(n[1], whole[1]), Math.min(n[2], whole[2]),
+            Math.min(n[3], whole[3])};
+        double area = (z[2] - z[0]) * (z[3] - z[1]);
+        double wholeArea = (whole[2] - whole[0]) * (whole[3] - whole[1]);
+        return area < ZOOM_BELOW * wholeArea ? z : whole;
+    }
+
+    private static boolean zoomed(Scenario s, Transform t, View view) {
+        double[] whole = extent(s, view);
+        return t.minUUm() > whole[0] + 1e-9 || t.minVUm() > whole[1] + 1e-9
+                || t.minUUm() + t.spanUUm() < whole[2] - 1e-9 || t.minVUm() + t.spanVUm() < whole[3] - 1e-9;
+    }
+
     /** {minU, minV, maxU, maxV} of what is drawn, µm, with positive spans. */
     static double[] extent(Scenario s, View view) {
         Volume vol = s.volume();
@@ -298,6 +337,11 @@ public final class LayoutSvg {
         if (vol instanceof Volume.Cylinder c) {
             return new double[] {0, -c.radiusUm(), c.lengthUm(), c.radiusUm()};
         }
+        return nodeExtent(s, view);
+    }
+
+    /** The nodes' bounding box grown by the largest radius and 10 % of the larger span (at least 1 µm). */
+    static double[] nodeExtent(Scenario s, View view) {
         double minU = Double.POSITIVE_INFINITY;
         double minV = Double.POSITIVE_INFINITY;
         double maxU = Double.NEGATIVE_INFINITY;
@@ -321,20 +365,40 @@ public final class LayoutSvg {
         double y1 = t.yPx(t.minVUm());
         Volume vol = s.volume();
         String what;
-        if (vol instanceof Volume.Box) {
-            sb.append(rect(x0, y0, x1 - x0, y1 - y0, 0, "#f7f9fb", "#55606e", 1.5, null));
-            what = "box";
+        boolean zoomed = zoomed(s, t, view);
+        double[] w = extent(s, view);
+        double vx0 = t.xPx(w[0]);
+        double vx1 = t.xPx(w[2]);
+        double vy0 = t.yPx(w[3]);
+        double vy1 = t.yPx(w[1]);
+        if (zoomed) {
+            String clip = "np-clip-" + view.name().toLowerCase(Locale.ROOT);
+            sb.append("<defs><clipPath id=\"").append(clip).append("\">").append(rect(x0, y0, x1 - x0, y1 - y0, 0,
+                    "#000", "none", 0, null).strip()).append("</clipPath></defs>\n");
+            sb.append("<g clip-path=\"url(#").append(clip).append(")\">\n");
+            sb.append(rect(x0, y0, x1 - x0, y1 - y0, 0, "none", "#c5ccd4", 1, "2 3"));
+        }
+        if (vol instanceof Volume.Box b) {
+            sb.append(rect(vx0, vy0, vx1 - vx0, vy1 - vy0, 0, "#f7f9fb", "#55606e", 1.5, null));
+            Vec3 size = b.sizeUm();
+            what = zoomed ? "zoomed to the nodes; box " + num(size.x()) + " × " + num(size.y()) + " × "
+                    + num(size.z()) + " µm" : "box";
         } else if (vol instanceof Volume.Cylinder c) {
-            double r = Math.min((y1 - y0) / 2, 14);
-            sb.append(rect(x0, y0, x1 - x0, y1 - y0, r, "#f4f8fb", "#55606e", 1.5, null));
+            double r = Math.min((vy1 - vy0) / 2, 14);
+            sb.append(rect(vx0, vy0, vx1 - vx0, vy1 - vy0, r, "#f4f8fb", "#55606e", 1.5, null));
             double ya = t.yPx(0);
             sb.append("<line x1=\"").append(f(x0)).append("\" y1=\"").append(f(ya)).append("\" x2=\"").append(f(x1))
                     .append("\" y2=\"").append(f(ya))
                     .append("\" stroke=\"#9aa5b1\" stroke-width=\"1\" stroke-dasharray=\"10 3 2 3\"/>\n");
-            what = "cylinder, axis x";
+            what = zoomed ? "zoomed to the nodes; cylinder R " + num(c.radiusUm()) + " µm, L " + num(c.lengthUm())
+                    + " µm" : "cylinder, axis x";
         } else {
             sb.append(rect(x0, y0, x1 - x0, y1 - y0, 0, "none", "#9aa5b1", 1.2, "6 4"));
             what = "open medium: node extent";
+        }
+        if (zoomed) {
+            sb.append("</g>\n");
+            sb.append(rect(x0, y0, x1 - x0, y1 - y0, 0, "none", "#9aa5b1", 1, "2 3"));
         }
         text(sb, x1, y0 - 6, what, 11, "#55606e", "end", null);
         // corner coordinates and axis names
@@ -359,7 +423,7 @@ public final class LayoutSvg {
             String c = colours.getOrDefault(n.species(), SPECIES_COLOURS.get(0));
             sb.append(symbol(n.role(), x, y, r, c, colours.getOrDefault(n.emitsSpecies(), c), !many));
             if (labels) {
-                text(sb, x + r + 3, y - r - 1, n.id(), 10.5, "#222", "start", null);
+                label(sb, x + r + 3, y - r - 1, n.id());
             }
         }
         sb.append("</g>\n");
@@ -386,7 +450,7 @@ public final class LayoutSvg {
     private static void legend(StringBuilder sb, Scenario s, Transform t, String gradientId, double fullScaleBits,
             int totalLinks, int drawnOthers, int routeHops) {
         int h = t.heightPx();
-        double rowA = h - LEGEND_PX + 30;
+        double rowA = h - LEGEND_PX + 36;
         double rowB = h - 14;
         // scale bar
         double targetUm = (t.widthPx() - 2.0 * MARGIN_PX) / 5 / t.pxPerUm();
@@ -483,6 +547,13 @@ public final class LayoutSvg {
                 + (rx > 0 ? " rx=\"" + f(rx) + "\"" : "") + " fill=\"" + fill + "\" stroke=\"" + stroke
                 + "\" stroke-width=\"" + f(strokeWidth) + "\"" + (dash == null ? "" : " stroke-dasharray=\"" + dash + "\"")
                 + "/>\n";
+    }
+
+    /** A node id with a white halo so it stays legible over lines. */
+    private static void label(StringBuilder sb, double x, double y, String id) {
+        sb.append("<text x=\"").append(f(x)).append("\" y=\"").append(f(y)).append("\" font-size=\"10.5\" fill=\"#222\" "
+                + "stroke=\"#ffffff\" stroke-width=\"3\" stroke-opacity=\"0.85\" paint-order=\"stroke\" "
+                + "stroke-linejoin=\"round\">").append(esc(id)).append("</text>\n");
     }
 
     private static void text(StringBuilder sb, double x, double y, String s, double size, String colour,

@@ -84,7 +84,7 @@ public final class PlanHtml {
                        padding: 10px 16px; border-radius: 4px; }
             .caution strong { display:block; margin-bottom: 4px; }
             .caution p { margin: 2px 0; }
-            .grid { display: grid; grid-template-columns: repeat(auto-fit, minmax(300px, 1fr)); gap: 10px 24px; }
+            .grid { display: grid; grid-template-columns: repeat(auto-fit, minmax(300px, 1fr)); gap: 10px 24px; align-items: start; }
             .grid table { width: 100%; }
             table { border-collapse: collapse; font-size: 0.88rem; }
             th, td { padding: 4px 8px; border-bottom: 1px solid var(--rule); text-align: left; vertical-align: top; }
@@ -99,6 +99,7 @@ public final class PlanHtml {
             .ok { color: var(--good); }
             .note { color: var(--muted); font-size: 0.85rem; }
             .advice { max-width: 420px; }
+            td.hops { white-space: nowrap; }
             .tablewrap { overflow-x: auto; }
             ul.warnings li { margin: 2px 0; }
             footer { margin-top: 32px; padding-top: 8px; border-top: 1px solid var(--rule); color: var(--muted);
@@ -215,7 +216,7 @@ public final class PlanHtml {
             if (!r.reachable()) {
                 h.append("<td class=\"bad\">unreachable</td><td></td>");
             } else {
-                h.append("<td>").append(esc(String.join(" → ", r.hops()))).append("</td><td>")
+                h.append("<td class=\"hops\">").append(esc(String.join(" → ", r.hops()))).append("</td><td class=\"hops\">")
                         .append(esc(r.bottleneckFrom() + " → " + r.bottleneckTo())).append("</td>");
             }
             numCell(h, r.reachable() ? bits(r.bottleneckCapacityBits()) : "–");
@@ -387,7 +388,7 @@ public final class PlanHtml {
         if (!Double.isFinite(v)) {
             return "–";
         }
-        if (Math.abs(v) < 1e7) {
+        if (Math.abs(v) < 1e12) {
             return String.format(Locale.ROOT, "%,.0f", v);
         }
         return String.format(Locale.ROOT, "%.3e", v);
