@@ -56,6 +56,19 @@ class LayoutSvgTest {
     }
 
     @Test
+    void zoomsToNodesCrowdedInALargeVolume() {
+        Plan p = PlanFixtures.demo("s3");
+        LayoutSvg.Transform whole = LayoutSvg.transform(p.scenario(), LayoutSvg.View.SIDE, 640, 620, false);
+        LayoutSvg.Transform zoom = LayoutSvg.transform(p.scenario(), LayoutSvg.View.SIDE, 640, 620, true);
+        // side view: nodes at z 80..120 in a 200 µm tall box; padded by 10 µm radius + 10 % of the
+        // 260 µm x span = 36 µm → z 44..156 µm, 112 µm of 200: below half the area, so zoomed
+        assertThat(whole.spanVUm()).isEqualTo(200.0);
+        assertThat(zoom.spanVUm()).isCloseTo(112.0, within(1e-9));
+        assertThat(zoom.pxPerUm()).isGreaterThan(whole.pxPerUm());
+        assertThat(LayoutSvg.render(p, LayoutSvg.View.SIDE)).contains("zoomed to the nodes; box 400 × 400 × 200 µm");
+    }
+
+    @Test
     void openMediumUsesThePaddedNodeExtent() {
         Plan p = single(new Volume.Open(), new Vec3(-7, 3, 11));
         LayoutSvg.Transform t = LayoutSvg.transform(p.scenario(), LayoutSvg.View.TOP, 480, 600);
