@@ -1,0 +1,396 @@
+package dev.nanoplan.report;
+
+import dev.nanoplan.geometry.Vec3;
+import dev.nanoplan.geometry.Volume;
+import dev.nanoplan.plan.BudgetReport;
+import dev.nanoplan.plan.LinkReport;
+import dev.nanoplan.plan.Plan;
+import dev.nanoplan.plan.RouteReport;
+import dev.nanoplan.scenario.Flow;
+import dev.nanoplan.scenario.Medium;
+import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.Role;
+import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Signalling;
+import dev.nanoplan.scenario.Species;
+import dev.nanoplan.scenario.Targets;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+
+/**
+ * A plan as one self-contained HTML page: inline CSS and SVG, no scripts, no external resources,
+ * so it can be mailed or archived as a single file.
+ *
+ * <p>Content, top to bottom: title, the cautions of DESIGN.md §6 ({@link Cautions#FULL}) in a
+ * highlighted box, the scenario summary (volume, medium, species, signalling, nodes, targets),
+ * the top and side views ({@link LayoutSvg}), the routes table, the molecule budgets, the link
+ * table (the {@value #MAX_LINK_ROWS} highest-capacity links, with a note when there are more),
+ * warnings, and the model assumptions ({@link Cautions#ASSUMPTIONS}). Every user-provided string
+ * (names, ids, warnings, advice) is HTML-escaped. Cost O(n + m log m) for n nodes, m links.
+ */
+public final class PlanHtml {
+
+    /** Most rows of the link table. */
+    public static final int MAX_LINK_ROWS = 200;
+
+    private PlanHtml() {
+    }
+
+    /** The page. */
+    public static String render(Plan plan) {
+        Scenario s = plan.scenario();
+        StringBuilder h = new StringBuilder(64 * 1024);
+        String title = "nanoplan — " + (s.name().isBlank() ? "unnamed scenario" : s.name());
+        h.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
+                .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
+                .append("<title>").append(esc(title)).append("</title>\n<style>\n").append(CSS).append("</style>\n")
+                .append("</head>\n<body>\n<main>\n");
+        h.append("<h1>").append(esc(title)).append("</h1>\n");
+        h.append("<p class=\"sub\">Network plan · channel: ").append(esc(plan.channel())).append(" · ")
+                .append(s.nodes().size()).append(" nodes · ").append(plan.links().size()).append(" links · ")
+                .append(plan.routes().size()).append(" routes</p>\n");
+        cautions(h);
+        summary(h, s, plan);
+        views(h, plan);
+        routes(h, plan);
+        budgets(h, plan);
+        links(h, plan);
+        warnings(h, plan);
+        h.append("<section><h2>Model assumptions</h2>\n<p>Every number above rests on these:</p>\n<ul>\n");
+        for (String a : Cautions.ASSUMPTIONS) {
+            h.append("<li>").append(esc(a)).append("</li>\n");
+        }
+        h.append("</ul>\n</section>\n");
+        h.append("<footer>").append(esc(Cautions.SHORT)).append("</footer>\n");
+        h.append("</main>\n</body>\n</html>\n");
+        return h.toString();
+    }
+
+    private static final String CSS = """
+            :root { --ink:#1f2328; --muted:#5b6470; --rule:#d8dde3; --band:#f5f7f9; --warn:#fff4d6;
+                    --warn-edge:#d39e00; --bad:#b3261e; --good:#1e6b3a; }
+            * { box-sizing: border-box; }
+            body { margin:0; font-family: system-ui, -apple-system, "Segoe UI", Roboto, sans-serif;
+                   color:var(--ink); background:#fff; line-height:1.4; }
+            main { max-width: 1380px; margin: 0 auto; padding: 20px 24px 40px; }
+            h1 { font-size: 1.6rem; margin: 0 0 4px; }
+            h2 { font-size: 1.2rem; margin: 28px 0 8px; border-bottom: 2px solid var(--rule); padding-bottom: 4px; }
+            .sub { color: var(--muted); margin: 0 0 14px; }
+            .caution { background: var(--warn); border: 1px solid var(--warn-edge); border-left: 6px solid var(--warn-edge);
+                       padding: 10px 16px; border-radius: 4px; }
+            .caution strong { display:block; margin-bottom: 4px; }
+            .caution p { margin: 2px 0; }
+            .grid { display: grid; grid-template-columns: repeat(auto-fit, minmax(300px, 1fr)); gap: 10px 24px; align-items: start; }
+            .grid table { width: 100%; }
+            table { border-collapse: collapse; font-size: 0.88rem; }
+            th, td { padding: 4px 8px; border-bottom: 1px solid var(--rule); text-align: left; vertical-align: top; }
+            th { background: var(--band); font-weight: 600; white-space: nowrap; }
+            td.n { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+            th.n { text-align: right; }
+            tr:nth-child(even) td { background: #fbfcfd; }
+            .kv th { width: 38%; background: none; font-weight: 600; color: var(--muted); }
+            .views { display: flex; flex-wrap: wrap; gap: 16px; align-items: flex-start; }
+            .views svg { border: 1px solid var(--rule); border-radius: 4px; max-width: 100%; height: auto; }
+            .bad { color: var(--bad); font-weight: 600; }
+            .ok { color: var(--good); }
+            .note { color: var(--muted); font-size: 0.85rem; }
+            .advice { max-width: 420px; }
+            td.hops { white-space: nowrap; }
+            .tablewrap { overflow-x: auto; }
+            ul.warnings li { margin: 2px 0; }
+            footer { margin-top: 32px; padding-top: 8px; border-top: 1px solid var(--rule); color: var(--muted);
+                     font-size: 0.85rem; }
+            """;
+
+    private static void cautions(StringBuilder h) {
+        h.append("<section class=\"caution\" role=\"note\" id=\"cautions\">\n<strong>Caution</strong>\n");
+        for (String c : Cautions.FULL) {
+            h.append("<p>").append(esc(c)).append("</p>\n");
+        }
+        h.append("</section>\n");
+    }
+
+    private static void summary(StringBuilder h, Scenario s, Plan plan) {
+        h.append("<section><h2>Scenario</h2>\n<div class=\"grid\">\n");
+        // volume and medium
+        h.append("<table class=\"kv\">\n");
+        kv(h, "Volume", volume(s.volume()));
+        Medium m = s.medium();
+        kv(h, "Temperature", num(m.temperatureK()) + " K");
+        kv(h, "Viscosity", num(m.viscosityMPaS()) + " mPa·s");
+        kv(h, "Flow", flow(m.flow()));
+        kv(h, "Background", num(m.backgroundMoleculesPerS()) + " molecules/s per receiver");
+        kv(h, "Channel", plan.channel());
+        h.append("</table>\n");
+        // signalling and targets
+        Signalling g = s.signalling();
+        Targets t = s.targets();
+        h.append("<table class=\"kv\">\n");
+        kv(h, "Symbol time", num(g.symbolTimeS()) + " s");
+        kv(h, "ISI memory", g.isiMemorySymbols() + " symbols");
+        kv(h, "Levels", g.levels() + (g.levels() == 2 ? " (on–off keying)" : ""));
+        kv(h, "P(send 1)", num(g.priorOne()));
+        kv(h, "Count model", g.countModel().id());
+        kv(h, "Schedule", g.schedule().id());
+        kv(h, "Targets", "error ≤ " + num(t.maxErrorProbability()) + ", rate ≥ " + num(t.minRateBitsPerS())
+                + " bit/s, mission " + num(t.missionDurationS()) + " s");
+        h.append("</table>\n");
+        // species and nodes
+        h.append("<table>\n<tr><th>Species</th><th class=\"n\">D (µm²/s)</th><th class=\"n\">half-life</th>"
+                + "<th class=\"n\">nodes</th></tr>\n");
+        for (Species sp : s.species()) {
+            long users = s.nodes().stream()
+                    .filter(n -> n.species().equals(sp.name()) || n.emitsSpecies().equals(sp.name())).count();
+            h.append("<tr><td>").append(esc(sp.name())).append("</td>");
+            cell(h, num(sp.diffusionUm2PerS()) + (sp.hydrodynamicRadiusNm().isPresent()
+                    ? " (R<sub>h</sub> " + esc(num(sp.hydrodynamicRadiusNm().getAsDouble())) + " nm)" : ""), true);
+            numCell(h, sp.isStable() ? "stable" : num(sp.halfLifeS()) + " s");
+            numCell(h, Long.toString(users));
+            h.append("</tr>\n");
+        }
+        Map<Role, Integer> roles = new EnumMap<>(Role.class);
+        for (Node n : s.nodes()) {
+            roles.merge(n.role(), 1, Integer::sum);
+        }
+        h.append("<tr><td colspan=\"4\" class=\"note\">");
+        List<String> parts = new ArrayList<>();
+        for (Role r : Role.values()) {
+            parts.add(roles.getOrDefault(r, 0) + " " + r.id() + (roles.getOrDefault(r, 0) == 1 ? "" : "s"));
+        }
+        h.append(esc(String.join(", ", parts))).append("; ").append(s.demands().size()).append(" demands</td></tr>\n");
+        h.append("</table>\n</div>\n</section>\n");
+    }
+
+    private static String volume(Volume v) {
+        if (v instanceof Volume.Box b) {
+            Vec3 size = b.sizeUm();
+            return "box " + num(size.x()) + " × " + num(size.y()) + " × " + num(size.z()) + " µm, from "
+                    + vec(b.minUm()) + " to " + vec(b.maxUm());
+        }
+        if (v instanceof Volume.Cylinder c) {
+            return "cylinder, radius " + num(c.radiusUm()) + " µm, length " + num(c.lengthUm()) + " µm along x";
+        }
+        return "open medium (no walls)";
+    }
+
+    private static String flow(Flow f) {
+        if (f instanceof Flow.Uniform u) {
+            return "uniform, velocity " + vec(u.velocityUmPerS()) + " µm/s";
+        }
+        if (f instanceof Flow.Poiseuille p) {
+            return "Poiseuille, mean speed " + num(p.meanSpeedUmPerS()) + " µm/s along x";
+        }
+        return "none (still)";
+    }
+
+    private static String vec(Vec3 v) {
+        return "(" + num(v.x()) + ", " + num(v.y()) + ", " + num(v.z()) + ")";
+    }
+
+    private static void views(StringBuilder h, Plan plan) {
+        h.append("<section><h2>Layout</h2>\n<p class=\"note\">Drawn to scale. Lines are links, coloured by "
+                + "capacity; red lines are the hops of the chosen routes. Node size follows the body radius "
+                + "(small bodies are enlarged to stay visible).</p>\n<div class=\"views\">\n");
+        h.append(LayoutSvg.render(plan, LayoutSvg.View.TOP));
+        h.append(LayoutSvg.render(plan, LayoutSvg.View.SIDE));
+        h.append("</div>\n</section>\n");
+    }
+
+    private static void routes(StringBuilder h, Plan plan) {
+        h.append("<section><h2>Routes</h2>\n");
+        if (plan.routes().isEmpty()) {
+            h.append("<p class=\"note\">The scenario has no demands.</p>\n</section>\n");
+            return;
+        }
+        double target = plan.scenario().targets().minRateBitsPerS();
+        h.append("<div class=\"tablewrap\"><table>\n<tr><th>From</th><th>To</th><th>Hops</th><th>Bottleneck</th>"
+                + "<th class=\"n\">Bottleneck (bit)</th><th class=\"n\">End-to-end (bit)</th>"
+                + "<th class=\"n\">Rate (bit/s)</th><th class=\"n\">Latency (s)</th>"
+                + "<th class=\"n\">Direct (bit)</th><th>Limited by</th><th>Advice</th></tr>\n");
+        for (RouteReport r : plan.routes()) {
+            h.append("<tr><td>").append(esc(r.from())).append("</td><td>").append(esc(r.to())).append("</td>");
+            if (!r.reachable()) {
+                h.append("<td class=\"bad\">unreachable</td><td></td>");
+            } else {
+                h.append("<td class=\"hops\">").append(esc(String.join(" → ", r.hops()))).append("</td><td class=\"hops\">")
+                        .append(esc(r.bottleneckFrom() + " → " + r.bottleneckTo())).append("</td>");
+            }
+            numCell(h, r.reachable() ? bits(r.bottleneckCapacityBits()) : "–");
+            numCell(h, r.reachable() ? bits(r.endToEndCapacityBits()) : "–");
+            boolean slow = r.reachable() && r.rateBitsPerS() < target;
+            h.append("<td class=\"n").append(slow || !r.reachable() ? " bad" : "").append("\">")
+                    .append(r.reachable() ? esc(num(r.rateBitsPerS())) : "0").append("</td>");
+            numCell(h, r.reachable() ? num(r.latencyS()) : "–");
+            numCell(h, r.directCapacityBits() == null ? "none" : bits(r.directCapacityBits()));
+            h.append("<td>").append(r.bottleneckLimitedBy() == null ? "" : esc(r.bottleneckLimitedBy().id()))
+                    .append("</td><td class=\"advice\">").append(esc(r.advice() == null ? "" : r.advice()))
+                    .append("</td></tr>\n");
+        }
+        h.append("</table></div>\n");
+        if (target > 0) {
+            h.append("<p class=\"note\">Rates below the target of ").append(esc(num(target)))
+                    .append(" bit/s are marked in red.</p>\n");
+        }
+        h.append("</section>\n");
+    }
+
+    private static void budgets(StringBuilder h, Plan plan) {
+        h.append("<section><h2>Molecule budgets</h2>\n");
+        if (plan.budgets().isEmpty()) {
+            h.append("<p class=\"note\">No emitting node sends on a route.</p>\n</section>\n");
+            return;
+        }
+        h.append("<div class=\"tablewrap\"><table>\n<tr><th>Node</th><th class=\"n\">Needed per symbol</th>"
+                + "<th class=\"n\">Molecules/s</th><th class=\"n\">Per mission</th><th>Feasible</th>"
+                + "<th>Reason</th></tr>\n");
+        for (BudgetReport b : plan.budgets()) {
+            h.append("<tr><td>").append(esc(b.node())).append("</td>");
+            numCell(h, b.moleculesPerSymbolNeeded() < 0 ? "–" : String.format(Locale.ROOT, "%,d",
+                    b.moleculesPerSymbolNeeded()));
+            numCell(h, big(b.moleculesPerS()));
+            numCell(h, big(b.moleculesPerMission()));
+            h.append(b.feasible() ? "<td class=\"ok\">yes</td>" : "<td class=\"bad\">no</td>");
+            h.append("<td>").append(esc(b.reason() == null ? "" : b.reason())).append("</td></tr>\n");
+        }
+        h.append("</table></div>\n</section>\n");
+    }
+
+    private static void links(StringBuilder h, Plan plan) {
+        h.append("<section><h2>Links</h2>\n");
+        List<LinkReport> sorted = new ArrayList<>(plan.links());
+        sorted.sort(Comparator.comparingDouble((LinkReport l) -> Double.isFinite(l.capacityBits())
+                ? l.capacityBits() : -1).reversed());
+        int shown = Math.min(MAX_LINK_ROWS, sorted.size());
+        if (sorted.isEmpty()) {
+            h.append("<p class=\"note\">No link carries information above the capacity floor.</p>\n</section>\n");
+            return;
+        }
+        h.append("<p class=\"note\">").append(shown < sorted.size()
+                ? "The " + shown + " highest-capacity links of " + sorted.size() + " (all of them are in plan.json "
+                        + "and links.csv)."
+                : sorted.size() + " links, highest capacity first.").append("</p>\n");
+        h.append("<div class=\"tablewrap\"><table>\n<tr><th>From</th><th>To</th><th>Species</th>"
+                + "<th class=\"n\">Hit prob. p<sub>0</sub></th><th class=\"n\">Signal</th>"
+                + "<th class=\"n\">ISI</th><th class=\"n\">Crosstalk</th><th class=\"n\">Threshold</th>"
+                + "<th class=\"n\">Error prob.</th><th class=\"n\">Capacity (bit)</th><th class=\"n\">Rate (bit/s)</th>"
+                + "<th>Limited by</th><th>Top interferer</th><th>Caveat</th></tr>\n");
+        for (LinkReport l : sorted.subList(0, shown)) {
+            h.append("<tr><td>").append(esc(l.from())).append("</td><td>").append(esc(l.to())).append("</td><td>")
+                    .append(esc(l.species())).append("</td>");
+            numCell(h, sci(l.hitProbability()));
+            numCell(h, num(l.signalMean()));
+            numCell(h, num(l.isiMean()));
+            numCell(h, num(l.interferenceMean()));
+            numCell(h, Long.toString(l.threshold()));
+            numCell(h, errorText(l.errorProbability(), l.log10ErrorProbability()));
+            numCell(h, bits(l.capacityBits()));
+            numCell(h, num(l.rateBitsPerS()));
+            h.append("<td>").append(l.limitedBy() == null ? "" : esc(l.limitedBy().id())).append("</td><td>");
+            if (l.topInterferer() != null) {
+                h.append(esc(l.topInterferer())).append(" (")
+                        .append(Math.round(100 * l.topInterfererShare())).append(" %)");
+            }
+            h.append("</td><td>").append(l.modelCaveat() == null ? "" : esc(l.modelCaveat())).append("</td></tr>\n");
+        }
+        h.append("</table></div>\n</section>\n");
+    }
+
+    private static void warnings(StringBuilder h, Plan plan) {
+        h.append("<section><h2>Warnings</h2>\n");
+        if (plan.warnings().isEmpty()) {
+            h.append("<p class=\"note\">None.</p>\n");
+        } else {
+            h.append("<ul class=\"warnings\">\n");
+            for (String w : plan.warnings()) {
+                h.append("<li>").append(esc(w)).append("</li>\n");
+            }
+            h.append("</ul>\n");
+        }
+        h.append("</section>\n");
+    }
+
+    private static void kv(StringBuilder h, String key, String value) {
+        h.append("<tr><th>").append(esc(key)).append("</th><td>").append(esc(value)).append("</td></tr>\n");
+    }
+
+    private static void numCell(StringBuilder h, String escapedLater) {
+        cell(h, esc(escapedLater), true);
+    }
+
+    private static void cell(StringBuilder h, String html, boolean numeric) {
+        h.append(numeric ? "<td class=\"n\">" : "<td>").append(html).append("</td>");
+    }
+
+    /**
+     * Escapes text for HTML element content and double- or single-quoted attributes:
+     * {@code & < > " '}.
+     */
+    public static String esc(String s) {
+        if (s == null) {
+            return "";
+        }
+        StringBuilder b = new StringBuilder(s.length() + 16);
+        for (int i = 0; i < s.length(); i++) {
+            char c = s.charAt(i);
+            switch (c) {
+                case '&' -> b.append("&amp;");
+                case '<' -> b.append("&lt;");
+                case '>' -> b.append("&gt;");
+                case '"' -> b.append("&quot;");
+                case '\'' -> b.append("&#39;");
+                default -> b.append(c);
+            }
+        }
+        return b.toString();
+    }
+
+    /** Error probability: plain when representable, otherwise 10^log10. */
+    static String errorText(double p, double log10) {
+        if (p > 0 && Double.isFinite(p)) {
+            return sci(p);
+        }
+        if (Double.isFinite(log10)) {
+            return String.format(Locale.ROOT, "10^%.1f", log10);
+        }
+        return "–";
+    }
+
+    static String bits(double v) {
+        return Double.isFinite(v) ? String.format(Locale.ROOT, "%.3f", v) : "–";
+    }
+
+    static String sci(double v) {
+        if (!Double.isFinite(v)) {
+            return "–";
+        }
+        if (v == 0) {
+            return "0";
+        }
+        return Math.abs(v) >= 1e-3 && Math.abs(v) < 1e4 ? String.format(Locale.ROOT, "%.3g", v)
+                : String.format(Locale.ROOT, "%.2e", v);
+    }
+
+    static String num(double v) {
+        if (!Double.isFinite(v)) {
+            return "–";
+        }
+        if (v == Math.rint(v) && Math.abs(v) < 1e7) {
+            return Long.toString((long) v);
+        }
+        return sci(v);
+    }
+
+    static String big(double v) {
+        if (!Double.isFinite(v)) {
+            return "–";
+        }
+        if (Math.abs(v) < 1e12) {
+            return String.format(Locale.ROOT, "%,.0f", v);
+        }
+        return String.format(Locale.ROOT, "%.3e", v);
+    }
+}

@@ -1,0 +1,148 @@
+package dev.nanoplan.cli;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import dev.nanoplan.plan.NetworkPlanner;
+import dev.nanoplan.plan.Plan;
+import dev.nanoplan.plan.PlanOptions;
+import dev.nanoplan.plan.PlanText;
+import dev.nanoplan.report.AtomicFiles;
+import dev.nanoplan.report.PlanCsv;
+import dev.nanoplan.report.PlanHtml;
+import dev.nanoplan.report.PlanJson;
+import dev.nanoplan.scenario.ScenarioException;
+import dev.nanoplan.scenario.ScenarioProblem;
+import dev.nanoplan.scenario.ScenarioReader;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code nanoplan plan SCENARIO [--json] [--out DIR] [--capacity-floor-bits X] [--lenient]}: plans
+ * the whole layout. Prints the text summary, or with {@code --json} one JSON object (DESIGN.md §4.3)
+ * and nothing else on stdout; {@code --out DIR} also writes {@code plan.json}, {@code links.csv} and
+ * {@code report.html} there, each atomically.
+ */
+@Command(name = "plan", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {"Plans a layout: every link, a route per demand with its bottleneck, molecule budgets.",
+            "Results are model estimates; not validated for clinical use."})
+public final class PlanCommand implements Callable<Integer> {
+
+    /** Names of the files written by {@code --out}. */
+    static final String JSON_FILE = "plan.json";
+    static final String CSV_FILE = "links.csv";
+    static final String HTML_FILE = "report.html";
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "SCENARIO", description = "Scenario file (JSON, format nanoplan/1).")
+    Path scenarioFile;
+
+    @Option(names = "--json", description = "Print one JSON object on stdout (progress and warnings go to stderr).")
+    boolean json;
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Also write plan.json, links.csv and report.html into DIR.")
+    Path outDir;
+
+    @Option(names = "--capacity-floor-bits", paramLabel = "X",
+            description = "Drop links carrying less than X bits/symbol (default: the planner's).")
+    Double capacityFloorBits;
+
+    @Option(names = "--lenient", description = "Treat unknown fields in the scenario as warnings, not errors.")
+    boolean lenient;
+
+    @Override
+    public Integer call() throws IOException {
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        PlanOptions options = PlanOptions.DEFAULT;
+        if (capacityFloorBits != null) {
+            if (!Double.isFinite(capacityFloorBits) || capacityFloorBits < 0) {
+                throw new BadInputException("--capacity-floor-bits: must be a finite number >= 0, got "
+                        + capacityFloorBits);
+            }
+            options = options.withFloor(capacityFloorBits);
+        }
+        if (outDir != null && Files.exists(outDir) && !Files.isDirectory(outDir)) {
+            throw new BadInputException("--out: not a directory: " + outDir);
+        }
+        ScenarioReader.Result read = ScenarioFiles.read(scenarioFile, lenient, err);
+        if (read == null) {
+            return ErrorHandling.BAD_INPUT;
+        }
+        ScenarioFiles.printWarnings(scenarioFile, read, err);
+        Plan plan = NetworkPlanner.plan(read.scenario(), options);
+        if (json) {
+            out.println(PlanJson.of(plan).toString());
+            for (String w : plan.warnings()) {
+                err.println("warning: " + w);
+            }
+        } else {
+            out.print(PlanText.render(plan));
+        }
+        out.flush();
+        if (outDir != null) {
+            write(plan, outDir);
+            (json ? err : out).println("wrote " + outDir.resolve(JSON_FILE) + ", " + outDir.resolve(CSV_FILE)
+                    + ", " + outDir.resolve(HTML_FILE));
+        }
+        out.flush();
+        err.flush();
+        return 0;
+    }
+
+    /** Writes the three report files into {@code dir} (created if needed), each atomically. */
+    static void write(Plan plan, Path dir) throws IOException {
+        ObjectMapper pretty = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+        AtomicFiles.write(dir.resolve(JSON_FILE),
+                (pretty.writeValueAsString(PlanJson.of(plan)) + "\n").getBytes(StandardCharsets.UTF_8));
+        AtomicFiles.write(dir.resolve(CSV_FILE), PlanCsv.links(plan).getBytes(StandardCharsets.UTF_8));
+        AtomicFiles.write(dir.resolve(HTML_FILE), PlanHtml.render(plan).getBytes(StandardCharsets.UTF_8));
+    }
+
+    /** Reading a scenario file for a subcommand, with the error format shared by plan and validate. */
+    static final class ScenarioFiles {
+
+        private ScenarioFiles() {
+        }
+
+        /**
+         * Reads and validates; on problems prints them to {@code err}, one per line prefixed with the
+         * file name, and returns null.
+         *
+         * @throws BadInputException if the file does not exist (one line)
+         */
+        static ScenarioReader.Result read(Path file, boolean lenient, PrintWriter err) {
+            if (!Files.exists(file)) {
+                throw new BadInputException("no such file: " + file);
+            }
+            if (Files.isDirectory(file)) {
+                throw new BadInputException("is a directory, not a scenario file: " + file);
+            }
+            try {
+                return new ScenarioReader(lenient).load(file);
+            } catch (ScenarioException e) {
+                for (ScenarioProblem p : e.problems()) {
+                    err.println(file + ": " + p);
+                }
+                err.flush();
+                return null;
+            }
+        }
+
+        static void printWarnings(Path file, ScenarioReader.Result read, PrintWriter to) {
+            for (ScenarioProblem w : read.warnings()) {
+                to.println(file + ": warning: " + w);
+            }
+        }
+    }
+}
