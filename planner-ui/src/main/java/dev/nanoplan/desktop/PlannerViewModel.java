@@ -70,6 +70,8 @@ public final class PlannerViewModel {
     private final ReadOnlyObjectWrapper<Scenario> scenario = new ReadOnlyObjectWrapper<>();
     private final ReadOnlyObjectWrapper<Plan> plan = new ReadOnlyObjectWrapper<>();
     private final ReadOnlyObjectWrapper<Plan> baseline = new ReadOnlyObjectWrapper<>();
+    private final javafx.beans.property.ReadOnlyDoubleWrapper maxCapacity =
+            new javafx.beans.property.ReadOnlyDoubleWrapper(1.0);
     private final ReadOnlyBooleanWrapper busy = new ReadOnlyBooleanWrapper(false);
     private final ReadOnlyBooleanWrapper dirty = new ReadOnlyBooleanWrapper(false);
     private final ReadOnlyStringWrapper message = new ReadOnlyStringWrapper("");
@@ -373,6 +375,7 @@ public final class PlannerViewModel {
     }
 
     private void setScenario(Scenario s) {
+        maxCapacity.set(Math.log(s.signalling().levels()) / Math.log(2));
         scenario.set(s);
         String sel = selectedNodeId.get();
         if (sel != null && nodeById(sel) == null) {
@@ -600,6 +603,11 @@ public final class PlannerViewModel {
 
     public ReadOnlyObjectProperty<Plan> baselineProperty() {
         return baseline.getReadOnlyProperty();
+    }
+
+    /** log2(levels): the most a symbol can carry, the top of the colour scale. */
+    public javafx.beans.property.ReadOnlyDoubleProperty maxCapacityBitsProperty() {
+        return maxCapacity.getReadOnlyProperty();
     }
 
     public ReadOnlyBooleanProperty busyProperty() {
