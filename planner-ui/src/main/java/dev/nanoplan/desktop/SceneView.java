@@ -126,6 +126,11 @@ public final class SceneView {
         return world;
     }
 
+    /** The volume outline (for tests). */
+    Group volumeGroup() {
+        return volumeGroup;
+    }
+
     public OrbitCamera camera() {
         return orbit;
     }
