@@ -33,6 +33,10 @@ public final class UiCommand implements Callable<Integer> {
     @Option(names = "--height", defaultValue = "860", description = "Snapshot height in pixels, default ${DEFAULT-VALUE}.")
     int height;
 
+    @Option(names = "--tab", paramLabel = "PANEL",
+            description = "Snapshot with this side panel shown: Links, Routes, Budgets, Compare, \"Link charts\", Warnings.")
+    String tab;
+
     @Override
     public Integer call() throws Exception {
         if (file != null && !Files.isRegularFile(file)) {
@@ -53,7 +57,7 @@ public final class UiCommand implements Callable<Integer> {
                     + height);
         }
         try {
-            DesktopLauncher.SnapshotResult r = DesktopLauncher.snapshot(file, snapshot, width, height);
+            DesktopLauncher.SnapshotResult r = DesktopLauncher.snapshot(file, snapshot, width, height, tab);
             PrintWriter err = spec.commandLine().getErr();
             err.println("snapshot written to " + snapshot + " (" + r.nodes() + " nodes, " + r.links() + " links)");
             err.flush();

@@ -47,6 +47,16 @@ public final class DesktopLauncher {
      * @throws Exception with a one-line message when the display, file, planner or writing fails
      */
     public static SnapshotResult snapshot(Path scenario, Path png, int width, int height) throws Exception {
+        return snapshot(scenario, png, width, height, null);
+    }
+
+    /**
+     * As {@link #snapshot(Path, Path, int, int)}, showing the panel tab {@code tab} (e.g. "Routes",
+     * "Link charts"; null keeps the link table). The weakest route is selected, and its bottleneck
+     * link too, so the charts show that link.
+     */
+    public static SnapshotResult snapshot(Path scenario, Path png, int width, int height, String tab)
+            throws Exception {
         startPlatform();
         CompletableFuture<PlannerViewModel> vmF = new CompletableFuture<>();
         CompletableFuture<MainView> viewF = new CompletableFuture<>();
@@ -81,10 +91,16 @@ public final class DesktopLauncher {
                     .ifPresent(r -> {
                         view.routeTable().getSelectionModel().select(r);
                         vm.selectedRouteProperty().set(r);
+                        if (tab != null) {
+                            vm.selectLink(r.bottleneckFrom(), r.bottleneckTo());
+                        }
                     });
+            if (tab != null && !view.showTab(tab)) {
+                done.completeExceptionally(new IllegalArgumentException("--tab: no panel '" + tab + "'"));
+                return;
+            }
             view.sceneView().fit();
-            PauseTransition settle = new PauseTransition(Duration.millis(600));
-            settle.setOnFinished(e -> {
+            settleThenSnapshot(view, done, () -> {
                 try {
                     Scene scene = view.root().getScene();
                     Snapshots.writePng(scene.snapshot(null), png);
@@ -97,9 +113,22 @@ public final class DesktopLauncher {
                     ((Stage) view.root().getScene().getWindow()).close();
                 }
             });
-            settle.play();
         });
         return unwrap(done, 60);
+    }
+
+    /** Waits for pulses to lay out and render (and for link charts to finish, up to 60 s), then runs {@code r}. */
+    private static void settleThenSnapshot(MainView view, CompletableFuture<?> done, Runnable r) {
+        long deadline = System.nanoTime() + 60_000_000_000L;
+        PauseTransition settle = new PauseTransition(Duration.millis(600));
+        settle.setOnFinished(e -> {
+            if (view.charts().computingProperty().get() && System.nanoTime() < deadline) {
+                settle.playFromStart();
+            } else {
+                r.run();
+            }
+        });
+        settle.play();
     }
 
     /** Starts the FX platform once; fails with a clear message when there is no display. */

@@ -57,6 +57,7 @@ public final class MainView {
     private final TableView<BudgetReport> budgetTable = new TableView<>();
     private final TabPane tabs = new TabPane();
     private boolean syncing;
+    private final LinkChartsView charts;
 
     public MainView(PlannerViewModel vm, AppActions actions) {
         this.vm = vm;
@@ -82,12 +83,13 @@ public final class MainView {
         centre.getStyleClass().add("centre");
 
         buildTables();
+        charts = new LinkChartsView(vm);
         tabs.getTabs().addAll(
                 tab("Links", linkTable),
                 tab("Routes", routesPane()),
                 tab("Budgets", budgetTable),
                 tab("Compare", comparePane()),
-                tab("Link charts", new LinkChartsView(vm).node()),
+                tab("Link charts", charts.node()),
                 tab("Warnings", warningsPane()));
         tabs.setTabClosingPolicy(TabPane.TabClosingPolicy.UNAVAILABLE);
         tabs.setMinWidth(300);
@@ -115,6 +117,21 @@ public final class MainView {
 
     public TableView<RouteReport> routeTable() {
         return routeTable;
+    }
+
+    LinkChartsView charts() {
+        return charts;
+    }
+
+    /** Shows the panel tab with this title; false when there is none. */
+    public boolean showTab(String title) {
+        for (Tab t : tabs.getTabs()) {
+            if (t.getText().equalsIgnoreCase(title)) {
+                tabs.getSelectionModel().select(t);
+                return true;
+            }
+        }
+        return false;
     }
 
     public TabPane tabs() {
@@ -246,7 +263,7 @@ public final class MainView {
                 text("limited by", l -> l.limitedBy() == null ? "" : l.limitedBy().id()),
                 text("top interferer", l -> l.topInterferer() == null ? "" : l.topInterferer())));
         linkTable.setItems(vm.links());
-        linkTable.setPlaceholder(new Label("no links yet"));
+        linkTable.setPlaceholder(new Label("no links above the planner's capacity floor"));
         linkTable.setId("link-table");
         linkTable.getSelectionModel().selectedItemProperty().addListener((o, a, b) -> {
             if (!syncing && b != null) {
