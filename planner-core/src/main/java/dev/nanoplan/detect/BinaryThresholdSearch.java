@@ -55,7 +55,7 @@ public final class BinaryThresholdSearch {
         double[] p1 = w.prefix[1];
         double[] s1 = w.suffix[1];
         double q = priorOne;
-        double[] mi = BinaryChannel.mutualInformationBits(q, s0, p0, p1, s1);
+        double[] mi = runCompressedMutualInformation(q, s0, p0, p1, s1);
         double[] err = new double[n];
         int bestMi = 0;
         int bestErr = 0;
@@ -82,6 +82,11 @@ public final class BinaryThresholdSearch {
         int bestCap = bestDelta;
         BinaryCapacity cap = BinaryChannel.capacity(s0[bestCap], p0[bestCap], p1[bestCap], s1[bestCap]);
         for (int t = 0; t < n; t++) {
+            // thresholds in a gap between the windows see the very same channel: same capacity,
+            // and ties keep the smallest τ, so only the first of a run needs evaluating
+            if (t > 0 && s0[t] == s0[t - 1] && p0[t] == p0[t - 1] && p1[t] == p1[t - 1] && s1[t] == s1[t - 1]) {
+                continue;
+            }
             if (t == bestDelta || delta(s0[t], p0[t], p1[t], s1[t]) < cap.bits() - 1e-15
                     || divergenceBoundBits(cap.priorOne(), s0[t], p0[t], p1[t], s1[t])
                             < cap.bits() - 1e-12) {
@@ -96,6 +101,44 @@ public final class BinaryThresholdSearch {
         return new BinaryDetection(w.first + bestMi, mi[bestMi], w.first + bestErr, err[bestErr],
                 w.first + bestCap, cap.bits(), cap.priorOne(), Math.min(1, s0[bestCap]),
                 Math.min(1, p1[bestCap]), w.first, mi, err);
+    }
+
+    /**
+     * The mutual-information curve, evaluated once per run of thresholds that see the same
+     * channel (a gap between the two windows is one run) and copied along the run: the logs are
+     * the cost of the search, and a wide gap would otherwise dominate it.
+     */
+    private static double[] runCompressedMutualInformation(double q, double[] s0, double[] p0, double[] p1,
+            double[] s1) {
+        int n = s0.length;
+        int[] runOf = new int[n];
+        int runs = 0;
+        for (int t = 0; t < n; t++) {
+            if (t == 0 || s0[t] != s0[t - 1] || p0[t] != p0[t - 1] || p1[t] != p1[t - 1] || s1[t] != s1[t - 1]) {
+                runs++;
+            }
+            runOf[t] = runs - 1;
+        }
+        if (runs == n) {
+            return BinaryChannel.mutualInformationBits(q, s0, p0, p1, s1);
+        }
+        double[] a = new double[runs];
+        double[] b = new double[runs];
+        double[] c = new double[runs];
+        double[] d = new double[runs];
+        for (int t = 0; t < n; t++) {
+            int r = runOf[t];
+            a[r] = s0[t];
+            b[r] = p0[t];
+            c[r] = p1[t];
+            d[r] = s1[t];
+        }
+        double[] compressed = BinaryChannel.mutualInformationBits(q, a, b, c, d);
+        double[] mi = new double[n];
+        for (int t = 0; t < n; t++) {
+            mi[t] = compressed[runOf[t]];
+        }
+        return mi;
     }
 
     /**

@@ -55,10 +55,11 @@ public final class LinkEvaluator {
         for (int i = 0; i < m; i++) {
             laws.add(lawGivenLevel(spec, i, interference));
         }
-        List<CountPmf> pmfs = new ArrayList<>(m);
-        for (CountLaw law : laws) {
-            pmfs.add(model.pmf(law));
+        List<CountLaw> own = new ArrayList<>(m);
+        for (int i = 0; i < m; i++) {
+            own.add(CountLaw.of(new BinomialTerm(spec.molecules(i), spec.tap(0))));
         }
+        List<CountPmf> pmfs = model.pmfs(sharedLaw(spec, interference), own);
         double truncated = 0;
         for (CountPmf p : pmfs) {
             truncated = Math.max(truncated, p.truncatedMass());
@@ -111,6 +112,13 @@ public final class LinkEvaluator {
     public static CountLaw lawGivenLevel(LinkSpec spec, int level, List<CountTerm> interference) {
         List<CountTerm> terms = new ArrayList<>();
         terms.add(new BinomialTerm(spec.molecules(level), spec.tap(0)));
+        terms.addAll(sharedLaw(spec, interference).terms());
+        return new CountLaw(terms);
+    }
+
+    /** What every level's count shares: own leftovers, interference and background. */
+    static CountLaw sharedLaw(LinkSpec spec, List<CountTerm> interference) {
+        List<CountTerm> terms = new ArrayList<>();
         double[] w = isiWeights(spec);
         for (int k = 1; k < spec.taps().length; k++) {
             double p = spec.tap(k);
@@ -142,6 +150,9 @@ public final class LinkEvaluator {
         double lnQ1 = Math.log(q);
         long lo = (long) Math.floor(law0.mean()) + 1;
         long hi = (long) Math.ceil(law1.mean());
+        // past the largest possible "0" count ε₀ is already 0 and ε₁ only grows: τ* ≤ max₀ + 1
+        long cap = law0.maxValue() == Long.MAX_VALUE ? Long.MAX_VALUE : law0.maxValue() + 1;
+        hi = Math.min(hi, cap);
         if (hi < lo) {
             hi = lo;
         }
@@ -158,7 +169,7 @@ public final class LinkEvaluator {
         }
         long bestTau = start;
         double best = lnError(law0, law1, lnQ0, lnQ1, start);
-        for (long t = Math.max(0, lo - 8); t <= hi + 8; t++) {
+        for (long t = Math.max(0, lo - 8); t <= Math.min(hi + 8, cap); t++) {
             double e = lnError(law0, law1, lnQ0, lnQ1, t);
             if (e < best) {
                 best = e;

@@ -33,9 +33,10 @@ public final class LinkPlot {
      * @param mi         mutual information (bits) versus threshold
      * @param chosen     the threshold marked on the right panel
      * @param title      a line of text at the top
+     * @param miAxisLabel what the right panel's horizontal axis is
      */
     public static void draw(Canvas c, int width, int height, List<Series> levels, long[] thresholds, Series mi,
-            long chosen, String title) {
+            long chosen, String title, String miAxisLabel) {
         c.rect(0, 0, width, height, "#ffffff");
         c.text(16, 24, title, 14, INK, "start");
         double top = 50;
@@ -91,7 +92,7 @@ public final class LinkPlot {
         mimax = mimax > 0 ? mimax * 1.08 : 1;
         long mx0 = mi.firstX();
         long mx1 = mi.firstX() + Math.max(1, mi.y().length - 1);
-        axes(c, right, mx0, mx1, 0, mimax, "threshold τ (decide 1 iff count ≥ τ)", "mutual information (bits)");
+        axes(c, right, mx0, mx1, 0, mimax, miAxisLabel, "mutual information (bits)");
         plotSeries(c, right, mi, mx0, mx1, 0, mimax, LEVEL_COLOURS[3]);
         double cx = right.px(chosen, mx0, mx1);
         c.line(cx, right.y, cx, right.y + right.h, INK, 1.5, true);
@@ -155,6 +156,9 @@ public final class LinkPlot {
     }
 
     static String num(double v) {
+        if (Math.abs(v) >= 10 && Math.abs(v) < 1e5) {
+            return String.format(Locale.ROOT, "%.0f", v);
+        }
         double a = Math.abs(v);
         if (a == 0) {
             return "0";

@@ -55,7 +55,9 @@ public final class LinkPlotFiles {
             chosen = thresholds[0];
             title = String.format(Locale.ROOT, "Link, %d levels: capacity %.4f bit/symbol", lm.length, m.capacityBits());
         }
-        LinkPlot.draw(c, WIDTH, HEIGHT, levels, thresholds, mi, chosen, title);
+        String axis = b != null ? "threshold τ (decide 1 iff count ≥ τ)"
+                : "first threshold (the others fixed at their best)";
+        LinkPlot.draw(c, WIDTH, HEIGHT, levels, thresholds, mi, chosen, title, axis);
     }
 
     /** Writes {@code file} as SVG or PNG. */

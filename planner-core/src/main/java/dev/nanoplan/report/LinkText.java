@@ -65,12 +65,20 @@ public final class LinkText {
         }
         String why = "";
         if (c < 0.9 * max) {
-            if (e.isiMeanMolecules() > e.signalMeanMolecules()) {
-                why = "; leftovers of earlier symbols exceed the signal: lengthen the symbol time";
-            } else if (e.backgroundMeanMolecules() > e.signalMeanMolecules()) {
-                why = "; background exceeds the signal: release more molecules";
+            double sig = Math.max(e.signalMeanMolecules(), 1e-300);
+            double isi = e.isiMeanMolecules() / sig;
+            double bg = e.backgroundMeanMolecules() / sig;
+            double xt = e.interferenceMeanMolecules() / sig;
+            if (isi >= 0.25 && isi >= bg && isi >= xt) {
+                why = String.format(Locale.ROOT, "; leftovers of earlier symbols are %.0f%% of the signal: lengthen the"
+                        + " symbol time", 100 * isi);
+            } else if (xt >= 0.25 && xt >= bg) {
+                why = String.format(Locale.ROOT, "; crosstalk is %.0f%% of the signal: separate the emitters or give"
+                        + " them their own species", 100 * xt);
+            } else if (bg >= 0.25) {
+                why = String.format(Locale.ROOT, "; background is %.0f%% of the signal: release more molecules", 100 * bg);
             } else {
-                why = "; signal is small: release more molecules or move closer";
+                why = "; too few molecules arrive: release more or move the receiver closer";
             }
         }
         return String.format(Locale.ROOT, "%s: %.3f of %.0f bit/symbol, %.4g bit/s, error %s%s.", word, c, max,
