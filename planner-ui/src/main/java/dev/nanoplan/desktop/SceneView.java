@@ -76,6 +76,8 @@ public final class SceneView {
     private String draggedNode;
     private Point3D dragStart;
     private boolean dragMoved;
+    /** Until the user moves the camera, a resized view fits the layout again. */
+    private boolean userMovedCamera;
 
     public SceneView(PlannerViewModel vm) {
         this.vm = vm;
@@ -92,6 +94,8 @@ public final class SceneView {
         host.getChildren().add(subScene);
         host.setMinSize(200, 150);
         host.getStyleClass().add("scene-host");
+        host.widthProperty().addListener((o, a, b) -> refitIfUntouched());
+        host.heightProperty().addListener((o, a, b) -> refitIfUntouched());
         installControls();
         vm.scenarioProperty().addListener((o, a, b) -> {
             boolean first = a == null || a.volume() != b.volume();
@@ -147,6 +151,12 @@ public final class SceneView {
     /** One cylinder per drawn link, by "from→to" (read-only view for tests). */
     public Map<String, Cylinder> linkShapes() {
         return java.util.Collections.unmodifiableMap(linkShapes);
+    }
+
+    private void refitIfUntouched() {
+        if (!userMovedCamera) {
+            fit();
+        }
     }
 
     /** Looks at the whole layout from the current direction. */
@@ -407,6 +417,7 @@ public final class SceneView {
             double dy = e.getSceneY() - pressY;
             pressX = e.getSceneX();
             pressY = e.getSceneY();
+            userMovedCamera = true;
             if (e.getButton() == MouseButton.PRIMARY && !e.isControlDown()) {
                 orbit.orbit(dx * 0.4, -dy * 0.4);
             } else {
@@ -419,13 +430,17 @@ public final class SceneView {
                 vm.selectedLinkProperty().set(null);
             }
         });
-        subScene.addEventHandler(ScrollEvent.SCROLL, e -> orbit.zoom(Math.exp(-e.getDeltaY() * 0.002)));
+        subScene.addEventHandler(ScrollEvent.SCROLL, e -> {
+            userMovedCamera = true;
+            orbit.zoom(Math.exp(-e.getDeltaY() * 0.002));
+        });
         subScene.addEventHandler(KeyEvent.KEY_PRESSED, this::onKey);
     }
 
     private void onKey(KeyEvent e) {
         KeyCode k = e.getCode();
         double step = 5;
+        userMovedCamera = true;
         if (e.isShiftDown() && k.isArrowKey()) {
             double px = 20;
             switch (k) {
