@@ -1,0 +1,230 @@
+package dev.nanoplan.desktop;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import dev.nanoplan.plan.LinkReport;
+import dev.nanoplan.plan.Plan;
+import java.awt.image.BufferedImage;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.ScheduledExecutorService;
+import java.util.concurrent.TimeUnit;
+import javafx.application.Platform;
+import javafx.scene.Node;
+import javafx.scene.Parent;
+import javafx.scene.Scene;
+import javafx.scene.SnapshotParameters;
+import javafx.scene.input.MouseButton;
+import javafx.scene.input.MouseEvent;
+import javafx.scene.shape.Cylinder;
+import javafx.scene.shape.Sphere;
+import javafx.stage.Stage;
+import javax.imageio.ImageIO;
+import org.junit.jupiter.api.AfterEach;
+import org.junit.jupiter.api.Assumptions;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.Timeout;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
+import org.testfx.util.WaitForAsyncUtils;
+
+/**
+ * Real-window tests: need a display (CI runs them under xvfb-run; outside CI they are skipped when
+ * DISPLAY is unset). Every test has a timeout because JavaFX can hang without a display.
+ */
+@Timeout(value = 180, unit = TimeUnit.SECONDS)
+class MainWindowTest {
+
+    static final Path SCENARIOS = Path.of("..", "scenarios");
+
+    ScheduledExecutorService bg;
+    Stage stage;
+
+    @BeforeAll
+    static void startFx() throws Exception {
+        String display = System.getenv("DISPLAY");
+        boolean ci = "true".equalsIgnoreCase(System.getenv("CI"));
+        Assumptions.assumeTrue(ci || (display != null && !display.isBlank()),
+                "no display: run the UI tests under xvfb-run (CI does)");
+        DesktopLauncher.startPlatform();
+    }
+
+    @AfterEach
+    void close() throws Exception {
+        if (stage != null) {
+            onFx(() -> {
+                stage.close();
+                return null;
+            });
+        }
+        if (bg != null) {
+            bg.shutdownNow();
+        }
+    }
+
+    static <T> T onFx(Callable<T> c) throws Exception {
+        CompletableFuture<T> f = new CompletableFuture<>();
+        Platform.runLater(() -> {
+            try {
+                f.complete(c.call());
+            } catch (Throwable t) {
+                f.completeExceptionally(t);
+            }
+        });
+        return f.get(60, TimeUnit.SECONDS);
+    }
+
+    record Window(PlannerViewModel vm, MainView view) {
+    }
+
+    Window open(String name) throws Exception {
+        bg = PlannerViewModel.daemonScheduler();
+        Window w = onFx(() -> {
+            PlannerViewModel vm = new PlannerViewModel(PlanService.core(), Platform::runLater, bg, 0,
+                    new RecentFiles(null));
+            MainView view = new MainView(vm, null);
+            stage = new Stage();
+            stage.setScene(new Scene(view.root(), 1200, 760));
+            stage.show();
+            assertThat(vm.open(SCENARIOS.resolve(name + ".json"))).isTrue();
+            return new Window(vm, view);
+        });
+        w.vm().planned().get(150, TimeUnit.SECONDS);
+        WaitForAsyncUtils.waitForFxEvents();
+        return w;
+    }
+
+    static <T extends Node> List<T> all(Parent root, Class<T> type, String idPrefix) {
+        List<T> out = new ArrayList<>();
+        for (Node n : root.getChildrenUnmodifiable()) {
+            if (type.isInstance(n) && n.getId() != null && n.getId().startsWith(idPrefix)) {
+                out.add(type.cast(n));
+            }
+            if (n instanceof Parent p) {
+                out.addAll(all(p, type, idPrefix));
+            }
+        }
+        return out;
+    }
+
+    @ParameterizedTest
+    @ValueSource(strings = {"culture-tank", "vessel-segment", "relay-chain-direct", "relay-chain-relayed"})
+    void eachBundledScenarioShowsOneSpherePerNodeAndOneShapePerLink(String name) throws Exception {
+        Window w = open(name);
+        onFx(() -> {
+            Plan p = w.vm().planProperty().get();
+            SceneView sv = w.view().sceneView();
+            // the sub-scene sits in the window's scene graph (a detached SubScene renders blank)
+            assertThat(sv.subScene().getScene()).isSameAs(stage.getScene());
+            assertThat(all(sv.world(), Sphere.class, "node-")).hasSize(p.scenario().nodes().size());
+            assertThat(all(sv.world(), Cylinder.class, "link-")).hasSize(p.links().size());
+            assertThat(w.view().linkTable().getItems()).hasSize(p.links().size());
+            return null;
+        });
+    }
+
+    @Test
+    void tableSelectionHighlightsTheLinkIn3dAndBack() throws Exception {
+        Window w = open("culture-tank");
+        onFx(() -> {
+            var table = w.view().linkTable();
+            assertThat(table.getItems()).hasSizeGreaterThanOrEqualTo(2);
+            LinkReport first = table.getItems().get(0);
+            LinkReport second = table.getItems().get(1);
+            double plain = w.view().sceneView().linkShapes().get(key(second)).getRadius();
+            table.getSelectionModel().clearAndSelect(0);
+            assertThat(w.vm().selectedLinkProperty().get()).isEqualTo(first);
+            assertThat(w.view().sceneView().linkShapes().get(key(first)).getRadius()).isGreaterThan(plain);
+            // and back: a click on the second link's cylinder selects its table row
+            Cylinder c = w.view().sceneView().linkShapes().get(key(second));
+            c.fireEvent(new MouseEvent(MouseEvent.MOUSE_CLICKED, 0, 0, 0, 0, MouseButton.PRIMARY, 1, false, false,
+                    false, false, false, false, false, false, false, true, null));
+            assertThat(table.getSelectionModel().getSelectedItem()).isEqualTo(second);
+            return null;
+        });
+    }
+
+    @Test
+    void draggingANodeChangesTheLinkTable() throws Exception {
+        Window w = open("culture-tank");
+        List<LinkReport> before = onFx(() -> List.copyOf(w.view().linkTable().getItems()));
+        var beforePos = w.vm().nodeById("s09").positionUm();
+        onFx(() -> {
+            Sphere s = w.view().sceneView().spheres().get("s09");
+            s.fireEvent(mouse(MouseEvent.MOUSE_PRESSED, 300, 300));
+            s.fireEvent(mouse(MouseEvent.MOUSE_DRAGGED, 330, 300));
+            s.fireEvent(mouse(MouseEvent.MOUSE_RELEASED, 330, 300));
+            return null;
+        });
+        assertThat(w.vm().nodeById("s09").positionUm()).isNotEqualTo(beforePos);
+        w.vm().planned().get(150, TimeUnit.SECONDS);
+        WaitForAsyncUtils.waitForFxEvents();
+        List<LinkReport> after = onFx(() -> List.copyOf(w.view().linkTable().getItems()));
+        assertThat(after).isNotEqualTo(before);
+    }
+
+    @Test
+    void snapshotIsNotBlankAndShowsTheVolume(@TempDir Path dir) throws Exception {
+        Path png = dir.resolve("tank.png");
+        DesktopLauncher.SnapshotResult r = DesktopLauncher.snapshot(SCENARIOS.resolve("culture-tank.json"), png, 1000,
+                700);
+        assertThat(r.spheres()).isEqualTo(r.nodes());
+        BufferedImage img = ImageIO.read(png.toFile());
+        assertThat(img.getWidth()).isEqualTo(1000);
+        assertThat(img.getHeight()).isEqualTo(700);
+        // not blank: the luminance varies across the picture
+        assertThat(luminanceStdDev(img)).isGreaterThan(10);
+
+        // shows the volume: the 3D view with the outline differs from the same view without it
+        Window w = open("culture-tank");
+        int changed = onFx(() -> {
+            SceneView sv = w.view().sceneView();
+            BufferedImage with = Snapshots.toBuffered(sv.subScene().snapshot(new SnapshotParameters(), null));
+            sv.volumeGroup().setVisible(false);
+            BufferedImage without = Snapshots.toBuffered(sv.subScene().snapshot(new SnapshotParameters(), null));
+            sv.volumeGroup().setVisible(true);
+            int n = 0;
+            for (int y = 0; y < with.getHeight(); y++) {
+                for (int x = 0; x < with.getWidth(); x++) {
+                    if (with.getRGB(x, y) != without.getRGB(x, y)) {
+                        n++;
+                    }
+                }
+            }
+            return n;
+        });
+        // twelve box edges a few pixels wide span well over a thousand pixels
+        assertThat(changed).isGreaterThan(1000);
+    }
+
+    static MouseEvent mouse(javafx.event.EventType<MouseEvent> type, double x, double y) {
+        return new MouseEvent(type, x, y, x, y, MouseButton.PRIMARY, 1, true, false, false, false,
+                type != MouseEvent.MOUSE_RELEASED, false, false, false, false, false, null);
+    }
+
+    static String key(LinkReport l) {
+        return l.from() + "→" + l.to();
+    }
+
+    static double luminanceStdDev(BufferedImage img) {
+        double sum = 0;
+        double sum2 = 0;
+        long n = 0;
+        for (int y = 0; y < img.getHeight(); y++) {
+            for (int x = 0; x < img.getWidth(); x++) {
+                int rgb = img.getRGB(x, y);
+                double l = 0.299 * ((rgb >> 16) & 255) + 0.587 * ((rgb >> 8) & 255) + 0.114 * (rgb & 255);
+                sum += l;
+                sum2 += l * l;
+                n++;
+            }
+        }
+        double mean = sum / n;
+        return Math.sqrt(Math.max(0, sum2 / n - mean * mean));
+    }
+}

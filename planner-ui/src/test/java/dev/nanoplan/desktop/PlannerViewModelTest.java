@@ -1,0 +1,254 @@
+package dev.nanoplan.desktop;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import dev.nanoplan.geometry.Vec3;
+import dev.nanoplan.plan.Plan;
+import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.Role;
+import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.ScenarioReader;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.ScheduledExecutorService;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.AfterEach;
+import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.Timeout;
+import org.junit.jupiter.api.io.TempDir;
+
+/** The view model without a window: edits, validation, undo/redo, background planning, files. */
+@Timeout(30)
+class PlannerViewModelTest {
+
+    static final Path TANK = Path.of("..", "scenarios", "culture-tank.json");
+
+    FakePlans fake;
+    ScheduledExecutorService bg;
+    PlannerViewModel vm;
+
+    @BeforeEach
+    void setUp() {
+        fake = new FakePlans();
+        bg = PlannerViewModel.daemonScheduler();
+        vm = new PlannerViewModel(fake, Runnable::run, bg, 0, new RecentFiles(null));
+    }
+
+    @AfterEach
+    void tearDown() {
+        bg.shutdownNow();
+    }
+
+    Plan awaitPlan() throws Exception {
+        return vm.planned().get(10, TimeUnit.SECONDS);
+    }
+
+    Scenario opened() throws Exception {
+        assertThat(vm.open(TANK)).isTrue();
+        awaitPlan();
+        return vm.scenarioProperty().get();
+    }
+
+    @Test
+    void openingPlansTheFileThroughTheService() throws Exception {
+        Scenario s = opened();
+        // the file read by planner-core's own reader is what the view model holds and plans
+        assertThat(s).isEqualTo(ScenarioReader.strict().read(TANK));
+        assertThat(fake.calls).containsExactly(s);
+        assertThat(vm.links()).hasSize(s.demands().size());
+        assertThat(vm.busyProperty().get()).isFalse();
+        assertThat(vm.dirtyProperty().get()).isFalse();
+    }
+
+    @Test
+    void movingANodeReplansAndChangesItsLinks() throws Exception {
+        opened();
+        double before = vm.findLink("s01", "gw").capacityBits();
+        assertThat(vm.moveNode("s01", new Vec3(60, 60, 60))).isTrue();
+        Plan p = awaitPlan();
+        Node moved = p.scenario().nodesById().get("s01");
+        assertThat(moved.positionUm()).isEqualTo(new Vec3(60, 60, 60));
+        assertThat(fake.calls).hasSize(2);
+        assertThat(vm.planProperty().get()).isSameAs(p);
+        // farther from the gateway, the fake's capacity label 1/(1 + d/100) must drop
+        assertThat(vm.findLink("s01", "gw").capacityBits()).isLessThan(before);
+        assertThat(vm.dirtyProperty().get()).isTrue();
+    }
+
+    @Test
+    void inspectorEditChangesRoleRadiusAndMolecules() throws Exception {
+        opened();
+        vm.selectedNodeIdProperty().set("s03");
+        assertThat(vm.inspector().xUmProperty().get()).isEqualTo("77.6");
+        vm.inspector().radiusUmProperty().set("3.5");
+        vm.inspector().moleculesPerSymbolProperty().set("12345");
+        assertThat(vm.applyInspector()).isTrue();
+        awaitPlan();
+        Node n = vm.nodeById("s03");
+        assertThat(n.radiusUm()).isEqualTo(3.5);
+        assertThat(n.moleculesPerSymbol()).isEqualTo(12345);
+        assertThat(fake.calls.get(fake.calls.size() - 1).nodesById().get("s03").radiusUm()).isEqualTo(3.5);
+    }
+
+    @Test
+    void undoAndRedoRoundTrip() throws Exception {
+        Scenario original = opened();
+        assertThat(vm.moveNode("s01", new Vec3(150, 240, 85))).isTrue();
+        Scenario afterMove = vm.scenarioProperty().get();
+        vm.selectedNodeIdProperty().set("s02");
+        vm.inspector().radiusUmProperty().set("2.5");
+        assertThat(vm.applyInspector()).isTrue();
+        Scenario afterRadius = vm.scenarioProperty().get();
+        assertThat(vm.deleteNode("s05")).isTrue();
+        Scenario afterDelete = vm.scenarioProperty().get();
+        assertThat(afterDelete.demands()).noneMatch(d -> d.from().equals("s05"));
+
+        assertThat(vm.undo()).isTrue();
+        assertThat(vm.scenarioProperty().get()).isEqualTo(afterRadius);
+        assertThat(vm.undo()).isTrue();
+        assertThat(vm.scenarioProperty().get()).isEqualTo(afterMove);
+        assertThat(vm.undo()).isTrue();
+        assertThat(vm.scenarioProperty().get()).isEqualTo(original);
+        assertThat(vm.undo()).isFalse();
+        assertThat(awaitPlan().scenario()).isEqualTo(original);
+
+        assertThat(vm.redo()).isTrue();
+        assertThat(vm.redo()).isTrue();
+        assertThat(vm.redo()).isTrue();
+        assertThat(vm.scenarioProperty().get()).isEqualTo(afterDelete);
+        assertThat(vm.redo()).isFalse();
+        assertThat(awaitPlan().scenario()).isEqualTo(afterDelete);
+    }
+
+    @Test
+    void aNewEditClearsRedo() throws Exception {
+        opened();
+        vm.moveNode("s01", new Vec3(150, 240, 85));
+        vm.undo();
+        assertThat(vm.undoStack().canRedoProperty().get()).isTrue();
+        vm.moveNode("s02", new Vec3(90, 240, 115));
+        assertThat(vm.undoStack().canRedoProperty().get()).isFalse();
+    }
+
+    @Test
+    void negativeRadiusIsRefusedAndChangesNothing() throws Exception {
+        Scenario s = opened();
+        int calls = fake.calls.size();
+        vm.selectedNodeIdProperty().set("s01");
+        vm.inspector().radiusUmProperty().set("-2");
+        assertThat(vm.applyInspector()).isFalse();
+        assertThat(vm.messageProperty().get()).contains("refused").contains("radius");
+        assertThat(vm.scenarioProperty().get()).isSameAs(s);
+        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.dirtyProperty().get()).isFalse();
+        assertThat(fake.calls).hasSize(calls);
+    }
+
+    @Test
+    void nodeOutsideTheVolumeIsRefusedAndChangesNothing() throws Exception {
+        Scenario s = opened();
+        // the tank's box is [0,400]×[0,400]×[0,200] µm (scenarios/culture-tank.json)
+        assertThat(vm.moveNode("s01", new Vec3(150, 240, 250))).isFalse();
+        assertThat(vm.messageProperty().get()).contains("refused").contains("s01");
+        assertThat(vm.scenarioProperty().get()).isSameAs(s);
+        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+    }
+
+    @Test
+    void overlappingAndMalformedEditsAreRefused() throws Exception {
+        Scenario s = opened();
+        // gw sits at (200, 200, 100) with radius 10 µm: a node centred there overlaps it
+        assertThat(vm.moveNode("s01", new Vec3(200, 200, 100))).isFalse();
+        vm.selectedNodeIdProperty().set("s01");
+        vm.inspector().xUmProperty().set("abc");
+        assertThat(vm.applyInspector()).isFalse();
+        assertThat(vm.messageProperty().get()).contains("x");
+        assertThat(vm.scenarioProperty().get()).isSameAs(s);
+    }
+
+    @Test
+    void addDuplicateAndDeleteKeepTheLayoutValid() throws Exception {
+        Scenario s = opened();
+        assertThat(vm.addNode(Role.RECEIVER)).isTrue();
+        String added = vm.selectedNodeIdProperty().get();
+        assertThat(vm.nodeById(added).role()).isEqualTo(Role.RECEIVER);
+        assertThat(vm.duplicateNode("s01")).isTrue();
+        String copy = vm.selectedNodeIdProperty().get();
+        assertThat(copy).isNotEqualTo("s01");
+        assertThat(vm.scenarioProperty().get().nodes()).hasSize(s.nodes().size() + 2);
+        assertThat(vm.deleteNode(copy)).isTrue();
+        assertThat(vm.nodeById(copy)).isNull();
+        assertThat(vm.selectedNodeIdProperty().get()).isNull();
+        // every intermediate layout passed planner-core's validation: re-check the last one
+        Scenario last = vm.scenarioProperty().get();
+        assertThat(new Scenario(last.name(), last.volume(), last.medium(), last.species(), last.signalling(),
+                last.nodes(), last.demands(), last.targets())).isEqualTo(last);
+    }
+
+    @Test
+    void rapidEditsArePlannedOnceWhenDebounced() throws Exception {
+        bg.shutdownNow();
+        bg = PlannerViewModel.daemonScheduler();
+        vm = new PlannerViewModel(fake, Runnable::run, bg, 300, new RecentFiles(null));
+        vm.open(TANK);
+        for (int i = 0; i < 5; i++) {
+            vm.moveNode("s01", new Vec3(150 + i, 230, 85));
+        }
+        Plan p = awaitPlan();
+        assertThat(p.scenario().nodesById().get("s01").positionUm()).isEqualTo(new Vec3(154, 230, 85));
+        // the five edits and the open fall inside one debounce window: one planning run
+        assertThat(fake.calls).hasSize(1);
+    }
+
+    @Test
+    void aFailingPlannerLeavesAMessageAndNotBusy() throws Exception {
+        vm = new PlannerViewModel(s -> {
+            throw new IllegalStateException("boom");
+        }, Runnable::run, bg, 0, new RecentFiles(null));
+        vm.open(TANK);
+        try {
+            awaitPlan();
+        } catch (java.util.concurrent.ExecutionException expected) {
+            assertThat(expected.getCause()).hasMessage("boom");
+        }
+        assertThat(vm.busyProperty().get()).isFalse();
+        assertThat(vm.messageProperty().get()).contains("boom");
+    }
+
+    @Test
+    void saveAsWritesAFileThatReadsBackEqual(@TempDir Path dir) throws Exception {
+        opened();
+        vm.moveNode("s01", new Vec3(150, 240, 85));
+        Path out = dir.resolve("edited.json");
+        assertThat(vm.saveAs(out)).isTrue();
+        assertThat(vm.dirtyProperty().get()).isFalse();
+        assertThat(ScenarioReader.strict().read(out)).isEqualTo(vm.scenarioProperty().get());
+        assertThat(vm.recentFiles()).first().isEqualTo(out.toAbsolutePath().normalize());
+        assertThat(Files.list(dir)).hasSize(1);
+    }
+
+    @Test
+    void badFileKeepsTheCurrentLayout(@TempDir Path dir) throws Exception {
+        Scenario s = opened();
+        Path bad = dir.resolve("bad.json");
+        Files.writeString(bad, "{\"format\": \"nanoplan/9\"}");
+        assertThat(vm.open(bad)).isFalse();
+        assertThat(vm.messageProperty().get()).contains("cannot open");
+        assertThat(vm.scenarioProperty().get()).isSameAs(s);
+    }
+
+    @Test
+    void comparisonShowsKeptAndCurrentNumbers() throws Exception {
+        opened();
+        vm.keepForComparison();
+        double kept = vm.findLink("s01", "gw").capacityBits();
+        vm.moveNode("s01", new Vec3(60, 60, 60));
+        awaitPlan();
+        DemandComparison row = vm.comparison().stream().filter(r -> r.from().equals("s01")).findFirst().orElseThrow();
+        assertThat(row.baselineCapacity()).isEqualTo(kept);
+        assertThat(row.capacity()).isEqualTo(vm.findLink("s01", "gw").capacityBits());
+        // s01 releases 4000 molecules for a "1" at prior 0.5 (culture-tank.json): 2000 per symbol on average
+        assertThat(row.molPerBit()).isCloseTo(2000 / row.capacity(), org.assertj.core.data.Offset.offset(1e-9));
+    }
+}
