@@ -18,8 +18,11 @@ import dev.nanoplan.scenario.Flow;
  *   <li>cylinder: the end planes x = 0 and x = L as for the box; the curved wall by mirroring
  *       the radial distance, ρ → 2R − ρ, keeping the direction from the axis. This treats the
  *       wall as its tangent plane over one step, an approximation whose error per reflection is
- *       of order σ²/R (σ² = 2DΔt), so O(Δt); measured in {@code MotionTest}: the density in a
- *       wall layer of width σ deviates from uniform by less than a few per cent for σ/R ≤ 0.1;</li>
+ *       of order σ²/R (σ² = 2DΔt), so O(Δt). Measured (cylinder R = 10 µm, long-time density in
+ *       the outer layer of width 0.1R against the uniform law, 2e5 molecules, s.e. 0.5 %): the
+ *       layer holds 0.3 % more at σ/R = 0.05, 1.2 % less at σ/R = 0.1, 6 % less at 0.2 and
+ *       15 % less at 0.4; {@code MotionTest} checks σ/R = 0.1 within 5 %. Molecules are thus
+ *       slightly depleted at a curved wall when Δt is coarse; halve Δt to check;</li>
  *   <li>open volume: no walls.</li>
  * </ul>
  * Steps longer than the box are folded repeatedly (never leaves the volume). Each call is O(1)
