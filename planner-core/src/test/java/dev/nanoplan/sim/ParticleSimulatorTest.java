@@ -123,7 +123,7 @@ class ParticleSimulatorTest {
         double ddt = sigma * sigma / 2;
         Absorbers grid = new Absorbers(c, r, idx, sigma, ddt);
         int hits = 0;
-        for (int k = 0; k < 200_000; k++) {
+        for (int k = 0; k < 50_000; k++) {
             double x0 = rng.nextDouble() * 60 - 5;
             double y0 = rng.nextDouble() * 50 - 5;
             double z0 = rng.nextDouble() * 40 - 5;
@@ -139,7 +139,7 @@ class ParticleSimulatorTest {
                 hits++;
             }
         }
-        assertThat(hits).isGreaterThan(1000);
+        assertThat(hits).isGreaterThan(200);
     }
 
     /** Brute force over all spheres, in index order, same bridge rule. */
