@@ -9,7 +9,7 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = ManifestVersion.class,
         description = "Plans networks of nanomachines that talk by releasing molecules into a fluid.",
-        subcommands = {LinkCommand.class, CommandLine.HelpCommand.class})
+        subcommands = {LinkCommand.class, SimulateCommand.class, CommandLine.HelpCommand.class})
 public final class NanoplanCommand implements Runnable {
 
     @CommandLine.Spec
