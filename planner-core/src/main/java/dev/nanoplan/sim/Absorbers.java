@@ -21,8 +21,8 @@ import org.apache.commons.rng.UniformRandomProvider;
  * below 1e-12 per step. The first sphere found wins (spheres do not overlap, so at most one can
  * contain a point; two bridge hits in one step are a second-order event).
  *
- * <p>Grid: cells of edge h = max(largest reach, (bounding volume / n)^{1/3}), at most
- * {@value #MAX_CELLS_PER_AXIS} per axis, each listing the spheres whose reach ball meets it;
+ * <p>Grid: cells of edge h = max(largest reach, bounding extent / {@value #MAX_CELLS_PER_AXIS}),
+ * so a cell lists few spheres and most cells none (at most 128³ cells, 8 MB of offsets), each listing the spheres whose reach ball meets it;
  * with at most {@value #DIRECT_LIMIT} spheres the list is scanned directly. Query O(1 + spheres
  * per cell). Immutable, shared between threads.
  */
@@ -35,10 +35,11 @@ final class Absorbers {
     private static final double MAX_EXPONENT = 40;
 
     final int count;
+    /** Per sphere i, at 6i: centre x, y, z, radius, radius², reach² (packed for locality). */
+    private final double[] sphere;
     private final double[] cx;
     private final double[] cy;
     private final double[] cz;
-    private final double[] radius;
     private final double[] radius2;
     private final double[] reach2;
     /** Index of each sphere in the simulation's receiver list. */
@@ -69,7 +70,7 @@ final class Absorbers {
         cx = new double[count];
         cy = new double[count];
         cz = new double[count];
-        radius = radii.clone();
+        sphere = new double[6 * count];
         radius2 = new double[count];
         reach2 = new double[count];
         this.receiverIndex = receiverIndex.clone();
@@ -92,6 +93,12 @@ final class Absorbers {
             reach2[i] = reach * reach;
             maxReach = Math.max(maxReach, reach);
             all[i] = i;
+            sphere[6 * i] = cx[i];
+            sphere[6 * i + 1] = cy[i];
+            sphere[6 * i + 2] = cz[i];
+            sphere[6 * i + 3] = radii[i];
+            sphere[6 * i + 4] = radius2[i];
+            sphere[6 * i + 5] = reach2[i];
             lox = Math.min(lox, cx[i] - reach);
             loy = Math.min(loy, cy[i] - reach);
             loz = Math.min(loz, cz[i] - reach);
@@ -108,8 +115,7 @@ final class Absorbers {
             return;
         }
         double extent = Math.max(hix - lox, Math.max(hiy - loy, hiz - loz));
-        double h = Math.max(maxReach, Math.cbrt((hix - lox) * (hiy - loy) * (hiz - loz) / count));
-        h = Math.max(h, extent / MAX_CELLS_PER_AXIS);
+        double h = Math.max(maxReach, extent / MAX_CELLS_PER_AXIS);
         gx0 = lox;
         gy0 = loy;
         gz0 = loz;
@@ -191,23 +197,29 @@ final class Absorbers {
             to = count;
             list = all;
         }
+        final double[] sp = sphere;
         for (int k = from; k < to; k++) {
             int i = list[k];
-            double dx = x1 - cx[i];
-            double dy = y1 - cy[i];
-            double dz = z1 - cz[i];
+            int o = 6 * i;
+            double scx = sp[o];
+            double scy = sp[o + 1];
+            double scz = sp[o + 2];
+            double dx = x1 - scx;
+            double dy = y1 - scy;
+            double dz = z1 - scz;
             double e2 = dx * dx + dy * dy + dz * dz;
-            if (e2 >= reach2[i]) {
+            if (e2 >= sp[o + 5]) {
                 continue;
             }
-            if (e2 <= radius2[i]) {
+            if (e2 <= sp[o + 4]) {
                 return receiverIndex[i];
             }
-            double d2 = Math.sqrt(e2) - radius[i];
-            double ax = x0 - cx[i];
-            double ay = y0 - cy[i];
-            double az = z0 - cz[i];
-            double d1 = Math.sqrt(ax * ax + ay * ay + az * az) - radius[i];
+            double r = sp[o + 3];
+            double d2 = Math.sqrt(e2) - r;
+            double ax = x0 - scx;
+            double ay = y0 - scy;
+            double az = z0 - scz;
+            double d1 = Math.sqrt(ax * ax + ay * ay + az * az) - r;
             if (d1 <= 0) {
                 return receiverIndex[i];
             }

@@ -81,7 +81,8 @@ public final class SimulationComparison {
         if (Double.isNaN(z)) {
             return "no statistics: no molecules simulated or the closed form gives 0 or 1";
         }
-        String size = String.format(Locale.ROOT, "%.0f %%", Math.abs(rel) * 100);
+        String size = Math.abs(rel) < 10 ? String.format(Locale.ROOT, "%.0f %%", Math.abs(rel) * 100)
+                : String.format(Locale.ROOT, "a factor %.3g", rel + 1);
         if (!flagged) {
             return Math.abs(z) <= Z_LIMIT
                     ? "agrees with the open-medium closed form within " + fmt(Z_LIMIT) + " s.e."

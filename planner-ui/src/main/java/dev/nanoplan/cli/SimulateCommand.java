@@ -185,7 +185,7 @@ public final class SimulateCommand implements Callable<Integer> {
         sb.append(String.format(Locale.ROOT, "%-12s %-12s %12s %12s %10s %8s %9s  %s%n", "from", "to", "analytic",
                 "simulated", "s.e.", "z", "rel.diff", "flag"));
         for (LinkComparison c : links) {
-            sb.append(String.format(Locale.ROOT, "%-12s %-12s %12.5g %12.5g %10.2g %8.2f %8.1f%%  %s%n", c.from(),
+            sb.append(String.format(Locale.ROOT, "%-12s %-12s %12.5g %12.5g %10.2g %8.3g %8.3g%%  %s%n", c.from(),
                     c.to(), c.analyticHitProbability(), c.simulatedHitProbability(), c.standardError(), c.zScore(),
                     100 * c.relativeDifference(), c.flagged() ? "FLAG" : ""));
         }
