@@ -7,7 +7,8 @@ package dev.nanoplan.sim;
  * @param to receiver id
  * @param analyticHitProbability closed-form F(T) for an open medium (with decay if the species
  *     decays), ignoring walls, flow and other receivers
- * @param simulatedHitProbability p̂_0, simulated fraction absorbed within T
+ * @param simulatedHitProbability p̂_0, simulated fraction absorbed within T; NaN (and empty
+ *     simulated taps) when none of the emitter's molecules finished (cancelled run)
  * @param standardError binomial s.e. of p̂_0, √(p̂_0(1 − p̂_0)/M)
  * @param zScore (p̂_0 − F(T)) / √(F(T)(1 − F(T))/M), the deviation in units of the s.e. expected
  *     if the closed form held; NaN when that s.e. is 0 (F(T) = 0 or 1, or M = 0)

@@ -63,8 +63,14 @@ public final class SimulationComparison {
                         s.halfLifeS());
                 double[] analyticTaps = model.taps(symbolTimeS, channel.isiMemorySymbols());
                 double pa = analyticTaps[0];
-                double ps = t.hitProbability();
                 long m = t.moleculesSimulated();
+                if (m == 0) {
+                    out.add(new LinkComparison(e.id(), r.id(), pa, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                            false, "not simulated: the run stopped before any of this emitter's molecules finished",
+                            new double[0], new double[0], analyticTaps));
+                    continue;
+                }
+                double ps = t.hitProbability();
                 double nullSe = m == 0 ? 0 : Math.sqrt(pa * (1 - pa) / m);
                 double z = nullSe > 0 ? (ps - pa) / nullSe : Double.NaN;
                 double rel = pa > 0 ? (ps - pa) / pa : Double.NaN;

@@ -64,4 +64,17 @@ class SimulationComparisonTest {
         assertThat(c.relativeDifference()).isNegative();
         assertThat(c.reason()).startsWith("shading by 1 other receiver lowers this link by ");
     }
+
+    @Test
+    void emitterWithNothingSimulatedIsReportedAsNotSimulated() {
+        Scenario s = Layouts.openPair(15, 5, 100, 0.1, 1);
+        SimulatedTaps none = new SimulatedTaps("tx", "rx", true, 0, new long[2]);
+        SimulatedChannel ch = new SimulatedChannel(List.of("tx"), List.of("rx"), 0.1, 1, 1e-3, 1, 1000, false,
+                List.of(new EmitterRun("tx", "A", 0, 0, 0, List.of(none))));
+        LinkComparison c = SimulationComparison.compare(s, ch).get(0);
+        assertThat(c.simulatedHitProbability()).isNaN();
+        assertThat(c.flagged()).isFalse();
+        assertThat(c.simulatedTaps()).isEmpty();
+        assertThat(c.reason()).startsWith("not simulated");
+    }
 }
