@@ -78,6 +78,37 @@ class MotionTest {
     }
 
     @Test
+    void poiseuilleFlowCarriesMoleculesAtTheProfileSpeed() {
+        double radius = 10;
+        double diff = 1;
+        double u = 100;
+        double dt = 1e-3;
+        int steps = 500;
+        int n = 20_000;
+        Motion motion = new Motion(new Volume.Cylinder(radius, 1000), new Flow.Poiseuille(u), diff, dt);
+        MoleculeBlock b = run(motion, new Vec3(5, 0, 0), n, steps, 8);
+        double sum = 0;
+        double sum2 = 0;
+        for (int i = 0; i < n; i++) {
+            double dx = b.x[i] - 5;
+            sum += dx;
+            sum2 += dx * dx;
+        }
+        double mean = sum / n;
+        double se = Math.sqrt((sum2 / n - mean * mean) / (n - 1));
+        // Hagen–Poiseuille profile v = 2u(1 − ρ²/R²) (F. M. White, Fluid Mechanics, 7th ed., 2011, §6.4) with the
+        // 2-D spread from the axis E[ρ²(s)] = 4Ds (Einstein 1905), walls 7 spreads away: mean axial shift
+        // Σ_k 2uΔt(1 − 4D·kΔt/R²) over the steps (velocity taken at the start of each step)
+        double expected = 0;
+        for (int k = 0; k < steps; k++) {
+            expected += 2 * u * dt * (1 - 4 * diff * k * dt / (radius * radius));
+        }
+        assertThat(Math.abs(mean - expected)).as("mean shift %s vs %s ± %s", mean, expected, se).isLessThan(4 * se);
+        // the curvature of the profile is visible: the shift is clearly below the axis speed 2u·t
+        assertThat(2 * u * steps * dt - mean).isGreaterThan(20 * se);
+    }
+
+    @Test
     void boxConservesMoleculesAndBecomesUniform() {
         Volume.Box box = new Volume.Box(new Vec3(0, 0, 0), new Vec3(20, 20, 20));
         double diff = 100;
