@@ -1,0 +1,52 @@
+package dev.nanoplan.sim;
+
+import java.util.OptionalDouble;
+
+/**
+ * Settings of one particle simulation.
+ *
+ * @param moleculesPerEmitter M, molecules released by each emitter, ≥ 1
+ * @param seed master seed; every result is a function of the scenario, M, Δt and this seed only
+ *     (not of the number of threads)
+ * @param timeStepS Δt in s, finite and &gt; 0, or empty to choose it from the geometry
+ *     ({@link TimeStepRule}); either way it is shortened so that the symbol time is a whole
+ *     number of steps
+ * @param threads worker threads, ≥ 1
+ */
+public record SimulationSettings(long moleculesPerEmitter, long seed, OptionalDouble timeStepS, int threads) {
+
+    /** @throws IllegalArgumentException naming the bad parameter */
+    public SimulationSettings {
+        if (moleculesPerEmitter < 1) {
+            throw new IllegalArgumentException("moleculesPerEmitter: must be >= 1, got " + moleculesPerEmitter);
+        }
+        if (timeStepS == null) {
+            throw new IllegalArgumentException("timeStepS: must not be null (use OptionalDouble.empty())");
+        }
+        if (timeStepS.isPresent()) {
+            double dt = timeStepS.getAsDouble();
+            if (!(dt > 0) || !Double.isFinite(dt)) {
+                throw new IllegalArgumentException("timeStepS: must be finite and > 0, got " + dt);
+            }
+        }
+        if (threads < 1) {
+            throw new IllegalArgumentException("threads: must be >= 1, got " + threads);
+        }
+    }
+
+    /** M molecules per emitter, the given seed, automatic Δt, one thread per available processor. */
+    public static SimulationSettings of(long moleculesPerEmitter, long seed) {
+        return new SimulationSettings(moleculesPerEmitter, seed, OptionalDouble.empty(),
+                Runtime.getRuntime().availableProcessors());
+    }
+
+    /** The same settings with a fixed time step. */
+    public SimulationSettings withTimeStepS(double dt) {
+        return new SimulationSettings(moleculesPerEmitter, seed, OptionalDouble.of(dt), threads);
+    }
+
+    /** The same settings with another number of threads. */
+    public SimulationSettings withThreads(int n) {
+        return new SimulationSettings(moleculesPerEmitter, seed, timeStepS, n);
+    }
+}

@@ -1,0 +1,2 @@
+/** Particle simulation of the channel: Brownian molecules, reflecting walls, absorbing receivers. */
+package dev.nanoplan.sim;
