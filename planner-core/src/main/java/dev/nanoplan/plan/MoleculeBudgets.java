@@ -141,10 +141,19 @@ final class MoleculeBudgets {
             return new HopBudget(hi, "");
         }
         double s = (double) hi / now;
+        long loudest = now;
+        for (var i : ctx.interferers) {
+            long[] lv = i.levelMolecules();
+            loudest = Math.max(loudest, lv[lv.length - 1]);
+        }
+        if (s * loudest > MAX_MOLECULES) {
+            return new HopBudget(hi, " (with interference fixed; scaling every emitter alike exceeds 2^24 molecules"
+                    + " and was not checked)");
+        }
         if (ctx.allScaled(s).minErrorProbability() <= target) {
             return new HopBudget(hi, "");
         }
-        while (s < MAX_JOINT_SCALE) {
+        while (s < MAX_JOINT_SCALE && 2 * s * loudest <= MAX_MOLECULES) {
             s *= 2;
             if (ctx.allScaled(s).minErrorProbability() <= target) {
                 return new HopBudget(Math.round(s * now), String.format(Locale.ROOT,
