@@ -1,5 +1,6 @@
 package dev.nanoplan.plan;
 
+import dev.nanoplan.count.CountModelKind;
 import dev.nanoplan.count.CountTerm;
 import dev.nanoplan.network.AnalyticChannel;
 import dev.nanoplan.network.ChannelEntry;
@@ -68,9 +69,31 @@ final class LinkContext {
     }
 
     LinkSpec spec(double[] taps, long top, double symbolTimeS, double backgroundPerS) {
+        return spec(taps, top, symbolTimeS, backgroundPerS, signalling().countModel());
+    }
+
+    LinkSpec spec(double[] taps, long top, double symbolTimeS, double backgroundPerS, CountModelKind model) {
         Signalling s = signalling();
-        return new LinkSpec(taps, levels(top), s.priorOne(), backgroundPerS * symbolTimeS, s.countModel(),
-                symbolTimeS);
+        return new LinkSpec(taps, levels(top), s.priorOne(), backgroundPerS * symbolTimeS, model, symbolTimeS);
+    }
+
+    /**
+     * The count model of the what-if searches (limited_by, advice, budget search): the moment-matched
+     * Gaussian when the scenario asks for the exact model, because a search evaluates a link dozens of
+     * times and exact convolution of dense crosstalk costs up to a second each. Reported links are
+     * always evaluated with the scenario's model, and a budget found this way is confirmed with it
+     * ({@link MoleculeBudgets}).
+     */
+    CountModelKind whatIfModel() {
+        CountModelKind k = signalling().countModel();
+        return k == CountModelKind.EXACT ? CountModelKind.GAUSSIAN : k;
+    }
+
+    /** Evaluation with the what-if model. */
+    LinkEvaluation whatIf(double[] taps, long top, double symbolTimeS, double backgroundPerS,
+            List<Crosstalk.Interferer> others) {
+        List<CountTerm> terms = Crosstalk.terms(others, exactCount);
+        return LinkEvaluator.evaluate(spec(taps, top, symbolTimeS, backgroundPerS, whatIfModel()), terms);
     }
 
     /** The link as laid out. */
@@ -91,26 +114,37 @@ final class LinkContext {
                 symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), Crosstalk.terms(interferers, exactCount));
     }
 
+    /** Capacity of the link as laid out, with the what-if model. */
+    double whatIfBaselineBits() {
+        return whatIf(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(),
+                scenario.medium().backgroundMoleculesPerS(), interferers).capacityBits();
+    }
+
     /** Capacity without ISI (earlier symbols leave nothing). */
     double capacityWithoutIsi() {
-        return evaluate(new double[] {entry.tap(0)}, emitter.moleculesPerSymbol(), symbolTimeS(),
+        return whatIf(new double[] {entry.tap(0)}, emitter.moleculesPerSymbol(), symbolTimeS(),
                 scenario.medium().backgroundMoleculesPerS(), interferers).capacityBits();
     }
 
     /** Capacity without crosstalk. */
     double capacityWithoutCrosstalk() {
-        return evaluate(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(),
+        return whatIf(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(),
                 scenario.medium().backgroundMoleculesPerS(), List.of()).capacityBits();
     }
 
     /** Capacity without background. */
     double capacityWithoutNoise() {
-        return evaluate(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(), 0, interferers).capacityBits();
+        return whatIf(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(), 0, interferers).capacityBits();
     }
 
-    /** Capacity with the emitter sending {@code top} molecules, the rest unchanged. */
-    LinkEvaluation withMolecules(long top) {
+    /** The link as laid out but with {@code top} molecules, evaluated with the scenario's model. */
+    LinkEvaluation withMoleculesExact(long top) {
         return evaluate(entry.taps(), top, symbolTimeS(), scenario.medium().backgroundMoleculesPerS(), interferers);
+    }
+
+    /** Capacity with the emitter sending {@code top} molecules, the rest unchanged (what-if model). */
+    LinkEvaluation withMolecules(long top) {
+        return whatIf(entry.taps(), top, symbolTimeS(), scenario.medium().backgroundMoleculesPerS(), interferers);
     }
 
     /** Own and every interferer's molecules scaled by {@code factor}. */
@@ -120,14 +154,14 @@ final class LinkContext {
             scaled.add(i.scaled(factor));
         }
         long top = Math.max(1, Math.round(emitter.moleculesPerSymbol() * factor));
-        return evaluate(entry.taps(), top, symbolTimeS(), scenario.medium().backgroundMoleculesPerS(), scaled);
+        return whatIf(entry.taps(), top, symbolTimeS(), scenario.medium().backgroundMoleculesPerS(), scaled);
     }
 
     /** Analytic only: the link with the emitter moved to centre distance {@code distanceUm}. */
     LinkEvaluation atDistance(double distanceUm) {
         double[] taps = AnalyticChannel.model(distanceUm, receiver.radiusUm(), species)
                 .taps(symbolTimeS(), signalling().isiMemorySymbols());
-        return evaluate(taps, emitter.moleculesPerSymbol(), symbolTimeS(), scenario.medium().backgroundMoleculesPerS(),
+        return whatIf(taps, emitter.moleculesPerSymbol(), symbolTimeS(), scenario.medium().backgroundMoleculesPerS(),
                 interferers);
     }
 
@@ -142,7 +176,7 @@ final class LinkContext {
             double[] it = AnalyticChannel.model(d, receiver.radiusUm(), species).taps(t, memory);
             others.add(new Crosstalk.Interferer(i.id(), it, i.levelMolecules(), i.weights()));
         }
-        return evaluate(taps, emitter.moleculesPerSymbol(), t, scenario.medium().backgroundMoleculesPerS(), others);
+        return whatIf(taps, emitter.moleculesPerSymbol(), t, scenario.medium().backgroundMoleculesPerS(), others);
     }
 
     double distance() {

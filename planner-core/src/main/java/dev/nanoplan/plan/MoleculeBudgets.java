@@ -15,8 +15,9 @@ import java.util.function.DoubleConsumer;
  *
  * <p><b>Per hop.</b> The smallest molecules per top level N such that the hop's minimum error
  * probability is at most {@code targets.max_error_probability}, with its interference fixed:
- * doubling from 1, then bisection (to 1 %), taking the error as non-increasing in N. A hop with no
- * such N below 2^24 (1.7e7) is unreachable ("ISI/background floor").
+ * doubling from 1, then bisection (to 1 %), taking the error as non-increasing in N; the search
+ * uses the what-if count model and the result is confirmed with the scenario's model. A hop with no
+ * such N below 2^20 (about 1.05e6, already a large release for one machine) is unreachable ("ISI/background floor").
  *
  * <p><b>Crosstalk grows with the budget.</b> In the all-active schedule every emitter would scale
  * its budget alike. When the hop has interferers and needs more than it has (scale s = N/N_now &gt; 1),
@@ -34,7 +35,7 @@ import java.util.function.DoubleConsumer;
  */
 final class MoleculeBudgets {
 
-    private static final long MAX_MOLECULES = 1L << 24;
+    private static final long MAX_MOLECULES = 1L << 20;
     private static final double MAX_JOINT_SCALE = 1 << 10;
 
     private MoleculeBudgets() {
@@ -118,14 +119,37 @@ final class MoleculeBudgets {
     record HopBudget(long molecules, String reason) {
     }
 
+    /**
+     * The search runs on the what-if model ({@link LinkContext#whatIfModel()}); the budget it finds is
+     * checked with the scenario's own model and raised in 10 % steps (at most 30) until that model
+     * meets the target too. Returns −1 when it never does below 2^20 molecules.
+     */
+    static long confirmWithScenarioModel(LinkContext ctx, double target, long found) {
+        if (ctx.whatIfModel() == ctx.signalling().countModel()) {
+            return found;
+        }
+        long n = found;
+        for (int i = 0; i < 30 && n <= MAX_MOLECULES; i++) {
+            if (ctx.withMoleculesExact(n).minErrorProbability() <= target) {
+                return n;
+            }
+            n = Math.max(n + 1, Math.round(n * 1.1));
+        }
+        return -1;
+    }
+
     static HopBudget hop(LinkContext ctx, double target) {
+        // one evaluation at the cap settles an error floor (ISI or background) before any search
+        if (ctx.withMolecules(MAX_MOLECULES).minErrorProbability() > target) {
+            return new HopBudget(-1, "error floor above the target even at 2^20 molecules (ISI or background)");
+        }
         long lo = 0;
         long hi = 1;
         while (ctx.withMolecules(hi).minErrorProbability() > target) {
             lo = hi;
             hi *= 2;
             if (hi > MAX_MOLECULES) {
-                return new HopBudget(-1, "error floor above the target even at 2^24 molecules (ISI or background)");
+                return new HopBudget(-1, "error floor above the target even at 2^20 molecules (ISI or background)");
             }
         }
         while (hi - lo > Math.max(1, lo / 100)) {
@@ -135,6 +159,10 @@ final class MoleculeBudgets {
             } else {
                 lo = mid;
             }
+        }
+        hi = confirmWithScenarioModel(ctx, target, hi);
+        if (hi < 0) {
+            return new HopBudget(-1, "error floor above the target even at 2^20 molecules (ISI or background)");
         }
         long now = ctx.emitter.moleculesPerSymbol();
         if (ctx.interferers.isEmpty() || hi <= now) {
@@ -147,7 +175,7 @@ final class MoleculeBudgets {
             loudest = Math.max(loudest, lv[lv.length - 1]);
         }
         if (s * loudest > MAX_MOLECULES) {
-            return new HopBudget(hi, " (with interference fixed; scaling every emitter alike exceeds 2^24 molecules"
+            return new HopBudget(hi, " (with interference fixed; scaling every emitter alike exceeds 2^20 molecules"
                     + " and was not checked)");
         }
         if (ctx.allScaled(s).minErrorProbability() <= target) {

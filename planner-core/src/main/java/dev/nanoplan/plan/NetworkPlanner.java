@@ -189,9 +189,11 @@ public final class NetworkPlanner {
         double c = ev.capacityBits();
         int m = ctx.signalling().levels();
         double maxBits = Math.log(m) / Math.log(2);
-        double gIsi = ev.isiMeanMolecules() > 0 ? ctx.capacityWithoutIsi() - c : 0;
-        double gXt = others.isEmpty() ? 0 : ctx.capacityWithoutCrosstalk() - c;
-        double gNoise = ev.backgroundMeanMolecules() > 0 ? ctx.capacityWithoutNoise() - c : 0;
+        // the what-ifs run on the what-if model: compare them with the same model's baseline
+        double cw = ctx.whatIfModel() == ctx.signalling().countModel() ? c : ctx.whatIfBaselineBits();
+        double gIsi = ev.isiMeanMolecules() > 0 ? ctx.capacityWithoutIsi() - cw : 0;
+        double gXt = others.isEmpty() ? 0 : ctx.capacityWithoutCrosstalk() - cw;
+        double gNoise = ev.backgroundMeanMolecules() > 0 ? ctx.capacityWithoutNoise() - cw : 0;
         Impairment limited = Impairment.SIGNAL;
         double best = HELPS_FRACTION * (maxBits - c);
         if (gIsi > best) {
