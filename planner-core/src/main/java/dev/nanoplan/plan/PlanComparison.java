@@ -102,8 +102,10 @@ public record PlanComparison(String nameA, String nameB, List<Row> rows) {
             sb.append(String.format(Locale.ROOT, "%-24s %-4s %s%n", demand, plan, "(no such demand)"));
             return;
         }
-        sb.append(String.format(Locale.ROOT, "%-24s %-4s %10.4f %10.4g %9.3g %5d %12.4g %s%n", demand, plan,
-                s.capacityBits(), s.rateBitsPerS(), s.latencyS(), s.hops(), s.moleculesPerBit(),
+        String perBit = Double.isFinite(s.moleculesPerBit()) ? String.format(Locale.ROOT, "%12.4g", s.moleculesPerBit())
+                : String.format(Locale.ROOT, "%12s", "-");
+        sb.append(String.format(Locale.ROOT, "%-24s %-4s %10.4f %10.4g %9.3g %5d %s %s%n", demand, plan,
+                s.capacityBits(), s.rateBitsPerS(), s.latencyS(), s.hops(), perBit,
                 s.bottleneck() == null ? "unreachable" : s.bottleneck() + " (" + s.bottleneckLimitedBy().id() + ")"));
     }
 }
