@@ -93,6 +93,7 @@ public final class PlannerViewModel {
     private final AtomicLong generation = new AtomicLong();
     private ScheduledFuture<?> pending;
     private volatile CompletableFuture<Plan> planned = new CompletableFuture<>();
+    private final Object planLock = new Object();
     private volatile long lastPlanNanos = -1;
 
     /**
@@ -153,12 +154,13 @@ public final class PlannerViewModel {
     public void load(Scenario s, Path from) {
         undo.clear();
         file.set(from);
-        setScenario(s);
-        dirty.set(false);
         selectedNodeId.set(null);
         selectedLink.set(null);
         selectedRoute.set(null);
+        // the message comes before the plan is scheduled, so a fast planning failure is not overwritten
         message.set(from == null ? "new layout" : "opened " + from.getFileName());
+        setScenario(s);
+        dirty.set(false);
     }
 
     /** Saves to the current file (atomic). False when there is no file yet or writing failed. */
@@ -387,14 +389,20 @@ public final class PlannerViewModel {
     }
 
     private void schedulePlan(Scenario s) {
-        long gen = generation.incrementAndGet();
+        long gen;
+        CompletableFuture<Plan> target;
+        // the generation and the future move together, and results are published under the same
+        // lock, so a plan of an older layout can never complete the future of a newer one
+        synchronized (planLock) {
+            gen = generation.incrementAndGet();
+            if (planned.isDone()) {
+                planned = new CompletableFuture<>();
+            }
+            target = planned;
+        }
         if (pending != null) {
             pending.cancel(true);
         }
-        if (planned.isDone()) {
-            planned = new CompletableFuture<>();
-        }
-        CompletableFuture<Plan> target = planned;
         busy.set(true);
         pending = background.schedule(() -> {
             if (Thread.currentThread().isInterrupted() || gen != generation.get()) {
@@ -405,19 +413,23 @@ public final class PlannerViewModel {
                 Plan p = service.plan(s);
                 long dt = System.nanoTime() - t0;
                 uiThread.execute(() -> {
-                    if (gen == generation.get()) {
-                        lastPlanNanos = dt;
-                        applyPlan(p);
-                        busy.set(false);
-                        target.complete(p);
+                    synchronized (planLock) {
+                        if (gen == generation.get()) {
+                            lastPlanNanos = dt;
+                            applyPlan(p);
+                            busy.set(false);
+                            target.complete(p);
+                        }
                     }
                 });
             } catch (RuntimeException | Error e) {
                 uiThread.execute(() -> {
-                    if (gen == generation.get()) {
-                        busy.set(false);
-                        message.set("planning failed: " + e.getMessage());
-                        target.completeExceptionally(e);
+                    synchronized (planLock) {
+                        if (gen == generation.get()) {
+                            busy.set(false);
+                            message.set("planning failed: " + e.getMessage());
+                            target.completeExceptionally(e);
+                        }
                     }
                 });
             }
