@@ -1,5 +1,6 @@
 package dev.nanoplan.sim;
 
+import dev.nanoplan.geometry.Volume;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.Species;
@@ -12,16 +13,30 @@ import java.util.Map;
  * Andrews, D. Bray, Phys. Biol. 1, 2004, who relate the step length to the smallest feature):
  * the root-mean-square 3-D step √(6DΔt) must be at most {@value #STEP_FRACTION} of the smallest
  * receiver radius and of the smallest emitter–receiver surface gap (D the largest diffusion
- * coefficient among emitted species), and Δt ≤ T/{@value #MIN_STEPS_PER_SYMBOL}. Whatever Δt is
+ * coefficient among emitted species), Δt ≤ T/{@value #MIN_STEPS_PER_SYMBOL}, and in a cylinder
+ * the per-axis step √(2DΔt) ≤ {@value #CURVED_WALL_FRACTION} R (where the radial mirroring of the
+ * curved wall is measured to bias the near-wall density by about 1 %, see {@link Motion}). Whatever Δt is
  * requested, it is then shortened to T/n with n = ⌈T/Δt⌉ so that slot boundaries fall on step
  * boundaries. Cost O(emitters × receivers).
+ *
+ * <p>Why {@value #STEP_FRACTION} and not the textbook 0.1: the Brownian-bridge crossing correction
+ * ({@link Absorbers}) removes most of the fixed-step under-count, so steps of 0.4 r are accurate
+ * enough and 16 times cheaper than 0.1 r. Measured (seeded runs of 10⁶ molecules, open medium,
+ * one sphere, cumulative F at T..4T against the closed form of S. Redner, <i>A Guide to
+ * First-Passage Processes</i>, 2001): d = 3 µm, r = 1 µm, D = 100 µm²/s, √(6DΔt) = 0.40 r:
+ * +0.3 % relative (standard error 0.2–0.4 %); d = 8 µm, r = 1.5 µm, D = 200 µm²/s,
+ * √(6DΔt) = 0.46 r: within −2.4 % ± 1.6 % at T and ±0.4 % ± 0.5 % at 2T..4T. Halving the
+ * automatic Δt changes F by less than 4 combined standard errors (tested for r = 1 µm). The
+ * remaining error of the curved cylinder wall's mirroring is O(Δt) (see {@link Motion}).
  */
 public final class TimeStepRule {
 
     /** √(6DΔt) ≤ this × the smallest radius and gap. */
-    public static final double STEP_FRACTION = 0.1;
+    public static final double STEP_FRACTION = 0.4;
+    /** Per-axis step √(2DΔt) ≤ this × the cylinder radius. */
+    public static final double CURVED_WALL_FRACTION = 0.1;
     /** At least this many steps per symbol time. */
-    public static final int MIN_STEPS_PER_SYMBOL = 100;
+    public static final int MIN_STEPS_PER_SYMBOL = 50;
 
     private TimeStepRule() {
     }
@@ -48,6 +63,10 @@ public final class TimeStepRule {
         if (maxD > 0 && minLength < Double.POSITIVE_INFINITY && minLength > 0) {
             double step = STEP_FRACTION * minLength;
             dt = Math.min(dt, step * step / (6 * maxD));
+        }
+        if (maxD > 0 && scenario.volume() instanceof Volume.Cylinder c) {
+            double step = CURVED_WALL_FRACTION * c.radiusUm();
+            dt = Math.min(dt, step * step / (2 * maxD));
         }
         return dt;
     }
