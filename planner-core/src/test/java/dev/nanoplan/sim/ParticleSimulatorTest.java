@@ -225,6 +225,11 @@ class ParticleSimulatorTest {
         // √(6DΔt) = 0.4 × min(r, d − r) = 0.4 µm
         assertThat(Math.sqrt(6 * 100 * TimeStepRule.automaticTimeStepS(longer)))
                 .isCloseTo(0.4, org.assertj.core.data.Offset.offset(1e-12));
+        Scenario drifting = Layouts.pair(new Volume.Open(), new dev.nanoplan.scenario.Flow.Uniform(new Vec3(300, 0, 400)),
+                10, 2, 100, Double.POSITIVE_INFINITY, 1, 0);
+        double dtDrift = TimeStepRule.automaticTimeStepS(drifting);
+        // diffusive rms step plus drift step |v|Δt (|v| = 500 µm/s) = 0.4 × min(r, d − r) = 0.8 µm
+        assertThat(Math.sqrt(6 * 100 * dtDrift) + 500 * dtDrift).isCloseTo(0.8, org.assertj.core.data.Offset.offset(1e-12));
         Scenario vessel = new Scenario("vessel", new Volume.Cylinder(5, 400), Medium.DEFAULT,
                 List.of(Species.stable("A", 100)), Layouts.signalling(1, 0),
                 List.of(Node.transmitter("tx", new Vec3(50, 0, 0), 0.5, "A", 1000),
