@@ -49,7 +49,10 @@ import java.util.Optional;
  */
 public final class ChannelCache {
 
-    /** Version word of the cached file format and of the key. */
+    /**
+     * Version word of the cached file format and of the key; change it whenever the simulator's
+     * model changes (old files then simply stop matching).
+     */
     public static final String FORMAT = "nanoplan-channel/1";
     /** Environment variable overriding the default directory. */
     public static final String ENV_DIR = "NANOPLAN_CACHE_DIR";
