@@ -83,6 +83,27 @@ class ParticleSimulatorTest {
     }
 
     @Test
+    void halvingTheAutomaticStepForASmallReceiverChangesHitFractionsByLessThanFourCombinedStandardErrors() {
+        // r = 1 µm, d = 3 µm, D = 100 µm²/s, T = 0.02 s: the automatic step is set by the radius
+        // rule, √(6DΔt) = STEP_FRACTION × 1 µm (T/50 = 4e-4 s is longer)
+        Scenario s = Layouts.openPair(3, 1, 100, 0.02, 2);
+        int m = 40_000;
+        SimulationSettings auto = SimulationSettings.of(m, 33);
+        double dt = new ParticleSimulator(auto).timeStepS(s);
+        assertThat(Math.sqrt(6 * 100 * dt)).isCloseTo(TimeStepRule.STEP_FRACTION, org.assertj.core.data.Offset.offset(0.01));
+        SimulatedTaps a = ParticleSimulator.simulate(s, auto).taps("tx", "rx").orElseThrow();
+        SimulatedTaps b = ParticleSimulator.simulate(s, new SimulationSettings(m, 34,
+                java.util.OptionalDouble.of(dt / 2), 2)).taps("tx", "rx").orElseThrow();
+        double[] ca = Layouts.cumulative(a);
+        double[] cb = Layouts.cumulative(b);
+        for (int k = 0; k < ca.length; k++) {
+            double se = Math.sqrt(ca[k] * (1 - ca[k]) / m + cb[k] * (1 - cb[k]) / m);
+            // stated tolerance: |F_Δt − F_Δt/2| < 4 combined s.e. (independent seeds; false failure ~6e-5 per check)
+            assertThat(Math.abs(ca[k] - cb[k])).as("slot %d", k).isLessThan(4 * se);
+        }
+    }
+
+    @Test
     void otherSpeciesAndARelaysOwnReleasesPassThrough() {
         List<Node> nodes = List.of(
                 Node.transmitter("tx", Vec3.ZERO, 1, "A", 100),
@@ -198,8 +219,24 @@ class ParticleSimulatorTest {
     void automaticStepFollowsTheGeometryRuleAndAlignsWithTheSymbolTime() {
         Scenario s = Layouts.openPair(3, 1, 100, 0.01, 0);
         double auto = TimeStepRule.automaticTimeStepS(s);
-        // √(6DΔt) = 0.1 × min(r, d − r) = 0.1 µm
-        assertThat(Math.sqrt(6 * 100 * auto)).isCloseTo(0.1, org.assertj.core.data.Offset.offset(1e-12));
+        // T/50 = 2e-4 s is below the geometric bound (0.4 µm)²/(6D) = 2.67e-4 s
+        assertThat(auto).isCloseTo(0.01 / 50, org.assertj.core.data.Offset.offset(1e-15));
+        Scenario longer = Layouts.openPair(3, 1, 100, 0.05, 0);
+        // √(6DΔt) = 0.4 × min(r, d − r) = 0.4 µm
+        assertThat(Math.sqrt(6 * 100 * TimeStepRule.automaticTimeStepS(longer)))
+                .isCloseTo(0.4, org.assertj.core.data.Offset.offset(1e-12));
+        Scenario drifting = Layouts.pair(new Volume.Open(), new dev.nanoplan.scenario.Flow.Uniform(new Vec3(300, 0, 400)),
+                10, 2, 100, Double.POSITIVE_INFINITY, 1, 0);
+        double dtDrift = TimeStepRule.automaticTimeStepS(drifting);
+        // diffusive rms step plus drift step |v|Δt (|v| = 500 µm/s) = 0.4 × min(r, d − r) = 0.8 µm
+        assertThat(Math.sqrt(6 * 100 * dtDrift) + 500 * dtDrift).isCloseTo(0.8, org.assertj.core.data.Offset.offset(1e-12));
+        Scenario vessel = new Scenario("vessel", new Volume.Cylinder(5, 400), Medium.DEFAULT,
+                List.of(Species.stable("A", 100)), Layouts.signalling(1, 0),
+                List.of(Node.transmitter("tx", new Vec3(50, 0, 0), 0.5, "A", 1000),
+                        Node.receiver("rx", new Vec3(150, 0, 0), 3, "A")), List.of(), Targets.DEFAULT);
+        // per-axis step √(2DΔt) = 0.1 R = 0.5 µm in a cylinder of radius 5 µm
+        assertThat(Math.sqrt(2 * 100 * TimeStepRule.automaticTimeStepS(vessel)))
+                .isCloseTo(0.5, org.assertj.core.data.Offset.offset(1e-12));
         double used = new ParticleSimulator(SimulationSettings.of(1, 1)).timeStepS(s);
         assertThat(used).isLessThanOrEqualTo(auto);
         double ratio = 0.01 / used;

@@ -20,9 +20,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
-import java.util.concurrent.CountDownLatch;
-import java.util.concurrent.TimeUnit;
-import java.util.concurrent.atomic.AtomicBoolean;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -45,7 +42,7 @@ public final class SimulateCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "SCENARIO", description = "Scenario file (JSON, nanoplan/1).")
     Path scenarioFile;
 
-    @Option(names = "--molecules-per-emitter", defaultValue = "100000",
+    @Option(names = "--molecules-per-emitter", defaultValue = "" + SimulationSettings.DEFAULT_MOLECULES_PER_EMITTER,
             description = "Molecules released by each emitter, default ${DEFAULT-VALUE}.")
     long moleculesPerEmitter;
 
@@ -92,24 +89,8 @@ public final class SimulateCommand implements Callable<Integer> {
 
         PrintWriter err = spec.commandLine().getErr();
         boolean showProgress = progress || System.console() != null;
-        ProgressBar bar = showProgress ? new ProgressBar(err) : null;
-        AtomicBoolean cancelled = new AtomicBoolean();
-        CountDownLatch reported = new CountDownLatch(1);
-        Thread hook = new Thread(() -> {
-            cancelled.set(true);
-            try {
-                reported.await(30, TimeUnit.SECONDS);
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-            }
-        }, "nanoplan-simulate-stop");
-        Runtime.getRuntime().addShutdownHook(hook);
-        try {
-            SimulatedChannel channel = simulator.simulate(scenario,
-                    bar == null ? SimulationProgress.NONE : bar, cancelled::get);
-            if (bar != null) {
-                bar.finish();
-            }
+        try (SimulationRun run = new SimulationRun()) {
+            SimulatedChannel channel = run.simulate(simulator, scenario, err, showProgress);
             if (!channel.complete()) {
                 err.println("nanoplan: simulation stopped; reporting the " + channel.moleculesSimulated()
                         + " molecules that finished");
@@ -124,13 +105,6 @@ public final class SimulateCommand implements Callable<Integer> {
             }
             out.flush();
             return 0;
-        } finally {
-            reported.countDown();
-            try {
-                Runtime.getRuntime().removeShutdownHook(hook);
-            } catch (IllegalStateException shuttingDown) {
-                // the JVM is already stopping: the hook is running and waits for the report above
-            }
         }
     }
 
