@@ -80,7 +80,8 @@ class PlannerViewModelTest {
     void inspectorEditChangesRoleRadiusAndMolecules() throws Exception {
         opened();
         vm.selectedNodeIdProperty().set("s03");
-        assertThat(vm.inspector().xUmProperty().get()).isEqualTo("77.6");
+        // s03 sits at x = 150 µm in scenarios/culture-tank.json (beside relay-w)
+        assertThat(vm.inspector().xUmProperty().get()).isEqualTo("150");
         vm.inspector().radiusUmProperty().set("3.5");
         vm.inspector().moleculesPerSymbolProperty().set("12345");
         assertThat(vm.applyInspector()).isTrue();
@@ -248,7 +249,7 @@ class PlannerViewModelTest {
         DemandComparison row = vm.comparison().stream().filter(r -> r.from().equals("s01")).findFirst().orElseThrow();
         assertThat(row.baselineCapacity()).isEqualTo(kept);
         assertThat(row.capacity()).isEqualTo(vm.findLink("s01", "gw").capacityBits());
-        // s01 releases 4000 molecules for a "1" at prior 0.5 (culture-tank.json): 2000 per symbol on average
-        assertThat(row.molPerBit()).isCloseTo(2000 / row.capacity(), org.assertj.core.data.Offset.offset(1e-9));
+        // s01 releases 4000 molecules for a "1" at prior_one 0.05 (culture-tank.json): 200 per symbol on average
+        assertThat(row.molPerBit()).isCloseTo(4000 * 0.05 / row.capacity(), org.assertj.core.data.Offset.offset(1e-9));
     }
 }
