@@ -10,13 +10,9 @@ import dev.nanoplan.geometry.Volume;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
-import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.AtomicMoveNotSupportedException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
-import java.nio.file.StandardOpenOption;
 
 /**
  * Writes a {@link Scenario} in the {@value Scenario#FORMAT} file format, pretty-printed with the
@@ -44,24 +40,7 @@ public final class ScenarioWriter {
      * @throws IOException if the temporary file cannot be written or moved (the target is untouched)
      */
     public static void write(Scenario scenario, Path file) throws IOException {
-        Path target = file.toAbsolutePath();
-        Path dir = target.getParent();
-        Path tmp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
-        try {
-            try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING);
-                    OutputStream out = java.nio.channels.Channels.newOutputStream(ch)) {
-                write(scenario, out);
-                out.flush();
-                ch.force(true);
-            }
-            try {
-                Files.move(tmp, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
-            } catch (AtomicMoveNotSupportedException e) {
-                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
-            }
-        } finally {
-            Files.deleteIfExists(tmp);
-        }
+        dev.nanoplan.report.AtomicFiles.write(file, out -> write(scenario, out));
     }
 
     /** The file text (UTF-8 JSON, ending with a newline). */

@@ -2,9 +2,7 @@ package dev.nanoplan.desktop;
 
 import java.awt.image.BufferedImage;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import javafx.scene.image.Image;
 import javafx.scene.image.PixelReader;
 import javax.imageio.ImageIO;
@@ -31,19 +29,11 @@ public final class Snapshots {
 
     /** Writes {@code img} to {@code file} as PNG. */
     public static void writePng(Image img, Path file) throws IOException {
-        Path abs = file.toAbsolutePath();
-        Path dir = abs.getParent();
-        if (dir != null) {
-            Files.createDirectories(dir);
-        }
-        Path tmp = Files.createTempFile(dir, ".nanoplan-", ".png.tmp");
-        try {
-            if (!ImageIO.write(toBuffered(img), "png", tmp.toFile())) {
+        java.awt.image.BufferedImage buffered = toBuffered(img);
+        dev.nanoplan.report.AtomicFiles.write(file, out -> {
+            if (!ImageIO.write(buffered, "png", out)) {
                 throw new IOException("no PNG writer available");
             }
-            Files.move(tmp, abs, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-        } finally {
-            Files.deleteIfExists(tmp);
-        }
+        });
     }
 }
