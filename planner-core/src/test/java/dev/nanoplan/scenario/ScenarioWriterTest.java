@@ -87,10 +87,13 @@ class ScenarioWriterTest {
 
     @Test
     void failedWriteLeavesTheTargetUntouched(@TempDir Path dir) throws IOException {
-        Path target = dir.resolve("missing-dir").resolve("layout.json");
+        // the parent "folder" is a plain file: the temporary file cannot be created
+        Path blocker = java.nio.file.Files.writeString(dir.resolve("not-a-dir"), "x");
+        Path target = blocker.resolve("layout.json");
 
         assertThrows(IOException.class, () -> ScenarioWriter.write(SwarmGenerator.generate(5, 1), target));
 
-        assertThat(target).doesNotExist();
+        assertThat(java.nio.file.Files.isRegularFile(target)).isFalse();
+        assertThat(java.nio.file.Files.readString(blocker)).isEqualTo("x");
     }
 }
