@@ -152,6 +152,7 @@ public final class NetworkPlanner {
             all.add(new Crosstalk.Interferer(tx.id(), e.taps(), levelsOf(scenario.signalling(),
                     tx.moleculesPerSymbol()), weights));
         }
+        ReceiverCrosstalk shared = new ReceiverCrosstalk(new Crosstalk.Prepared(all), options.exactInterferers());
         for (int i = 0; i < entries.size(); i++) {
             ChannelEntry e = entries.get(i);
             Node tx = nodes.get(e.emitter());
@@ -167,7 +168,9 @@ public final class NetworkPlanner {
             }
             List<Crosstalk.Interferer> others = new ArrayList<>(all);
             others.remove(i);
-            LinkContext ctx = new LinkContext(scenario, tx, rx, sp, e, others, options.exactInterferers());
+            int rank = shared.prepared().rankOf(i);
+            LinkContext ctx = new LinkContext(scenario, tx, rx, sp, e, others, options.exactInterferers(),
+                    shared.termsWithout(rank), shared, rank);
             if (ctx.screenBits() * dev.nanoplan.network.GaussianScreen.SAFETY_FACTOR < options.capacityFloorBits()) {
                 continue;
             }
@@ -178,6 +181,7 @@ public final class NetworkPlanner {
             }
             out.add(report(ctx, ev, others));
         }
+        shared.release();
         return out;
     }
 
