@@ -115,11 +115,13 @@ public final class ExactCountModel implements CountModel {
     public List<CountPmf> pmfs(CountPmf given, CountLaw shared, List<CountLaw> own) {
         double third = truncationMass / 3;
         ExactCountModel part = new ExactCountModel(third);
-        Window s = merge(part.window(shared), windowOf(given)).trimMore(third / 4);
+        // the given pmf is usually the widest part: merge it last, once per level
+        Window s = part.window(shared);
+        Window g = windowOf(given);
         List<CountPmf> out = new ArrayList<>(own.size());
         for (CountLaw o : own) {
-            Window w = part.window(o);
-            out.add(merge(w, s).trimMore(third / 4).toPmf());
+            Window w = merge(part.window(o), s).trimMore(third / 4);
+            out.add(merge(w, g).trimMore(third / 4).toPmf());
         }
         return out;
     }

@@ -65,6 +65,19 @@ public final class LinkEvaluator {
      * @param interferencePmf exact pmf of the sum of {@code interference}, or null to build it here
      */
     public static LinkEvaluation evaluate(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf) {
+        return evaluate(spec, interference, interferencePmf, interference.size());
+    }
+
+    /**
+     * As {@link #evaluate(LinkSpec, List, CountPmf)} with {@code interferencePmf} the exact pmf of
+     * the sum of the first {@code covered} interference terms only; the others are convolved here
+     * with the link's own terms (cheap when they are narrow, e.g. a moment-matched remainder).
+     */
+    public static LinkEvaluation evaluate(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf,
+            int covered) {
+        if (covered < 0 || covered > interference.size()) {
+            throw new IllegalArgumentException("covered: must be in 0.." + interference.size() + ", got " + covered);
+        }
         CountModel model = CountModels.of(spec.countModel());
         int m = spec.levels();
         List<CountLaw> laws = new ArrayList<>(m);
@@ -76,7 +89,7 @@ public final class LinkEvaluator {
             own.add(CountLaw.of(new BinomialTerm(spec.molecules(i), spec.tap(0))));
         }
         List<CountPmf> pmfs = interferencePmf != null && model instanceof ExactCountModel exact
-                ? exact.pmfs(interferencePmf, sharedLaw(spec, List.of()), own)
+                ? exact.pmfs(interferencePmf, sharedLaw(spec, interference.subList(covered, interference.size())), own)
                 : model.pmfs(sharedLaw(spec, interference), own);
         double truncated = 0;
         for (CountPmf p : pmfs) {

@@ -116,12 +116,16 @@ final class LinkContext {
             List<Crosstalk.Interferer> others) {
         List<CountTerm> t = others == interferers ? terms : Crosstalk.terms(others, exactCount);
         LinkSpec spec = spec(taps, top, symbolTimeS, backgroundPerS, whatIfModel());
-        return LinkEvaluator.evaluate(spec, t, others == interferers ? sharedPmf(spec) : null);
+        return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluate(spec, t);
     }
 
-    /** The receiver's shared crosstalk pmf for this link, when the spec uses the exact model. */
-    private dev.nanoplan.count.CountPmf sharedPmf(LinkSpec spec) {
-        return shared != null && spec.countModel() == CountModelKind.EXACT ? shared.pmfWithout(rank) : null;
+    /** With the exact model, the receiver's shared crosstalk pmf for this link ({@link ReceiverCrosstalk}). */
+    private LinkEvaluation evaluateShared(LinkSpec spec) {
+        if (shared == null || spec.countModel() != CountModelKind.EXACT) {
+            return LinkEvaluator.evaluate(spec, terms);
+        }
+        int covered = terms.size() - (shared.hasRemainder(rank) ? 1 : 0);
+        return LinkEvaluator.evaluate(spec, terms, shared.pmfWithout(rank), covered);
     }
 
     /** The link as laid out. */
@@ -134,7 +138,7 @@ final class LinkContext {
             List<Crosstalk.Interferer> others) {
         List<CountTerm> t = others == interferers ? terms : Crosstalk.terms(others, exactCount);
         LinkSpec spec = spec(taps, top, symbolTimeS, backgroundPerS);
-        return LinkEvaluator.evaluate(spec, t, others == interferers ? sharedPmf(spec) : null);
+        return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluate(spec, t);
     }
 
     /** Gaussian estimate of the link as laid out ({@link dev.nanoplan.network.GaussianScreen}). */

@@ -15,8 +15,8 @@ import java.util.List;
  * ({@link Crosstalk}). With T = the K + 1 strongest emitters, the exact set is T without e when e is in
  * T, and the K strongest otherwise. So the exact pmfs I_r of the emitters in T are built once, with
  * prefix convolutions P_j = I_0 ⊗ … ⊗ I_{j−1} and suffix convolutions S_j = I_j ⊗ … ⊗ I_K; the
- * crosstalk pmf of a link is then P_e ⊗ S_{e+1} (e in T) or P_K, convolved with its remainder term:
- * two convolutions per link instead of about K·(L + 1) (the usual prefix/suffix-product trick for
+ * pmf of a link's exactly treated crosstalk is then P_e ⊗ S_{e+1} (e in T) or P_K; its moment-matched
+ * remainder is convolved with the link's own (narrow) terms: one wide convolution per link instead of about K·(L + 1) (the usual prefix/suffix-product trick for
  * "all but one" aggregates).
  *
  * <p><b>Accuracy.</b> Same law as convolving the link's terms one by one; the pmf differs only by
@@ -55,7 +55,11 @@ final class ReceiverCrosstalk {
         return prepared.termsWithout(rank, exactCount);
     }
 
-    /** Exact pmf of the crosstalk heard by the link from the emitter of rank {@code rank}. */
+    /**
+     * Exact pmf of the exactly treated part of the crosstalk heard by the link from the emitter of
+     * rank {@code rank}: the sum of all terms of {@link #termsWithout(int)} but the moment-matched
+     * remainder (the last term, when {@link #hasRemainder(int)}).
+     */
     synchronized CountPmf pmfWithout(int rank) {
         CountPmf base;
         if (rank >= 0 && rank < top) {
@@ -65,12 +69,12 @@ final class ReceiverCrosstalk {
         } else {
             base = prefix(Math.min(exactCount, top));
         }
-        CountTerm rest = prepared.remainderWithout(rank, exactCount);
-        if (rest != null) {
-            CountPmf r = MODEL.pmf(CountLaw.of(rest));
-            base = base == POINT ? r : MODEL.convolve(base, r);
-        }
         return base;
+    }
+
+    /** Whether {@link #termsWithout(int)} ends with a moment-matched remainder term. */
+    boolean hasRemainder(int rank) {
+        return prepared.remainderWithout(rank, exactCount) != null;
     }
 
     /** Drops the cached convolutions (they are rebuilt on demand). */
