@@ -34,7 +34,7 @@ final class LinkContext {
     /** Crosstalk terms of the link as laid out ({@link Crosstalk#terms(List, int)} of the interferers). */
     final List<CountTerm> terms;
     /** The receiver's shared crosstalk, or null (then built per evaluation). */
-    private final ReceiverCrosstalk shared;
+    private volatile ReceiverCrosstalk shared;
     /** Rank of this link's emitter among the emitters heard at the receiver ({@link Crosstalk.Prepared}). */
     private final int rank;
 
@@ -119,13 +119,23 @@ final class LinkContext {
         return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluate(spec, t);
     }
 
+    /**
+     * Forgets the receiver's shared crosstalk (it holds every emitter's terms, O(m·L) objects per
+     * receiver); later exact evaluations convolve this link's own {@link #terms} instead. Called once
+     * the receiver's links are evaluated, so that a large plan keeps O(K·L) terms per kept link.
+     */
+    void detachShared() {
+        shared = null;
+    }
+
     /** With the exact model, the receiver's shared crosstalk pmf for this link ({@link ReceiverCrosstalk}). */
     private LinkEvaluation evaluateShared(LinkSpec spec) {
-        if (shared == null || spec.countModel() != CountModelKind.EXACT) {
+        ReceiverCrosstalk rc = shared;
+        if (rc == null || spec.countModel() != CountModelKind.EXACT) {
             return LinkEvaluator.evaluate(spec, terms);
         }
-        int covered = terms.size() - (shared.hasRemainder(rank) ? 1 : 0);
-        return LinkEvaluator.evaluate(spec, terms, shared.pmfWithout(rank), covered);
+        int covered = terms.size() - (rc.hasRemainder(rank) ? 1 : 0);
+        return LinkEvaluator.evaluate(spec, terms, rc.pmfWithout(rank), covered);
     }
 
     /** The link as laid out. */

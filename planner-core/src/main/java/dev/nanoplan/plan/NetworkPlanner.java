@@ -187,6 +187,9 @@ public final class NetworkPlanner {
             out.add(report(ctx, ev, others));
         }
         shared.release();
+        for (Evaluated e : out) {
+            e.context().detachShared();
+        }
         return out;
     }
 
