@@ -95,6 +95,41 @@ public final class ExactCountModel implements CountModel {
         return out;
     }
 
+    /**
+     * Law of the sum of two independent counts given as pmfs (FFT or direct convolution, see the
+     * class comment), trimmed from each end by less than {@link #truncationMass()}/4 more; the
+     * dropped masses of both inputs are carried over. Lets a caller build a pmf once and reuse it in
+     * many sums (e.g. the crosstalk shared by every link at one receiver).
+     */
+    public CountPmf convolve(CountPmf a, CountPmf b) {
+        return merge(windowOf(a), windowOf(b)).trimMore(truncationMass / 4).toPmf();
+    }
+
+    /**
+     * As {@link #pmfs(CountLaw, List)}, with one more independent summand in the shared part that
+     * is already a pmf ({@code given}, e.g. the crosstalk at a receiver built once by
+     * {@link #convolve}). The result differs from putting {@code given}'s terms into
+     * {@code shared} only by truncation and rounding: the dropped mass of {@code given} is carried
+     * over, and this call drops less than {@link #truncationMass()} more.
+     */
+    public List<CountPmf> pmfs(CountPmf given, CountLaw shared, List<CountLaw> own) {
+        double third = truncationMass / 3;
+        ExactCountModel part = new ExactCountModel(third);
+        // the given pmf is usually the widest part: merge it last, once per level
+        Window s = part.window(shared);
+        Window g = windowOf(given);
+        List<CountPmf> out = new ArrayList<>(own.size());
+        for (CountLaw o : own) {
+            Window w = merge(part.window(o), s).trimMore(third / 4);
+            out.add(merge(w, g).trimMore(third / 4).toPmf());
+        }
+        return out;
+    }
+
+    private static Window windowOf(CountPmf p) {
+        return new Window(p.offset(), p.masses(), p.massBelow(), p.massAbove());
+    }
+
     Window window(CountLaw law) {
         List<CountTerm> terms = law.terms();
         int m = terms.size();

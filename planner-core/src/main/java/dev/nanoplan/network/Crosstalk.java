@@ -117,6 +117,149 @@ public final class Crosstalk {
         return out;
     }
 
+    /**
+     * Every emitter heard at one receiver, prepared once so that the crosstalk of each of its links
+     * (all emitters but the link's own) costs O(m) additions instead of a sort and O(m·L) new terms.
+     *
+     * <p>{@link #termsWithout(int, int)} returns a list equal term by term, and bitwise in every
+     * parameter, to {@link Crosstalk#terms(List, int)} applied to the emitters without the excluded
+     * one: the order (mean per slot, ties by id) and the summation order of the remainder's moments
+     * are the same. Built in O(m log m + m·L); thread-safe once built (immutable).
+     */
+    public static final class Prepared {
+
+        private final List<Interferer> sorted;
+        private final int[] rankOfInput;
+        private final List<List<CountTerm>> termsOf;
+        private final double[][] termMean;
+        private final double[][] termVar;
+
+        /** @param emitters every emitter heard at the receiver (ids distinct) */
+        public Prepared(List<Interferer> emitters) {
+            List<Integer> idx = new ArrayList<>(emitters.size());
+            for (int i = 0; i < emitters.size(); i++) {
+                idx.add(i);
+            }
+            double[] mean = new double[emitters.size()];
+            for (int i = 0; i < mean.length; i++) {
+                mean[i] = emitters.get(i).meanPerSlot();
+            }
+            Comparator<Integer> byMean = Comparator.comparingDouble((Integer i) -> mean[i]).reversed();
+            idx.sort(byMean.thenComparing(i -> emitters.get(i).id()));
+            List<Interferer> s = new ArrayList<>(emitters.size());
+            rankOfInput = new int[emitters.size()];
+            termsOf = new ArrayList<>(emitters.size());
+            termMean = new double[emitters.size()][];
+            termVar = new double[emitters.size()][];
+            for (int r = 0; r < idx.size(); r++) {
+                Interferer in = emitters.get(idx.get(r));
+                s.add(in);
+                rankOfInput[idx.get(r)] = r;
+                List<CountTerm> t = in.terms();
+                termsOf.add(t);
+                termMean[r] = new double[t.size()];
+                termVar[r] = new double[t.size()];
+                for (int k = 0; k < t.size(); k++) {
+                    termMean[r][k] = t.get(k).mean();
+                    termVar[r][k] = t.get(k).variance();
+                }
+            }
+            sorted = List.copyOf(s);
+        }
+
+        /** Number of emitters. */
+        public int size() {
+            return sorted.size();
+        }
+
+        /** Emitters strongest first (mean per slot, ties by id). */
+        public List<Interferer> strongestFirst() {
+            return sorted;
+        }
+
+        /** Rank (0 = strongest) of the emitter at {@code inputIndex} in the list given to the constructor. */
+        public int rankOf(int inputIndex) {
+            return rankOfInput[inputIndex];
+        }
+
+        /** The terms of the emitter of rank {@code rank} ({@link Interferer#terms()}), shared, unmodifiable. */
+        public List<CountTerm> termsOfRank(int rank) {
+            return termsOf.get(rank);
+        }
+
+        /** Ranks of the {@code exactCount} strongest emitters other than {@code excludedRank}. */
+        public int[] exactRanks(int excludedRank, int exactCount) {
+            int n = Math.min(exactCount, sorted.size() - (excludedRank >= 0 && excludedRank < sorted.size() ? 1 : 0));
+            int[] out = new int[Math.max(0, n)];
+            int j = 0;
+            for (int r = 0; r < sorted.size() && j < out.length; r++) {
+                if (r != excludedRank) {
+                    out[j++] = r;
+                }
+            }
+            return out;
+        }
+
+        /**
+         * The moment-matched remainder ({@link Crosstalk#momentMatched(List)}) of every emitter other
+         * than {@code excludedRank} and the {@code exactCount} strongest of the others; null when
+         * there is none or it is silent.
+         */
+        public CountTerm remainderWithout(int excludedRank, int exactCount) {
+            int others = sorted.size() - (excludedRank >= 0 && excludedRank < sorted.size() ? 1 : 0);
+            if (others <= exactCount) {
+                return null;
+            }
+            double mean = 0;
+            double var = 0;
+            int seen = 0;
+            for (int r = 0; r < sorted.size(); r++) {
+                if (r == excludedRank) {
+                    continue;
+                }
+                if (seen++ < exactCount) {
+                    continue;
+                }
+                double[] m = termMean[r];
+                double[] v = termVar[r];
+                for (int k = 0; k < m.length; k++) {
+                    mean += m[k];
+                    var += v[k];
+                }
+            }
+            return momentMatched(mean, var);
+        }
+
+        /**
+         * Same as {@link Crosstalk#terms(List, int)} for every emitter but the one of rank
+         * {@code excludedRank} (−1: none excluded). O(m + exactCount·L).
+         */
+        public List<CountTerm> termsWithout(int excludedRank, int exactCount) {
+            if (exactCount < 0) {
+                throw new IllegalArgumentException("exactCount: must be >= 0, got " + exactCount);
+            }
+            List<CountTerm> out = new ArrayList<>();
+            int others = sorted.size() - (excludedRank >= 0 && excludedRank < sorted.size() ? 1 : 0);
+            if (others <= exactCount) {
+                // Crosstalk.terms keeps the caller's order here, not the sorted one
+                for (int i = 0; i < rankOfInput.length; i++) {
+                    if (rankOfInput[i] != excludedRank) {
+                        out.addAll(termsOf.get(rankOfInput[i]));
+                    }
+                }
+                return out;
+            }
+            for (int r : exactRanks(excludedRank, exactCount)) {
+                out.addAll(termsOf.get(r));
+            }
+            CountTerm rest = remainderWithout(excludedRank, exactCount);
+            if (rest != null) {
+                out.add(rest);
+            }
+            return out;
+        }
+    }
+
     /** Interferers sorted by mean per slot, largest first (ties by id). */
     public static List<Interferer> strongestFirst(List<Interferer> interferers) {
         List<Interferer> sorted = new ArrayList<>(interferers);
@@ -137,6 +280,11 @@ public final class Crosstalk {
                 var += t.variance();
             }
         }
+        return momentMatched(mean, var);
+    }
+
+    /** The moment-matched term for a total mean and variance (see {@link #momentMatched(List)}). */
+    static CountTerm momentMatched(double mean, double var) {
         if (!(mean > 0)) {
             return null;
         }

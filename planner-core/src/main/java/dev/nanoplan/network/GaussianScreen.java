@@ -42,6 +42,11 @@ public final class GaussianScreen {
             double tau = lo + (hi - lo) * i / THRESHOLDS;
             double e0 = 0.5 * Erfc.value((tau - 0.5 - m0) / (s0 * Math.sqrt(2)));
             double e1 = 0.5 * Erfc.value(-(tau - 0.5 - m1) / (s1 * Math.sqrt(2)));
+            // a binary-input channel's capacity is at most the total variation |1 − e0 − e1| bits
+            // (degraded erasure channel; Cover and Thomas 2006, Theorem 2.8.1): skip what cannot win
+            if (Math.abs(1 - e0 - e1) <= best) {
+                continue;
+            }
             best = Math.max(best, BinaryChannel.capacity(e0, e1).bits());
         }
         return best;

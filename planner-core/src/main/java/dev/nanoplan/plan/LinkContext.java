@@ -31,8 +31,30 @@ final class LinkContext {
     final int exactCount;
     final boolean analytic;
 
+    /** Crosstalk terms of the link as laid out ({@link Crosstalk#terms(List, int)} of the interferers). */
+    final List<CountTerm> terms;
+    /** The receiver's shared crosstalk, or null (then built per evaluation). */
+    private volatile ReceiverCrosstalk shared;
+    /** Rank of this link's emitter among the emitters heard at the receiver ({@link Crosstalk.Prepared}). */
+    private final int rank;
+
     LinkContext(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry,
             List<Crosstalk.Interferer> interferers, int exactCount) {
+        this(scenario, emitter, receiver, species, entry, interferers, exactCount,
+                Crosstalk.terms(interferers, exactCount), null, -1);
+    }
+
+    /**
+     * @param terms  must equal {@code Crosstalk.terms(interferers, exactCount)}
+     * @param shared the receiver's crosstalk, whose emitters are {@code interferers} plus this
+     *               link's emitter of rank {@code rank}; or null
+     */
+    LinkContext(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry,
+            List<Crosstalk.Interferer> interferers, int exactCount, List<CountTerm> terms, ReceiverCrosstalk shared,
+            int rank) {
+        this.terms = terms;
+        this.shared = shared;
+        this.rank = rank;
         this.scenario = scenario;
         this.emitter = emitter;
         this.receiver = receiver;
@@ -92,8 +114,28 @@ final class LinkContext {
     /** Evaluation with the what-if model. */
     LinkEvaluation whatIf(double[] taps, long top, double symbolTimeS, double backgroundPerS,
             List<Crosstalk.Interferer> others) {
-        List<CountTerm> terms = Crosstalk.terms(others, exactCount);
-        return LinkEvaluator.evaluate(spec(taps, top, symbolTimeS, backgroundPerS, whatIfModel()), terms);
+        List<CountTerm> t = others == interferers ? terms : Crosstalk.terms(others, exactCount);
+        LinkSpec spec = spec(taps, top, symbolTimeS, backgroundPerS, whatIfModel());
+        return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluate(spec, t);
+    }
+
+    /**
+     * Forgets the receiver's shared crosstalk (it holds every emitter's terms, O(m·L) objects per
+     * receiver); later exact evaluations convolve this link's own {@link #terms} instead. Called once
+     * the receiver's links are evaluated, so that a large plan keeps O(K·L) terms per kept link.
+     */
+    void detachShared() {
+        shared = null;
+    }
+
+    /** With the exact model, the receiver's shared crosstalk pmf for this link ({@link ReceiverCrosstalk}). */
+    private LinkEvaluation evaluateShared(LinkSpec spec) {
+        ReceiverCrosstalk rc = shared;
+        if (rc == null || spec.countModel() != CountModelKind.EXACT) {
+            return LinkEvaluator.evaluate(spec, terms);
+        }
+        int covered = terms.size() - (rc.hasRemainder(rank) ? 1 : 0);
+        return LinkEvaluator.evaluate(spec, terms, rc.pmfWithout(rank), covered);
     }
 
     /** The link as laid out. */
@@ -104,14 +146,15 @@ final class LinkContext {
 
     LinkEvaluation evaluate(double[] taps, long top, double symbolTimeS, double backgroundPerS,
             List<Crosstalk.Interferer> others) {
-        List<CountTerm> terms = Crosstalk.terms(others, exactCount);
-        return LinkEvaluator.evaluate(spec(taps, top, symbolTimeS, backgroundPerS), terms);
+        List<CountTerm> t = others == interferers ? terms : Crosstalk.terms(others, exactCount);
+        LinkSpec spec = spec(taps, top, symbolTimeS, backgroundPerS);
+        return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluate(spec, t);
     }
 
     /** Gaussian estimate of the link as laid out ({@link dev.nanoplan.network.GaussianScreen}). */
     double screenBits() {
         return dev.nanoplan.network.GaussianScreen.estimateBits(spec(entry.taps(), emitter.moleculesPerSymbol(),
-                symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), Crosstalk.terms(interferers, exactCount));
+                symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), terms);
     }
 
     /** Capacity of the link as laid out, with the what-if model. */

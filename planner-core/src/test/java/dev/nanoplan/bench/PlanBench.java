@@ -18,7 +18,9 @@ import org.openjdk.jmh.annotations.State;
 /**
  * Whole-plan timings on generated swarms (SwarmGenerator, seed 1). JMH, e.g.
  * {@code java -Xmx2g -cp target/test-classes:target/classes:<deps> org.openjdk.jmh.Main PlanBench -f 1 -wi 1 -i 3};
- * the 10,000-node single shot: {@code java -Xmx2g -cp ... dev.nanoplan.bench.PlanBench 10000}.
+ * the 10,000-node single shot: {@code java -Xmx2g -Xlog:gc -cp ... dev.nanoplan.bench.PlanBench 10000} (prints wall
+ * time, process CPU time, the heap pools' peak usage and the load average; the machine is shared, so read wall
+ * time together with the load).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.SingleShotTime)
@@ -57,8 +59,19 @@ public class PlanBench {
         long t1 = System.nanoTime();
         Runtime rt = Runtime.getRuntime();
         long reachable = p.routes().stream().filter(r -> r.reachable()).count();
-        System.out.printf("nodes=%d time=%.2f s links=%d routes=%d reachable=%d budgets=%d heapUsed=%d MB max=%d MB%n",
-                n, (t1 - t0) / 1e9, p.links().size(), p.routes().size(), reachable, p.budgets().size(),
-                (rt.totalMemory() - rt.freeMemory()) >> 20, rt.maxMemory() >> 20);
+        // peak heap: sum over the heap pools of their peak usage since start (includes garbage not yet collected)
+        long peak = 0;
+        for (java.lang.management.MemoryPoolMXBean pool : java.lang.management.ManagementFactory.getMemoryPoolMXBeans()) {
+            if (pool.getType() == java.lang.management.MemoryType.HEAP) {
+                peak += pool.getPeakUsage().getUsed();
+            }
+        }
+        double cpuS = java.lang.management.ManagementFactory.getPlatformMXBean(com.sun.management.OperatingSystemMXBean.class)
+                .getProcessCpuTime() / 1e9;
+        System.out.printf("nodes=%d time=%.2f s processCpu=%.1f s links=%d routes=%d reachable=%d budgets=%d heapUsed=%d MB"
+                + " peakHeapPools=%d MB max=%d MB load=%.2f%n",
+                n, (t1 - t0) / 1e9, cpuS, p.links().size(), p.routes().size(), reachable, p.budgets().size(),
+                (rt.totalMemory() - rt.freeMemory()) >> 20, peak >> 20, rt.maxMemory() >> 20,
+                java.lang.management.ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage());
     }
 }
