@@ -135,7 +135,13 @@ public final class AppActions {
     }
 
     void exportHtml() {
-        vm.say("HTML report export is not available in this build");
+        FileChooser fc = new FileChooser();
+        fc.setTitle("Export HTML report");
+        fc.getExtensionFilters().add(new FileChooser.ExtensionFilter("HTML page", "*.html"));
+        File f = fc.showSaveDialog(stage);
+        if (f != null) {
+            vm.exportHtml(f.toPath());
+        }
     }
 
     void about() {

@@ -168,6 +168,27 @@ public final class PlannerViewModel {
         return file.get() != null && saveAs(file.get());
     }
 
+    /**
+     * Writes the HTML report of the current plan (the same page as {@code nanoplan plan --out})
+     * atomically. False, with a message, when there is no plan yet or writing failed.
+     */
+    public boolean exportHtml(Path path) {
+        dev.nanoplan.plan.Plan p = plan.get();
+        if (p == null) {
+            message.set("no plan to export yet");
+            return false;
+        }
+        try {
+            dev.nanoplan.report.AtomicFiles.write(path,
+                    dev.nanoplan.report.PlanHtml.render(p).getBytes(java.nio.charset.StandardCharsets.UTF_8));
+        } catch (IOException e) {
+            message.set("cannot export " + path + ": " + e.getMessage());
+            return false;
+        }
+        message.set("exported " + path.getFileName());
+        return true;
+    }
+
     /** Saves to {@code path} atomically and makes it the current file. */
     public boolean saveAs(Path path) {
         if (scenario.get() == null) {

@@ -218,6 +218,16 @@ class PlannerViewModelTest {
     }
 
     @Test
+    void exportsTheHtmlReportOfThePlan(@TempDir Path dir) throws Exception {
+        opened();
+        Path out = dir.resolve("report.html");
+        assertThat(vm.exportHtml(out)).isTrue();
+        String html = java.nio.file.Files.readString(out);
+        assertThat(html).contains("<svg").contains("not validated for clinical use");
+        assertThat(vm.messageProperty().get()).contains("report.html");
+    }
+
+    @Test
     void saveAsWritesAFileThatReadsBackEqual(@TempDir Path dir) throws Exception {
         opened();
         vm.moveNode("s01", new Vec3(150, 240, 85));
