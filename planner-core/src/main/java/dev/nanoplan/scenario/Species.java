@@ -49,7 +49,7 @@ public record Species(String name, double diffusionUm2PerS, OptionalDouble hydro
      */
     public static Species ofHydrodynamicRadius(String name, double hydrodynamicRadiusNm, double halfLifeS,
             Medium medium) {
-        double d = StokesEinsteinDiffusion.diffusionUm2PerS(
+        double d = dev.nanoplan.physics.StokesEinstein.diffusionUm2PerS(
                 medium.temperatureK(), medium.viscosityMPaS(), hydrodynamicRadiusNm);
         return new Species(name, d, OptionalDouble.of(hydrodynamicRadiusNm), halfLifeS);
     }
