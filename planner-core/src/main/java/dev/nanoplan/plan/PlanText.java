@@ -58,8 +58,11 @@ public final class PlanText {
         sb.append(String.format(Locale.ROOT, "%-12s %14s %14s %16s %-8s %s%n", "node", "N needed", "molecules/s",
                 "per mission", "feasible", "reason"));
         for (BudgetReport b : plan.budgets()) {
-            sb.append(String.format(Locale.ROOT, "%-12s %14d %14.4g %16.4g %-8s %s%n", b.node(),
-                    b.moleculesPerSymbolNeeded(), b.moleculesPerS(), b.moleculesPerMission(),
+            boolean known = b.moleculesPerSymbolNeeded() >= 0;
+            sb.append(String.format(Locale.ROOT, "%-12s %14s %14s %16s %-8s %s%n", b.node(),
+                    known ? Long.toString(b.moleculesPerSymbolNeeded()) : "-",
+                    known ? String.format(Locale.ROOT, "%.4g", b.moleculesPerS()) : "-",
+                    known ? String.format(Locale.ROOT, "%.4g", b.moleculesPerMission()) : "-",
                     b.feasible() ? "yes" : "NO", b.reason()));
         }
         if (!plan.warnings().isEmpty()) {
