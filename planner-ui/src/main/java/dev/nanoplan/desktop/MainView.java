@@ -1,5 +1,6 @@
 package dev.nanoplan.desktop;
 
+import dev.nanoplan.count.CountModelKind;
 import dev.nanoplan.plan.BudgetReport;
 import dev.nanoplan.plan.LinkReport;
 import dev.nanoplan.plan.RouteReport;
@@ -90,7 +91,8 @@ public final class MainView {
                 tab("Budgets", budgetTable),
                 tab("Compare", comparePane()),
                 tab("Link charts", charts.node()),
-                tab("Warnings", warningsPane()));
+                tab("Warnings", warningsPane()),
+                tab("Settings", settingsPane()));
         tabs.setTabClosingPolicy(TabPane.TabClosingPolicy.UNAVAILABLE);
         tabs.setMinWidth(300);
 
@@ -382,6 +384,85 @@ public final class MainView {
                 number("now mol/bit", DemandComparison::molPerBit)));
         t.setPlaceholder(new Label("Press \"Keep for compare\", edit the layout, and compare here."));
         return t;
+    }
+
+    /** Medium, signalling and species settings of the whole layout, applied as one undoable edit. */
+    private Region settingsPane() {
+        ScenarioSettings st = vm.settings();
+        GridPane medium = grid();
+        int row = 0;
+        medium.addRow(row++, new Label("temperature K"), field(st.temperatureKProperty()));
+        medium.addRow(row++, new Label("viscosity mPa·s"), field(st.viscosityMPaSProperty()));
+        medium.addRow(row++, new Label("background molecules/s"), field(st.backgroundMoleculesPerSProperty()));
+
+        GridPane signalling = grid();
+        row = 0;
+        signalling.addRow(row++, new Label("symbol time s"), field(st.symbolTimeSProperty()));
+        signalling.addRow(row++, new Label("ISI memory symbols"), field(st.isiMemorySymbolsProperty()));
+        signalling.addRow(row++, new Label("levels"), field(st.levelsProperty()));
+        signalling.addRow(row++, new Label("prior one"), field(st.priorOneProperty()));
+        ChoiceBox<CountModelKind> count = new ChoiceBox<>();
+        count.getItems().addAll(CountModelKind.values());
+        count.setConverter(new javafx.util.StringConverter<>() {
+            @Override
+            public String toString(CountModelKind k) {
+                return k == null ? "" : k.id();
+            }
+
+            @Override
+            public CountModelKind fromString(String text) {
+                return CountModelKind.parse(text);
+            }
+        });
+        count.valueProperty().bindBidirectional(st.countModelProperty());
+        signalling.addRow(row++, new Label("count model"), count);
+
+        GridPane species = grid();
+        Runnable fillSpecies = () -> {
+            species.getChildren().clear();
+            species.addRow(0, new Label("species"), new Label("diffusion µm²/s"), new Label("half-life s"));
+            int r = 1;
+            for (ScenarioSettings.SpeciesRow sp : st.species()) {
+                TextField half = field(sp.halfLifeSProperty());
+                half.setPromptText("stable");
+                species.addRow(r++, new Label(sp.name()), field(sp.diffusionUm2PerSProperty()), half);
+            }
+        };
+        fillSpecies.run();
+        st.species().addListener((ListChangeListener<ScenarioSettings.SpeciesRow>) c -> fillSpecies.run());
+
+        Button apply = button("Apply", "Apply these settings to the layout (undoable); the plan is recomputed",
+                vm::applySettings);
+        apply.disableProperty().bind(vm.scenarioProperty().isNull());
+        apply.setId("apply-settings");
+        Button revert = button("Revert", "Show the layout's current settings again",
+                () -> st.load(vm.scenarioProperty().get()));
+        revert.disableProperty().bind(vm.scenarioProperty().isNull());
+        Label hint = new Label("Half-life blank = stable. A species given by hydrodynamic radius keeps it unless "
+                + "you type another diffusion coefficient.");
+        hint.getStyleClass().add("hint");
+        hint.setWrapText(true);
+        VBox box = new VBox(8, section("Medium"), medium, new Separator(), section("Signalling"), signalling,
+                new Separator(), section("Species"), species, hint, new HBox(6, apply, revert));
+        box.setPadding(new Insets(10));
+        box.getStyleClass().add("inspector");
+        javafx.scene.control.ScrollPane scroll = new javafx.scene.control.ScrollPane(box);
+        scroll.setFitToWidth(true);
+        scroll.getStyleClass().add("inspector");
+        return scroll;
+    }
+
+    private static GridPane grid() {
+        GridPane g = new GridPane();
+        g.setHgap(6);
+        g.setVgap(5);
+        return g;
+    }
+
+    private static Label section(String text) {
+        Label l = new Label(text);
+        l.getStyleClass().add("section");
+        return l;
     }
 
     private Region warningsPane() {

@@ -87,6 +87,7 @@ public final class PlannerViewModel {
     private final ObservableList<String> warnings = FXCollections.observableArrayList();
     private final ObservableList<DemandComparison> comparison = FXCollections.observableArrayList();
     private final NodeInspector inspector = new NodeInspector();
+    private final ScenarioSettings settings = new ScenarioSettings();
     private final UndoStack undo = new UndoStack();
     private final RecentFiles recent;
 
@@ -276,6 +277,21 @@ public final class PlannerViewModel {
         }) && reselect(node.id());
     }
 
+    /**
+     * Applies the settings panel's fields (medium, signalling, species) as one undoable edit.
+     * A malformed or out-of-range field is refused with a message naming it and changes nothing;
+     * settings equal to the current ones are not an edit.
+     *
+     * @return whether the layout changed
+     */
+    public boolean applySettings() {
+        boolean ok = edit("edit settings", settings::applyTo);
+        if (!ok && scenario.get() != null && !message.get().startsWith("edit settings refused")) {
+            message.set("settings unchanged");
+        }
+        return ok;
+    }
+
     /** Applies the inspector's fields to the selected node. */
     public boolean applyInspector() {
         String id = selectedNodeId.get();
@@ -400,6 +416,7 @@ public final class PlannerViewModel {
     private void setScenario(Scenario s) {
         maxCapacity.set(Math.log(s.signalling().levels()) / Math.log(2));
         scenario.set(s);
+        settings.load(s);
         String sel = selectedNodeId.get();
         if (sel != null && nodeById(sel) == null) {
             selectedNodeId.set(null);
@@ -705,6 +722,11 @@ public final class PlannerViewModel {
 
     public NodeInspector inspector() {
         return inspector;
+    }
+
+    /** The scenario-wide settings editor, reloaded from the layout after every change. */
+    public ScenarioSettings settings() {
+        return settings;
     }
 
     public UndoStack undoStack() {

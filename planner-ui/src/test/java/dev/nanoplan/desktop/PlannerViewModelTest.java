@@ -2,12 +2,14 @@ package dev.nanoplan.desktop;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import dev.nanoplan.count.CountModelKind;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioReader;
+import dev.nanoplan.scenario.Species;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.ScheduledExecutorService;
@@ -261,5 +263,135 @@ class PlannerViewModelTest {
         assertThat(row.capacity()).isEqualTo(vm.findLink("s01", "gw").capacityBits());
         // s01 releases 4000 molecules for a "1" at prior_one 0.05 (culture-tank.json): 200 per symbol on average
         assertThat(row.molPerBit()).isCloseTo(4000 * 0.05 / row.capacity(), org.assertj.core.data.Offset.offset(1e-9));
+    }
+
+    // ---------------------------------------------------------------- settings (medium, signalling, species)
+
+    @Test
+    void symbolTimeEditReplansAndUndoRestoresIt() throws Exception {
+        Scenario original = opened();
+        // culture-tank.json sets symbol_time_s = 1.0
+        assertThat(vm.settings().symbolTimeSProperty().get()).isEqualTo("1");
+        vm.settings().symbolTimeSProperty().set("0.25");
+        assertThat(vm.applySettings()).isTrue();
+        Plan p = awaitPlan();
+        assertThat(p.scenario().signalling().symbolTimeS()).isEqualTo(0.25);
+        assertThat(fake.calls.get(fake.calls.size() - 1).signalling().symbolTimeS()).isEqualTo(0.25);
+        assertThat(p.scenario().nodes()).isEqualTo(original.nodes());
+        assertThat(vm.dirtyProperty().get()).isTrue();
+
+        assertThat(vm.undo()).isTrue();
+        assertThat(vm.scenarioProperty().get()).isEqualTo(original);
+        assertThat(awaitPlan().scenario().signalling().symbolTimeS()).isEqualTo(1.0);
+        // the editor shows the restored value again
+        assertThat(vm.settings().symbolTimeSProperty().get()).isEqualTo("1");
+        assertThat(vm.redo()).isTrue();
+        assertThat(awaitPlan().scenario().signalling().symbolTimeS()).isEqualTo(0.25);
+    }
+
+    @Test
+    void negativeDiffusionIsRefusedNamingTheFieldAndChangesNothing() throws Exception {
+        Scenario s = opened();
+        int calls = fake.calls.size();
+        vm.settings().species("A").diffusionUm2PerSProperty().set("-5");
+        assertThat(vm.applySettings()).isFalse();
+        assertThat(vm.messageProperty().get()).contains("refused").contains("species A").contains("diffusion");
+        assertThat(vm.scenarioProperty().get()).isSameAs(s);
+        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.dirtyProperty().get()).isFalse();
+        assertThat(fake.calls).hasSize(calls);
+    }
+
+    @Test
+    void priorOutsideTheUnitIntervalIsRefusedNamingTheField() throws Exception {
+        Scenario s = opened();
+        int calls = fake.calls.size();
+        vm.settings().priorOneProperty().set("1.5");
+        assertThat(vm.applySettings()).isFalse();
+        assertThat(vm.messageProperty().get()).contains("refused").contains("prior");
+        assertThat(vm.scenarioProperty().get()).isSameAs(s);
+        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(fake.calls).hasSize(calls);
+    }
+
+    @Test
+    void malformedSettingsAreRefusedNamingTheField() throws Exception {
+        Scenario s = opened();
+        vm.settings().temperatureKProperty().set("warm");
+        assertThat(vm.applySettings()).isFalse();
+        assertThat(vm.messageProperty().get()).contains("temperature K").contains("warm");
+        vm.settings().load(s);
+        vm.settings().levelsProperty().set("2.5");
+        assertThat(vm.applySettings()).isFalse();
+        assertThat(vm.messageProperty().get()).contains("levels");
+        vm.settings().load(s);
+        vm.settings().species("A").halfLifeSProperty().set("0");
+        assertThat(vm.applySettings()).isFalse();
+        assertThat(vm.messageProperty().get()).contains("species A").contains("halfLifeS");
+        assertThat(vm.scenarioProperty().get()).isSameAs(s);
+    }
+
+    @Test
+    void countModelRoundTripsThroughUndoAndRedo() throws Exception {
+        Scenario original = opened();
+        assertThat(original.signalling().countModel()).isEqualTo(CountModelKind.EXACT);
+        for (CountModelKind k : new CountModelKind[] {CountModelKind.POISSON, CountModelKind.GAUSSIAN}) {
+            vm.settings().countModelProperty().set(k);
+            assertThat(vm.applySettings()).isTrue();
+            assertThat(awaitPlan().scenario().signalling().countModel()).isEqualTo(k);
+        }
+        assertThat(vm.undo()).isTrue();
+        assertThat(vm.settings().countModelProperty().get()).isEqualTo(CountModelKind.POISSON);
+        assertThat(vm.undo()).isTrue();
+        assertThat(vm.settings().countModelProperty().get()).isEqualTo(CountModelKind.EXACT);
+        assertThat(vm.scenarioProperty().get()).isEqualTo(original);
+        assertThat(vm.redo()).isTrue();
+        assertThat(vm.redo()).isTrue();
+        assertThat(awaitPlan().scenario().signalling().countModel()).isEqualTo(CountModelKind.GAUSSIAN);
+    }
+
+    @Test
+    void unchangedSettingsAreNotAnEdit() throws Exception {
+        Scenario s = opened();
+        assertThat(vm.applySettings()).isFalse();
+        assertThat(vm.scenarioProperty().get()).isSameAs(s);
+        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+    }
+
+    @Test
+    void blankHalfLifeMakesASpeciesStable() throws Exception {
+        opened();
+        // species A has half_life_s = 1.0 in culture-tank.json
+        assertThat(vm.settings().species("A").halfLifeSProperty().get()).isEqualTo("1");
+        vm.settings().species("A").halfLifeSProperty().set(" ");
+        vm.settings().species("A").diffusionUm2PerSProperty().set("80");
+        assertThat(vm.applySettings()).isTrue();
+        Species a = awaitPlan().scenario().speciesByName().get("A");
+        assertThat(a.isStable()).isTrue();
+        assertThat(a.diffusionUm2PerS()).isEqualTo(80.0);
+    }
+
+    @Test
+    void radiusSpeciesFollowsTemperatureThroughStokesEinstein() throws Exception {
+        Scenario s = opened();
+        Species before = s.speciesByName().get("B");
+        // species B is given by hydrodynamic_radius_nm = 0.8 in culture-tank.json
+        assertThat(before.hydrodynamicRadiusNm()).hasValue(0.8);
+        vm.settings().temperatureKProperty().set("300");
+        assertThat(vm.applySettings()).isTrue();
+        Species after = awaitPlan().scenario().speciesByName().get("B");
+        assertThat(after.hydrodynamicRadiusNm()).hasValue(0.8);
+        // Einstein (1905) / Stokes: D = k_B T / (6 π η r), so at fixed η and r, D scales with T
+        assertThat(after.diffusionUm2PerS() / before.diffusionUm2PerS())
+                .isCloseTo(300 / 310.15, org.assertj.core.data.Offset.offset(1e-12));
+        // D = 1.380649e-23 J/K (CODATA 2018, exact) * 300 K / (6 π * 0.69e-3 Pa s * 0.8e-9 m), in µm²/s
+        double expected = 1.380649e-23 * 300 / (6 * Math.PI * 0.69e-3 * 0.8e-9) * 1e12;
+        assertThat(after.diffusionUm2PerS()).isCloseTo(expected, org.assertj.core.data.Percentage.withPercentage(1e-6));
+        // typing a coefficient replaces the radius description
+        vm.settings().species("B").diffusionUm2PerSProperty().set("300");
+        assertThat(vm.applySettings()).isTrue();
+        Species typed = awaitPlan().scenario().speciesByName().get("B");
+        assertThat(typed.hydrodynamicRadiusNm()).isEmpty();
+        assertThat(typed.diffusionUm2PerS()).isEqualTo(300.0);
     }
 }
