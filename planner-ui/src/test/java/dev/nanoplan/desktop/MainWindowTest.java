@@ -227,4 +227,23 @@ class MainWindowTest {
         double mean = sum / n;
         return Math.sqrt(Math.max(0, sum2 / n - mean * mean));
     }
+
+    @Test
+    void settingsTabAppliesASymbolTimeThroughItsButton() throws Exception {
+        Window w = open("culture-tank");
+        onFx(() -> {
+            assertThat(w.view().showTab("Settings")).isTrue();
+            // the Apply button of the settings tab is bound to the view model's settings editor
+            w.vm().settings().symbolTimeSProperty().set("0.5");
+            javafx.scene.control.Button apply = (javafx.scene.control.Button) w.view().tabs().getSelectionModel()
+                    .getSelectedItem().getContent().lookup("#apply-settings");
+            assertThat(apply).isNotNull();
+            assertThat(apply.isDisabled()).isFalse();
+            apply.fire();
+            return null;
+        });
+        Plan p = w.vm().planned().get(150, TimeUnit.SECONDS);
+        assertThat(p.scenario().signalling().symbolTimeS()).isEqualTo(0.5);
+        assertThat(onFx(() -> w.vm().undoStack().canUndoProperty().get())).isTrue();
+    }
 }
