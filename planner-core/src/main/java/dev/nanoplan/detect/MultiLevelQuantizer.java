@@ -446,7 +446,7 @@ public final class MultiLevelQuantizer {
     }
 
     /** Mutual information (nats) of given cuts at π. */
-    private static double miNats(CountWindow w, double[] pi, int[] cuts) {
+    static double miNats(CountWindow w, double[] pi, int[] cuts) {
         double[] mbuf = new double[pi.length];
         double v = 0;
         int from = 0;

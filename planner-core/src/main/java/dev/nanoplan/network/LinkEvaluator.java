@@ -15,7 +15,6 @@ import dev.nanoplan.detect.BinaryThresholdSearch;
 import dev.nanoplan.detect.MultiLevelQuantizer;
 import dev.nanoplan.detect.MultiLevelResult;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 
 /**
@@ -128,15 +127,7 @@ public final class LinkEvaluator {
 
     /** Weights of earlier symbols' levels: the binary prior, or uniform for more levels. */
     static double[] isiWeights(LinkSpec spec) {
-        int m = spec.levels();
-        double[] w = new double[m];
-        if (m == 2) {
-            w[0] = 1 - spec.priorOne();
-            w[1] = spec.priorOne();
-        } else {
-            Arrays.fill(w, 1.0 / m);
-        }
-        return w;
+        return LinkSpec.symbolWeights(spec.levels(), spec.priorOne());
     }
 
     /** The law of the slot count given that level i is sent now. */

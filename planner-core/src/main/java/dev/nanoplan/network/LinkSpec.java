@@ -73,6 +73,21 @@ public record LinkSpec(double[] taps, long[] levelMolecules, double priorOne, do
                 model, symbolTimeS);
     }
 
+    /**
+     * Probabilities of the levels for symbols the link does not decide on (earlier symbols,
+     * neighbours): the binary prior {1 − q, q}, or uniform over more than two levels.
+     */
+    public static double[] symbolWeights(int levels, double priorOne) {
+        double[] w = new double[levels];
+        if (levels == 2) {
+            w[0] = 1 - priorOne;
+            w[1] = priorOne;
+        } else {
+            Arrays.fill(w, 1.0 / levels);
+        }
+        return w;
+    }
+
     /** Levels evenly spaced from 0 to {@code maxMolecules}: n_i = round(N·i/(M−1)). */
     public static long[] evenLevels(int levels, long maxMolecules) {
         if (levels < 2) {

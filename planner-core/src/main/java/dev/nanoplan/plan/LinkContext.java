@@ -75,19 +75,12 @@ final class LinkContext {
 
     /** Prior weights of the levels: binary prior, uniform for more levels. */
     static double[] weights(Signalling s) {
-        double[] w = new double[s.levels()];
-        if (s.levels() == 2) {
-            w[0] = 1 - s.priorOne();
-            w[1] = s.priorOne();
-        } else {
-            java.util.Arrays.fill(w, 1.0 / s.levels());
-        }
-        return w;
+        return LinkSpec.symbolWeights(s.levels(), s.priorOne());
     }
 
     /** Levels of a node sending {@code top} molecules for its highest level. */
     long[] levels(long top) {
-        return LinkSpec.evenLevels(signalling().levels(), Math.max(top, signalling().levels() - 1));
+        return NetworkPlanner.levelsOf(signalling(), top);
     }
 
     LinkSpec spec(double[] taps, long top, double symbolTimeS, double backgroundPerS) {

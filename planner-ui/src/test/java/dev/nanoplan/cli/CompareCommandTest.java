@@ -13,7 +13,7 @@ class CompareCommandTest {
 
     @Test
     void comparesTheRelayPairPerDemand() throws Exception {
-        LinkCommandTest.Run r = LinkCommandTest.run("compare", ROOT.resolve("scenarios/relay-chain-direct.json").toString(),
+        CliRun r = LinkCommandTest.run("compare", ROOT.resolve("scenarios/relay-chain-direct.json").toString(),
                 ROOT.resolve("scenarios/relay-chain-relayed.json").toString(), "--json");
         assertThat(r.status()).as(r.err()).isZero();
         JsonNode j = new ObjectMapper().readTree(r.out());
@@ -26,7 +26,7 @@ class CompareCommandTest {
 
     @Test
     void missingFileIsBadInput() {
-        LinkCommandTest.Run r = LinkCommandTest.run("compare", "no-such-a.json", "no-such-b.json");
+        CliRun r = LinkCommandTest.run("compare", "no-such-a.json", "no-such-b.json");
         assertThat(r.status()).isEqualTo(2);
         assertThat(r.err()).contains("no-such-a.json").doesNotContain("Exception");
     }

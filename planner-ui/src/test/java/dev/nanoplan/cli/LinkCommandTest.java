@@ -4,8 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -15,14 +13,8 @@ import org.junit.jupiter.params.provider.CsvSource;
 
 class LinkCommandTest {
 
-    record Run(int status, String out, String err) {
-    }
-
-    static Run run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int status = NanoplanCommand.execute(new PrintWriter(out), new PrintWriter(err), args);
-        return new Run(status, out.toString(), err.toString());
+    static CliRun run(String... args) {
+        return CliRun.of(args);
     }
 
     static final String[] EXAMPLE = {"link", "--distance-um", "15", "--radius-um", "5", "--diffusion-um2-per-s", "100",
@@ -30,7 +22,7 @@ class LinkCommandTest {
 
     @Test
     void jsonCarriesTheContractKeys() throws Exception {
-        Run r = run(EXAMPLE);
+        CliRun r = run(EXAMPLE);
         assertThat(r.status()).as(r.err()).isZero();
         JsonNode j = new ObjectMapper().readTree(r.out());
         for (String key : new String[] {"hit_probability", "eventual_hit_probability", "taps", "threshold",
@@ -54,7 +46,7 @@ class LinkCommandTest {
             String[] args = java.util.Arrays.copyOf(EXAMPLE, EXAMPLE.length + 2);
             args[EXAMPLE.length] = "--levels";
             args[EXAMPLE.length + 1] = Integer.toString(levels);
-            Run r = run(args);
+            CliRun r = run(args);
             assertThat(r.status()).as(r.err()).isZero();
             JsonNode j = new ObjectMapper().readTree(r.out());
             assertThat(j.get("thresholds").size()).isEqualTo(levels - 1);
@@ -68,14 +60,14 @@ class LinkCommandTest {
     @Test
     void textOutputEndsWithVerdictAndCaution() {
         String[] args = java.util.Arrays.copyOf(EXAMPLE, EXAMPLE.length - 1);
-        Run r = run(args);
+        CliRun r = run(args);
         assertThat(r.status()).isZero();
         assertThat(r.out()).contains("capacity").contains("link:").contains("not validated for clinical use");
     }
 
     @Test
     void takesTapsInsteadOfGeometry() throws Exception {
-        Run r = run("link", "--taps", "0.2,0.05,0.01", "--symbol-time-s", "1", "--molecules", "100", "--json");
+        CliRun r = run("link", "--taps", "0.2,0.05,0.01", "--symbol-time-s", "1", "--molecules", "100", "--json");
         assertThat(r.status()).as(r.err()).isZero();
         JsonNode j = new ObjectMapper().readTree(r.out());
         assertThat(j.get("hit_probability").asDouble()).isEqualTo(0.2);
@@ -89,7 +81,7 @@ class LinkCommandTest {
             String[] args = java.util.Arrays.copyOf(EXAMPLE, EXAMPLE.length + 2);
             args[EXAMPLE.length] = "--plot";
             args[EXAMPLE.length + 1] = f.toString();
-            Run r = run(args);
+            CliRun r = run(args);
             assertThat(r.status()).as(r.err()).isZero();
             assertThat(Files.size(f)).isGreaterThan(1000);
         }
@@ -114,7 +106,7 @@ class LinkCommandTest {
     })
     void badInputIsOneLineNamingTheOption(String args, String option) {
         String[] a = ("link " + args).trim().split("\\s+");
-        Run r = run(a);
+        CliRun r = run(a);
         assertThat(r.status()).isEqualTo(2);
         assertThat(r.out()).isEmpty();
         assertThat(r.err()).contains(option).doesNotContain("Exception").doesNotContain("\tat ");

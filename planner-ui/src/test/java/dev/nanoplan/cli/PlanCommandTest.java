@@ -6,8 +6,6 @@ import com.fasterxml.jackson.core.JsonParser;
 import com.fasterxml.jackson.core.JsonToken;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -15,14 +13,8 @@ import org.junit.jupiter.api.io.TempDir;
 
 class PlanCommandTest {
 
-    record Run(int status, String out, String err) {
-    }
-
-    static Run run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int status = NanoplanCommand.execute(new PrintWriter(out), new PrintWriter(err), args);
-        return new Run(status, out.toString(), err.toString());
+    static CliRun run(String... args) {
+        return CliRun.of(args);
     }
 
     /** A small valid layout (invented demo values): one sensor, one gateway, one demand. */
@@ -47,7 +39,7 @@ class PlanCommandTest {
     @Test
     void jsonModePrintsExactlyOneObject(@TempDir Path dir) throws Exception {
         Path f = write(dir, "small.json", SMALL);
-        Run r = run("plan", f.toString(), "--json");
+        CliRun r = run("plan", f.toString(), "--json");
         assertThat(r.status()).as(r.err()).isZero();
         ObjectMapper m = new ObjectMapper();
         try (JsonParser p = m.getFactory().createParser(r.out())) {
@@ -68,7 +60,7 @@ class PlanCommandTest {
     void outWritesTheThreeFiles(@TempDir Path dir) throws Exception {
         Path f = write(dir, "small.json", SMALL);
         Path out = dir.resolve("report-dir");
-        Run r = run("plan", f.toString(), "--out", out.toString(), "--capacity-floor-bits", "0.01");
+        CliRun r = run("plan", f.toString(), "--out", out.toString(), "--capacity-floor-bits", "0.01");
         assertThat(r.status()).as(r.err()).isZero();
         assertThat(r.out()).contains("wrote ").contains("report.html");
         JsonNode j = new ObjectMapper().readTree(out.resolve("plan.json").toFile());
@@ -85,7 +77,7 @@ class PlanCommandTest {
     @Test
     void jsonWithOutKeepsStdoutClean(@TempDir Path dir) throws Exception {
         Path f = write(dir, "small.json", SMALL);
-        Run r = run("plan", f.toString(), "--json", "--out", dir.resolve("o").toString());
+        CliRun r = run("plan", f.toString(), "--json", "--out", dir.resolve("o").toString());
         assertThat(r.status()).as(r.err()).isZero();
         assertThat(r.err()).contains("wrote ");
         assertThat(new ObjectMapper().readTree(r.out()).isObject()).isTrue();
@@ -94,7 +86,7 @@ class PlanCommandTest {
 
     @Test
     void missingFileIsBadInputOnOneLine(@TempDir Path dir) {
-        Run r = run("plan", dir.resolve("nope.json").toString());
+        CliRun r = run("plan", dir.resolve("nope.json").toString());
         assertThat(r.status()).isEqualTo(2);
         assertThat(r.err().strip().lines().count()).isEqualTo(1);
         assertThat(r.err()).contains("no such file").contains("nope.json");
@@ -104,14 +96,14 @@ class PlanCommandTest {
     @Test
     void malformedScenarioListsProblemsPrefixedWithTheFile(@TempDir Path dir) throws Exception {
         Path f = write(dir, "bad.json", SMALL.replace("\"radius_um\": 5", "\"radius_um\": -2"));
-        Run r = run("plan", f.toString(), "--json");
+        CliRun r = run("plan", f.toString(), "--json");
         assertThat(r.status()).isEqualTo(2);
         assertThat(r.out()).isEmpty();
         assertThat(r.err()).contains(f + ": nodes[1].radius_um");
         assertThat(r.err()).doesNotContain("Exception").doesNotContain("\tat ");
 
         Path broken = write(dir, "broken.json", "{\"format\": \"nanoplan/1\", ");
-        Run b = run("plan", broken.toString());
+        CliRun b = run("plan", broken.toString());
         assertThat(b.status()).isEqualTo(2);
         assertThat(b.err()).startsWith(broken + ": ");
     }
@@ -120,7 +112,7 @@ class PlanCommandTest {
     void unknownFieldsNeedLenient(@TempDir Path dir) throws Exception {
         Path f = write(dir, "extra.json", SMALL.replace("\"name\": \"two nodes\",", "\"name\": \"two nodes\", \"colour\": 3,"));
         assertThat(run("plan", f.toString(), "--json").status()).isEqualTo(2);
-        Run r = run("plan", f.toString(), "--json", "--lenient");
+        CliRun r = run("plan", f.toString(), "--json", "--lenient");
         assertThat(r.status()).as(r.err()).isZero();
         assertThat(r.err()).contains("warning").contains("colour");
     }
@@ -130,7 +122,7 @@ class PlanCommandTest {
         Path f = write(dir, "small.json", SMALL);
         assertThat(run("plan", f.toString(), "--no-such-option").status()).isEqualTo(2);
         assertThat(run("plan").status()).isEqualTo(2);
-        Run neg = run("plan", f.toString(), "--capacity-floor-bits", "-1");
+        CliRun neg = run("plan", f.toString(), "--capacity-floor-bits", "-1");
         assertThat(neg.status()).isEqualTo(2);
         assertThat(neg.err()).contains("--capacity-floor-bits");
         Path file = write(dir, "plain-file", "x");
@@ -140,7 +132,7 @@ class PlanCommandTest {
     @Test
     void textModePrintsTheSummary(@TempDir Path dir) throws Exception {
         Path f = write(dir, "small.json", SMALL);
-        Run r = run("plan", f.toString());
+        CliRun r = run("plan", f.toString());
         assertThat(r.status()).as(r.err()).isZero();
         assertThat(r.out()).contains("two nodes");
         assertThat(r.out().startsWith("{")).isFalse();
@@ -149,7 +141,7 @@ class PlanCommandTest {
     @Test
     void outputIsValidJsonTokenStream(@TempDir Path dir) throws Exception {
         Path f = write(dir, "small.json", SMALL);
-        Run r = run("plan", f.toString(), "--json");
+        CliRun r = run("plan", f.toString(), "--json");
         try (JsonParser p = new ObjectMapper().getFactory().createParser(r.out())) {
             assertThat(p.nextToken()).isEqualTo(JsonToken.START_OBJECT);
         }

@@ -16,7 +16,7 @@ class PlanSimulatedChannelTest {
 
     private static final ObjectMapper MAPPER = new ObjectMapper();
 
-    private static PlanCommandTest.Run plan(Path scenario, Path cache, String... extra) {
+    private static CliRun plan(Path scenario, Path cache, String... extra) {
         List<String> args = new java.util.ArrayList<>(List.of("plan", scenario.toString(), "--json", "--channel",
                 "simulated", "--molecules-per-emitter", "2000", "--seed", "3", "--threads", "2", "--cache-dir",
                 cache.toString()));
@@ -28,7 +28,7 @@ class PlanSimulatedChannelTest {
     void secondPlanWithAnotherBudgetReadsTheCachedChannel(@TempDir Path dir) throws Exception {
         Path f = PlanCommandTest.write(dir, "small.json", PlanCommandTest.SMALL);
         Path cache = dir.resolve("cache");
-        PlanCommandTest.Run first = plan(f, cache);
+        CliRun first = plan(f, cache);
         assertThat(first.status()).as(first.err()).isZero();
         assertThat(first.err()).contains("cache miss").contains("stored in");
         JsonNode a = MAPPER.readTree(first.out());
@@ -53,7 +53,7 @@ class PlanSimulatedChannelTest {
         Path g = PlanCommandTest.write(dir, "bigger.json", PlanCommandTest.SMALL
                 .replace("\"molecules_per_symbol\": 2000", "\"molecules_per_symbol\": 9000")
                 .replace("two nodes", "renamed"));
-        PlanCommandTest.Run second = plan(g, cache);
+        CliRun second = plan(g, cache);
         assertThat(second.status()).as(second.err()).isZero();
         assertThat(second.err()).contains("cache hit").doesNotContain("cache miss");
         assertThat(MAPPER.readTree(second.out()).get("links").get(0).get("taps")).isEqualTo(taps);
@@ -66,13 +66,13 @@ class PlanSimulatedChannelTest {
     @Test
     void simulationOptionsNeedTheSimulatedChannelAndTheChannelWordIsChecked(@TempDir Path dir) throws Exception {
         Path f = PlanCommandTest.write(dir, "small.json", PlanCommandTest.SMALL);
-        PlanCommandTest.Run seedOnly = PlanCommandTest.run("plan", f.toString(), "--seed", "4");
+        CliRun seedOnly = PlanCommandTest.run("plan", f.toString(), "--seed", "4");
         assertThat(seedOnly.status()).isEqualTo(2);
         assertThat(seedOnly.err()).contains("--channel simulated");
-        PlanCommandTest.Run bad = PlanCommandTest.run("plan", f.toString(), "--channel", "measured");
+        CliRun bad = PlanCommandTest.run("plan", f.toString(), "--channel", "measured");
         assertThat(bad.status()).isEqualTo(2);
         assertThat(bad.err()).contains("--channel: must be analytic or simulated");
-        PlanCommandTest.Run badM = PlanCommandTest.run("plan", f.toString(), "--channel", "simulated",
+        CliRun badM = PlanCommandTest.run("plan", f.toString(), "--channel", "simulated",
                 "--molecules-per-emitter", "0", "--cache-dir", dir.toString());
         assertThat(badM.status()).isEqualTo(2);
     }

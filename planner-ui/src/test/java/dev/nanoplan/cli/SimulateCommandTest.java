@@ -5,8 +5,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import dev.nanoplan.physics.OpenSphereHitting;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -14,14 +12,8 @@ import org.junit.jupiter.api.io.TempDir;
 
 class SimulateCommandTest {
 
-    record Run(int status, String out, String err) {
-    }
-
-    static Run run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int status = NanoplanCommand.execute(new PrintWriter(out), new PrintWriter(err), args);
-        return new Run(status, out.toString(), err.toString());
+    static CliRun run(String... args) {
+        return CliRun.of(args);
     }
 
     static final String PAIR = """
@@ -38,7 +30,7 @@ class SimulateCommandTest {
     @Test
     void jsonCarriesTheContractKeys(@TempDir Path dir) throws Exception {
         Path f = Files.writeString(dir.resolve("pair.json"), PAIR);
-        Run r = run("simulate", f.toString(), "--molecules-per-emitter", "5000", "--seed", "7", "--threads", "2",
+        CliRun r = run("simulate", f.toString(), "--molecules-per-emitter", "5000", "--seed", "7", "--threads", "2",
                 "--json");
         assertThat(r.status()).as(r.err()).isZero();
         JsonNode j = new ObjectMapper().readTree(r.out());
@@ -64,7 +56,7 @@ class SimulateCommandTest {
     @Test
     void textShowsTableAndCautionAndProgressGoesToStderr(@TempDir Path dir) throws Exception {
         Path f = Files.writeString(dir.resolve("pair.json"), PAIR);
-        Run r = run("simulate", f.toString(), "--molecules-per-emitter", "3000", "--dt", "1e-3", "--progress");
+        CliRun r = run("simulate", f.toString(), "--molecules-per-emitter", "3000", "--dt", "1e-3", "--progress");
         assertThat(r.status()).as(r.err()).isZero();
         assertThat(r.out()).contains("analytic").contains("simulated").contains("tx").contains("rx")
                 .contains("not validated for clinical use");
@@ -82,7 +74,7 @@ class SimulateCommandTest {
             {"simulate", good.toString(), "--dt", "-1"},
             {"simulate", good.toString(), "--dt", "0"}};
         for (String[] args : cases) {
-            Run r = run(args);
+            CliRun r = run(args);
             assertThat(r.status()).as(String.join(" ", args)).isEqualTo(2);
             assertThat(r.err().strip()).startsWith("nanoplan: ").doesNotContain("\n").doesNotContain("Exception");
             assertThat(r.out()).isEmpty();

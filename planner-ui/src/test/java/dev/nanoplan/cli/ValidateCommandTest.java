@@ -11,7 +11,7 @@ class ValidateCommandTest {
     @Test
     void validFileSaysOkWithCounts(@TempDir Path dir) throws Exception {
         Path f = PlanCommandTest.write(dir, "small.json", PlanCommandTest.SMALL);
-        PlanCommandTest.Run r = PlanCommandTest.run("validate", f.toString());
+        CliRun r = PlanCommandTest.run("validate", f.toString());
         assertThat(r.status()).as(r.err()).isZero();
         assertThat(r.out()).isEqualTo("ok: two nodes: 2 nodes, 1 demands" + System.lineSeparator());
         assertThat(r.err()).isEmpty();
@@ -22,7 +22,7 @@ class ValidateCommandTest {
         Path f = PlanCommandTest.write(dir, "bad.json", PlanCommandTest.SMALL
                 .replace("\"radius_um\": 5", "\"radius_um\": -2")
                 .replace("{\"from\": \"s1\", \"to\": \"gw\"}", "{\"from\": \"s1\", \"to\": \"ghost\"}"));
-        PlanCommandTest.Run r = PlanCommandTest.run("validate", f.toString());
+        CliRun r = PlanCommandTest.run("validate", f.toString());
         assertThat(r.status()).isEqualTo(2);
         assertThat(r.out()).isEmpty();
         assertThat(r.err()).contains(f + ": nodes[1].radius_um");
@@ -34,14 +34,14 @@ class ValidateCommandTest {
         Path f = PlanCommandTest.write(dir, "extra.json",
                 PlanCommandTest.SMALL.replace("\"name\": \"two nodes\",", "\"name\": \"two nodes\", \"colour\": 3,"));
         assertThat(PlanCommandTest.run("validate", f.toString()).status()).isEqualTo(2);
-        PlanCommandTest.Run r = PlanCommandTest.run("validate", f.toString(), "--lenient");
+        CliRun r = PlanCommandTest.run("validate", f.toString(), "--lenient");
         assertThat(r.status()).as(r.err()).isZero();
         assertThat(r.out()).startsWith("ok: two nodes: 2 nodes, 1 demands").contains("warning").contains("colour");
     }
 
     @Test
     void missingFileAndBadUsage(@TempDir Path dir) {
-        PlanCommandTest.Run r = PlanCommandTest.run("validate", dir.resolve("absent.json").toString());
+        CliRun r = PlanCommandTest.run("validate", dir.resolve("absent.json").toString());
         assertThat(r.status()).isEqualTo(2);
         assertThat(r.err().strip().lines().count()).isEqualTo(1);
         assertThat(PlanCommandTest.run("validate", "--bogus").status()).isEqualTo(2);
