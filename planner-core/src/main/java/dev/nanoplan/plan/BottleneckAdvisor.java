@@ -1,6 +1,7 @@
 package dev.nanoplan.plan;
 
 import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.Species;
 import java.util.Locale;
 import java.util.Map;
 
@@ -45,7 +46,7 @@ final class BottleneckAdvisor {
                 sb.append(t != null
                         ? String.format(Locale.ROOT, "lengthen the symbol time to %.3g s (ISI limits %s)", t, hop)
                         : "ISI limits " + hop + ": lengthening the symbol time alone does not reach the target; "
-                                + "use a degrading species or move the nodes closer");
+                                + isiRemedy(ctx.species));
             }
             case SIGNAL, NOISE -> {
                 Long n = moleculesFor(ctx, targetBits);
@@ -64,6 +65,18 @@ final class BottleneckAdvisor {
         }
         sb.append(String.format(Locale.ROOT, " (to reach %.2f bit/symbol)", targetBits));
         return sb.toString();
+    }
+
+    /**
+     * What else shortens the tail of the channel: a species that degrades (or degrades faster,
+     * naming the current half-life), or shorter distances.
+     */
+    static String isiRemedy(Species species) {
+        if (species.isStable()) {
+            return "use a degrading species or move the nodes closer";
+        }
+        return String.format(Locale.ROOT, "use a species that degrades faster than %s (half-life %.3g s) or move the "
+                + "nodes closer", species.name(), species.halfLifeS());
     }
 
     /** Largest centre distance at which the link reaches the target, or null. */
