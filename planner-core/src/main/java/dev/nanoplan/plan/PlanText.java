@@ -39,7 +39,10 @@ public final class PlanText {
                     l.modelCaveat() == null ? "" : "  [" + l.modelCaveat() + "]"));
         }
         sb.append("\nRoutes\n");
-        for (RouteReport r : plan.routes()) {
+        List<SharedRates.Share> shares = SharedRates.of(plan);
+        for (int i = 0; i < plan.routes().size(); i++) {
+            RouteReport r = plan.routes().get(i);
+            SharedRates.Share sh = shares.get(i);
             if (!r.reachable()) {
                 sb.append(String.format(Locale.ROOT, "  %s -> %s: unreachable. %s%n", r.from(), r.to(), r.advice()));
                 continue;
@@ -53,6 +56,10 @@ public final class PlanText {
                     r.directCapacityBits() == null ? ", no direct link"
                             : String.format(Locale.ROOT, ", direct %.4f bit", r.directCapacityBits()),
                     r.advice()));
+            if (sh.limitedAt() != null && sh.sharedWith() > 1) {
+                sb.append(String.format(Locale.ROOT, "      shared: %.4g bit/s (%s's stream carries %d demands)%n",
+                        sh.rateBitsPerS(), sh.limitedAt(), sh.sharedWith()));
+            }
         }
         sb.append("\nBudgets\n");
         sb.append(String.format(Locale.ROOT, "%-12s %14s %14s %16s %-8s %s%n", "node", "N needed", "molecules/s",

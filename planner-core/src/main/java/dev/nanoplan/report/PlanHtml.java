@@ -6,6 +6,7 @@ import dev.nanoplan.plan.BudgetReport;
 import dev.nanoplan.plan.LinkReport;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.RouteReport;
+import dev.nanoplan.plan.SharedRates;
 import dev.nanoplan.scenario.Flow;
 import dev.nanoplan.scenario.Medium;
 import dev.nanoplan.scenario.Node;
@@ -209,9 +210,13 @@ public final class PlanHtml {
         double target = plan.scenario().targets().minRateBitsPerS();
         h.append("<div class=\"tablewrap\"><table>\n<tr><th>From</th><th>To</th><th>Hops</th><th>Bottleneck</th>"
                 + "<th class=\"n\">Bottleneck (bit)</th><th class=\"n\">End-to-end (bit)</th>"
-                + "<th class=\"n\">Rate (bit/s)</th><th class=\"n\">Latency (s)</th>"
+                + "<th class=\"n\">Rate (bit/s)</th><th class=\"n\">Shared rate (bit/s)</th>"
+                + "<th class=\"n\">Latency (s)</th>"
                 + "<th class=\"n\">Direct (bit)</th><th>Limited by</th><th>Advice</th></tr>\n");
-        for (RouteReport r : plan.routes()) {
+        List<SharedRates.Share> shares = SharedRates.of(plan);
+        for (int i = 0; i < plan.routes().size(); i++) {
+            RouteReport r = plan.routes().get(i);
+            SharedRates.Share sh = shares.get(i);
             h.append("<tr><td>").append(esc(r.from())).append("</td><td>").append(esc(r.to())).append("</td>");
             if (!r.reachable()) {
                 h.append("<td class=\"bad\">unreachable</td><td></td>");
@@ -224,6 +229,13 @@ public final class PlanHtml {
             boolean slow = r.reachable() && r.rateBitsPerS() < target;
             h.append("<td class=\"n").append(slow || !r.reachable() ? " bad" : "").append("\">")
                     .append(r.reachable() ? esc(num(r.rateBitsPerS())) : "0").append("</td>");
+            boolean slowShared = r.reachable() && sh.rateBitsPerS() < target;
+            h.append("<td class=\"n").append(slowShared ? " bad" : "").append("\"");
+            if (sh.limitedAt() != null && sh.sharedWith() > 1) {
+                h.append(" title=\"").append(esc(sh.limitedAt() + "'s stream carries " + sh.sharedWith() + " demands"))
+                        .append("\"");
+            }
+            h.append(">").append(r.reachable() ? esc(num(sh.rateBitsPerS())) : "0").append("</td>");
             numCell(h, r.reachable() ? num(r.latencyS()) : "–");
             numCell(h, r.directCapacityBits() == null ? "none" : bits(r.directCapacityBits()));
             h.append("<td>").append(r.bottleneckLimitedBy() == null ? "" : esc(r.bottleneckLimitedBy().id()))
@@ -231,6 +243,9 @@ public final class PlanHtml {
                     .append("</td></tr>\n");
         }
         h.append("</table></div>\n");
+        h.append("<p class=\"note\">Shared rate: when several demands' routes pass through one emitter, its one "
+                + "symbol stream is time-shared among them (max-min fair); the rate column is what a demand gets "
+                + "alone.</p>\n");
         if (target > 0) {
             h.append("<p class=\"note\">Rates below the target of ").append(esc(num(target)))
                     .append(" bit/s are marked in red.</p>\n");

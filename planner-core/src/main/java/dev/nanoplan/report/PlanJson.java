@@ -7,6 +7,8 @@ import dev.nanoplan.plan.Impairment;
 import dev.nanoplan.plan.LinkReport;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.RouteReport;
+import dev.nanoplan.plan.SharedRates;
+import java.util.List;
 
 /**
  * The {@code plan --json} object of DESIGN.md §4.3 (stable snake_case keys; more may be added).
@@ -18,7 +20,9 @@ import dev.nanoplan.plan.RouteReport;
  * <p>Extras beyond the contract — links: {@code log10_error_probability}, {@code isi_mean},
  * {@code background_mean}, {@code top_interferer_share}, {@code crossover_zero},
  * {@code crossover_one}, {@code model_caveat}; routes: {@code reachable}, {@code limited_by},
- * {@code advice}.
+ * {@code advice}, and the rate when routes share emitters ({@link SharedRates}):
+ * {@code shared_rate_bits_per_s}, {@code shared_at} (the emitter whose stream is used up, or
+ * null) and {@code shared_with} (demands through it).
  *
  * <p>JSON has no NaN or infinity: every non-finite number is written as {@code null}; so is a
  * budget's {@code molecules_per_symbol_needed} when it is unknown (negative in the record), and
@@ -40,8 +44,14 @@ public final class PlanJson {
             links.add(link(l));
         }
         ArrayNode routes = o.putArray("routes");
-        for (RouteReport r : plan.routes()) {
-            routes.add(route(r));
+        List<SharedRates.Share> shares = SharedRates.of(plan);
+        for (int i = 0; i < plan.routes().size(); i++) {
+            ObjectNode r = route(plan.routes().get(i));
+            SharedRates.Share sh = shares.get(i);
+            number(r, "shared_rate_bits_per_s", sh.rateBitsPerS());
+            text(r, "shared_at", sh.limitedAt());
+            r.put("shared_with", sh.sharedWith());
+            routes.add(r);
         }
         ArrayNode budgets = o.putArray("budgets");
         for (BudgetReport b : plan.budgets()) {

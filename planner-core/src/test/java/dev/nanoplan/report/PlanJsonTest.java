@@ -1,6 +1,7 @@
 package dev.nanoplan.report;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
@@ -76,6 +77,17 @@ class PlanJsonTest {
         assertThat(unreachable.get("hops").size()).isZero();
         assertThat(unreachable.get("bottleneck_link").isNull()).isTrue();
         assertThat(unreachable.get("reachable").asBoolean()).isFalse();
+        // derived by hand (max-min fair sharing, Bertsekas and Gallager, Data Networks, 1992, §6.5.2): s1 and s2
+        // both pass the relay, whose stream carries 0.97 bit/s; both route ceilings (0.80, 0.53) are above 0.97/2
+        for (int i = 0; i < 2; i++) {
+            assertThat(routes.get(i).get("shared_rate_bits_per_s").asDouble()).isCloseTo(0.485, within(1e-12));
+            assertThat(routes.get(i).get("shared_at").asText()).isEqualTo("relay");
+            assertThat(routes.get(i).get("shared_with").asInt()).isEqualTo(2);
+        }
+        // alone on its emitter: its own route rate
+        assertThat(routes.get(2).get("shared_rate_bits_per_s").asDouble()).isEqualTo(0.12);
+        assertThat(routes.get(2).get("shared_at").isNull()).isTrue();
+        assertThat(unreachable.get("shared_rate_bits_per_s").asDouble()).isZero();
     }
 
     @Test
