@@ -38,12 +38,8 @@ import org.openjdk.jmh.annotations.Threads;
  * and nothing else. Read the {@code moleculeSteps} secondary result (a rate). Run e.g.
  * {@code java -cp target/test-classes:target/classes:<deps> org.openjdk.jmh.Main SimBench -f 1 -wi 2 -i 8 -r 2s}.
  *
- * <p>Measured on the 2-core build machine while other jobs shared it (load average 8–11), so
- * figures are low and noisy; median of 8 two-second iterations, molecule-steps per second over
- * both threads: floor 6.5e7, open medium with one receiver 1.0e8, box with 50 receivers 5.1e7
- * (iterations ranged 3.2e7–6.5e7). The open-medium case beating the floor shows the floor loop
- * itself compiles less well than the simulator's; the ratios (≥ 60 % with one receiver, ≥ 40 %
- * with 50) are met with margin but should be re-measured on an idle machine.
+ * <p>Figures measured and the targets met or missed are kept in the README's Speed table (the
+ * machine is shared, so read them with the load average recorded there).
  */
 @State(Scope.Thread)
 @BenchmarkMode(Mode.Throughput)
