@@ -311,6 +311,10 @@ public final class MainView {
                 text("bottleneck hop", r -> r.bottleneckFrom() == null ? "" : r.bottleneckFrom() + " → " + r.bottleneckTo()),
                 number("end-to-end bit", RouteReport::endToEndCapacityBits),
                 number("rate bit/s", RouteReport::rateBitsPerS),
+                number("shared bit/s", r -> {
+                    var sh = vm.sharedRate(r);
+                    return sh == null ? Double.NaN : sh.rateBitsPerS();
+                }),
                 number("latency s", RouteReport::latencyS),
                 number("direct bit", r -> r.directCapacityBits() == null ? Double.NaN : r.directCapacityBits())));
         routeTable.setItems(vm.routes());
@@ -365,6 +369,12 @@ public final class MainView {
             sb.append("\nBottleneck ").append(r.bottleneckFrom()).append(" → ").append(r.bottleneckTo())
                     .append(r.bottleneckLimitedBy() == null ? "" : " (limited by " + r.bottleneckLimitedBy().id() + ")")
                     .append(". ").append(r.advice() == null ? "" : r.advice());
+            var sh = vm.sharedRate(r);
+            if (sh != null && sh.limitedAt() != null && sh.sharedWith() > 1) {
+                sb.append("\nShared: ").append(Formats.sig(sh.rateBitsPerS())).append(" bit/s, because ")
+                        .append(sh.limitedAt()).append("'s stream carries ").append(sh.sharedWith())
+                        .append(" demands (max-min fair time-sharing).");
+            }
             return sb.toString();
         }, vm.selectedRouteProperty(), vm.links()));
         VBox.setVgrow(routeTable, Priority.ALWAYS);

@@ -505,6 +505,30 @@ public final class PlannerViewModel {
         return links.stream().filter(l -> l.from().equals(from) && l.to().equals(to)).findFirst().orElse(null);
     }
 
+    /**
+     * The rate of this route of the current plan when the demands sharing an emitter time-share its
+     * stream ({@link dev.nanoplan.plan.SharedRates}), or null when the route is not in the plan.
+     */
+    public dev.nanoplan.plan.SharedRates.Share sharedRate(RouteReport route) {
+        Plan p = plan.get();
+        if (p == null) {
+            return null;
+        }
+        if (p != sharesPlan) {
+            java.util.Map<RouteReport, dev.nanoplan.plan.SharedRates.Share> m = new java.util.IdentityHashMap<>();
+            List<dev.nanoplan.plan.SharedRates.Share> all = dev.nanoplan.plan.SharedRates.of(p);
+            for (int i = 0; i < all.size(); i++) {
+                m.put(p.routes().get(i), all.get(i));
+            }
+            shares = m;
+            sharesPlan = p;
+        }
+        return shares.get(route);
+    }
+
+    private Plan sharesPlan;
+    private java.util.Map<RouteReport, dev.nanoplan.plan.SharedRates.Share> shares = java.util.Map.of();
+
     /** The node with this id in the current layout, or null. */
     public Node nodeById(String id) {
         Scenario s = scenario.get();

@@ -5,6 +5,8 @@ import static org.assertj.core.api.Assertions.assertThat;
 import dev.nanoplan.count.CountModelKind;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.plan.Plan;
+import java.util.List;
+import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
@@ -61,6 +63,19 @@ class PlannerViewModelTest {
         assertThat(vm.links()).hasSize(s.demands().size());
         assertThat(vm.busyProperty().get()).isFalse();
         assertThat(vm.dirtyProperty().get()).isFalse();
+    }
+
+    @Test
+    void routesOnTheirOwnEmitterKeepTheirRateWhenShared() throws Exception {
+        opened();
+        // the fake plans one direct route per demand from its own source: no emitter carries two demands, so
+        // max-min fair sharing (Bertsekas and Gallager, Data Networks, 1992, §6.5.2) leaves every route its rate
+        for (RouteReport r : vm.routes()) {
+            var sh = vm.sharedRate(r);
+            assertThat(sh.rateBitsPerS()).isEqualTo(r.rateBitsPerS());
+            assertThat(sh.limitedAt()).isNull();
+        }
+        assertThat(vm.sharedRate(new RouteReport("x", "y", List.of(), 0, null, null, 0, 0, 0, null, null, ""))).isNull();
     }
 
     @Test
