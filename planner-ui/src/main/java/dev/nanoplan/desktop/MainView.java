@@ -461,6 +461,7 @@ public final class MainView {
                 name.setId("species-name-" + (r - 1));
                 TextField d = smallField(sp.diffusionUm2PerSProperty(), "D");
                 d.setTooltip(new Tooltip("Diffusion coefficient; give this or the hydrodynamic radius"));
+                d.setId("species-d-" + (r - 1));
                 TextField radius = smallField(sp.hydrodynamicRadiusNmProperty(), "—");
                 radius.setTooltip(new Tooltip("Hydrodynamic radius: D then follows from Stokes–Einstein, "
                         + "D = kT/(6πηr), at the medium's temperature and viscosity"));
