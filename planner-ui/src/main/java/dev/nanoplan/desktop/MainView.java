@@ -400,11 +400,16 @@ public final class MainView {
         flow.setTooltip(new Tooltip("Bulk flow of the medium: none (still fluid), uniform (the same drift "
                 + "everywhere) or poiseuille (laminar flow along +x, cylinder volumes only)"));
         medium.addRow(row++, new Label("flow"), flow);
-        HBox velocity = new HBox(4, smallField(st.flowVxUmPerSProperty(), "x"), smallField(st.flowVyUmPerSProperty(), "y"),
-                smallField(st.flowVzUmPerSProperty(), "z"));
+        HBox velocity = new HBox(4);
+        for (var p : List.of(st.flowVxUmPerSProperty(), st.flowVyUmPerSProperty(), st.flowVzUmPerSProperty())) {
+            TextField c = smallField(p, "0");
+            c.setPrefColumnCount(3);
+            velocity.getChildren().add(c);
+        }
         Label velocityLabel = new Label("velocity µm/s (x, y, z)");
         showWhen(st, ScenarioSettings.FLOW_PROFILES.get(1), velocityLabel, velocity);
-        medium.addRow(row++, velocityLabel, velocity);
+        // the uniform and the poiseuille fields share one row: only one of them is shown
+        medium.addRow(row, velocityLabel, velocity);
         TextField meanSpeed = field(st.flowMeanSpeedUmPerSProperty());
         meanSpeed.setTooltip(new Tooltip("Mean speed over the cross-section; the speed on the axis is twice this "
                 + "and zero at the wall (Hagen–Poiseuille)"));
@@ -413,6 +418,12 @@ public final class MainView {
         medium.addRow(row++, meanSpeedLabel, meanSpeed);
 
         GridPane signalling = grid();
+        // the medium and signalling fields line up in one column
+        for (GridPane g : List.of(medium, signalling)) {
+            javafx.scene.layout.ColumnConstraints labels = new javafx.scene.layout.ColumnConstraints();
+            labels.setMinWidth(150);
+            g.getColumnConstraints().add(labels);
+        }
         row = 0;
         signalling.addRow(row++, new Label("symbol time s"), field(st.symbolTimeSProperty()));
         signalling.addRow(row++, new Label("ISI memory symbols"), field(st.isiMemorySymbolsProperty()));
@@ -460,6 +471,7 @@ public final class MainView {
                 name.setTooltip(new Tooltip("Renaming renames the species in every node on Apply"));
                 name.setId("species-name-" + (r - 1));
                 TextField d = smallField(sp.diffusionUm2PerSProperty(), "D");
+                d.setPrefColumnCount(6);
                 d.setTooltip(new Tooltip("Diffusion coefficient; give this or the hydrodynamic radius"));
                 d.setId("species-d-" + (r - 1));
                 TextField radius = smallField(sp.hydrodynamicRadiusNmProperty(), "—");
