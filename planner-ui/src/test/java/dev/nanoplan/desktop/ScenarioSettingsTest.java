@@ -264,6 +264,8 @@ class ScenarioSettingsTest {
             Node before = original.nodes().get(i);
             Node after = swapped.nodes().get(i);
             assertThat(after.species()).isEqualTo(before.species().equals("A") ? "B" : "A");
+            // the relays of culture-tank.json absorb A and emit B: both references swap
+            assertThat(after.emitsSpecies()).isEqualTo(before.emitsSpecies().equals("A") ? "B" : "A");
         }
         // the species keep their properties under the new names
         assertThat(swapped.speciesByName().get("B").diffusionUm2PerS())
