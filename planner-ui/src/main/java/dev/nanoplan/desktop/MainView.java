@@ -190,13 +190,9 @@ public final class MainView {
         ComboBox<String> emits = new ComboBox<>();
         emits.setEditable(true);
         emits.valueProperty().bindBidirectional(in.emitsSpeciesProperty());
-        vm.scenarioProperty().addListener((o, a, b) -> {
-            if (b != null) {
-                var names = b.species().stream().map(s -> s.name()).toList();
-                species.getItems().setAll(names);
-                emits.getItems().setAll(names);
-            }
-        });
+        // the layout's species and those declared in the Settings tab that no node uses yet
+        species.setItems(vm.speciesNames());
+        emits.setItems(vm.speciesNames());
         emits.disableProperty().bind(in.roleProperty().isNotEqualTo(Role.RELAY));
         g.addRow(row++, new Label("species"), species);
         g.addRow(row++, new Label("emits"), emits);
@@ -396,7 +392,10 @@ public final class MainView {
         return t;
     }
 
-    /** Medium, signalling and species settings of the whole layout, applied as one undoable edit. */
+    /**
+     * Medium (with bulk flow), signalling (schedule read-only) and species settings of the whole
+     * layout; species can be added, renamed and removed. Apply makes it one undoable edit.
+     */
     private Region settingsPane() {
         ScenarioSettings st = vm.settings();
         GridPane medium = grid();
@@ -404,8 +403,37 @@ public final class MainView {
         medium.addRow(row++, new Label("temperature K"), field(st.temperatureKProperty()));
         medium.addRow(row++, new Label("viscosity mPa·s"), field(st.viscosityMPaSProperty()));
         medium.addRow(row++, new Label("background molecules/s"), field(st.backgroundMoleculesPerSProperty()));
+        ChoiceBox<String> flow = new ChoiceBox<>();
+        flow.getItems().addAll(ScenarioSettings.FLOW_PROFILES);
+        flow.valueProperty().bindBidirectional(st.flowProfileProperty());
+        flow.setId("flow-profile");
+        flow.setTooltip(new Tooltip("Bulk flow of the medium: none (still fluid), uniform (the same drift "
+                + "everywhere) or poiseuille (laminar flow along +x, cylinder volumes only)"));
+        medium.addRow(row++, new Label("flow"), flow);
+        HBox velocity = new HBox(4);
+        for (var p : List.of(st.flowVxUmPerSProperty(), st.flowVyUmPerSProperty(), st.flowVzUmPerSProperty())) {
+            TextField c = smallField(p, "0");
+            c.setPrefColumnCount(3);
+            velocity.getChildren().add(c);
+        }
+        Label velocityLabel = new Label("velocity µm/s (x, y, z)");
+        showWhen(st, ScenarioSettings.FLOW_PROFILES.get(1), velocityLabel, velocity);
+        // the uniform and the poiseuille fields share one row: only one of them is shown
+        medium.addRow(row, velocityLabel, velocity);
+        TextField meanSpeed = field(st.flowMeanSpeedUmPerSProperty());
+        meanSpeed.setTooltip(new Tooltip("Mean speed over the cross-section; the speed on the axis is twice this "
+                + "and zero at the wall (Hagen–Poiseuille)"));
+        Label meanSpeedLabel = new Label("mean speed µm/s");
+        showWhen(st, ScenarioSettings.FLOW_PROFILES.get(2), meanSpeedLabel, meanSpeed);
+        medium.addRow(row++, meanSpeedLabel, meanSpeed);
 
         GridPane signalling = grid();
+        // the medium and signalling fields line up in one column
+        for (GridPane g : List.of(medium, signalling)) {
+            javafx.scene.layout.ColumnConstraints labels = new javafx.scene.layout.ColumnConstraints();
+            labels.setMinWidth(150);
+            g.getColumnConstraints().add(labels);
+        }
         row = 0;
         signalling.addRow(row++, new Label("symbol time s"), field(st.symbolTimeSProperty()));
         signalling.addRow(row++, new Label("ISI memory symbols"), field(st.isiMemorySymbolsProperty()));
@@ -426,40 +454,95 @@ public final class MainView {
         });
         count.valueProperty().bindBidirectional(st.countModelProperty());
         signalling.addRow(row++, new Label("count model"), count);
+        TextField schedule = new TextField();
+        schedule.textProperty().bind(st.scheduleProperty());
+        schedule.setEditable(false);
+        schedule.setFocusTraversable(false);
+        schedule.setPrefColumnCount(8);
+        schedule.getStyleClass().add("read-only");
+        schedule.setId("schedule");
+        Tooltip scheduleTip = new Tooltip(ScenarioSettings.SCHEDULE_HELP);
+        scheduleTip.setWrapText(true);
+        scheduleTip.setMaxWidth(360);
+        schedule.setTooltip(scheduleTip);
+        Label scheduleLabel = new Label("schedule");
+        scheduleLabel.setTooltip(scheduleTip);
+        signalling.addRow(row++, scheduleLabel, schedule);
 
         GridPane species = grid();
+        species.setId("species-grid");
         Runnable fillSpecies = () -> {
             species.getChildren().clear();
-            species.addRow(0, new Label("species"), new Label("diffusion µm²/s"), new Label("half-life s"));
+            species.addRow(0, new Label("name"), new Label("D µm²/s"), new Label("radius nm"),
+                    new Label("half-life s"), new Label("used by"));
             int r = 1;
             for (ScenarioSettings.SpeciesRow sp : st.species()) {
-                TextField half = field(sp.halfLifeSProperty());
-                half.setPromptText("stable");
-                species.addRow(r++, new Label(sp.name()), field(sp.diffusionUm2PerSProperty()), half);
+                TextField name = smallField(sp.nameProperty(), "name");
+                name.setTooltip(new Tooltip("Renaming renames the species in every node on Apply"));
+                name.setId("species-name-" + (r - 1));
+                TextField d = smallField(sp.diffusionUm2PerSProperty(), "D");
+                d.setPrefColumnCount(6);
+                d.setTooltip(new Tooltip("Diffusion coefficient; give this or the hydrodynamic radius"));
+                d.setId("species-d-" + (r - 1));
+                TextField radius = smallField(sp.hydrodynamicRadiusNmProperty(), "—");
+                radius.setTooltip(new Tooltip("Hydrodynamic radius: D then follows from Stokes–Einstein, "
+                        + "D = kT/(6πηr), at the medium's temperature and viscosity"));
+                TextField half = smallField(sp.halfLifeSProperty(), "stable");
+                Label used = new Label();
+                used.textProperty().bind(sp.usageProperty());
+                used.getStyleClass().add("hint");
+                if (!sp.usedBy().isEmpty()) {
+                    used.setTooltip(new Tooltip(String.join(", ", sp.usedBy())));
+                }
+                Button remove = button("−", "Remove this species on Apply (refused while nodes use it)",
+                        () -> vm.removeSpecies(sp));
+                remove.setId("remove-species-" + (r - 1));
+                species.addRow(r++, name, d, radius, half, used, remove);
             }
         };
         fillSpecies.run();
         st.species().addListener((ListChangeListener<ScenarioSettings.SpeciesRow>) c -> fillSpecies.run());
+        Button addSpecies = button("+ Species", "Add a species row: give a name and a diffusion coefficient or "
+                + "a hydrodynamic radius, then Apply", st::addSpecies);
+        addSpecies.setId("add-species");
+        addSpecies.disableProperty().bind(vm.scenarioProperty().isNull());
 
         Button apply = button("Apply", "Apply these settings to the layout (undoable); the plan is recomputed",
                 vm::applySettings);
         apply.disableProperty().bind(vm.scenarioProperty().isNull());
         apply.setId("apply-settings");
         Button revert = button("Revert", "Show the layout's current settings again",
-                () -> st.load(vm.scenarioProperty().get()));
+                () -> st.load(vm.scenarioProperty().get(), vm.unusedSpecies()));
         revert.disableProperty().bind(vm.scenarioProperty().isNull());
-        Label hint = new Label("Half-life blank = stable. A species given by hydrodynamic radius keeps it unless "
-                + "you type another diffusion coefficient.");
+        Label hint = new Label("Give each species a diffusion coefficient or a hydrodynamic radius; half-life "
+                + "blank = stable. A species no node uses yet is kept here and offered in the inspector, but is "
+                + "not saved until a node uses it.");
         hint.getStyleClass().add("hint");
         hint.setWrapText(true);
         VBox box = new VBox(8, section("Medium"), medium, new Separator(), section("Signalling"), signalling,
-                new Separator(), section("Species"), species, hint, new HBox(6, apply, revert));
+                new Separator(), section("Species"), species, addSpecies, hint, new Separator(),
+                new HBox(6, apply, revert));
         box.setPadding(new Insets(10));
         box.getStyleClass().add("inspector");
         javafx.scene.control.ScrollPane scroll = new javafx.scene.control.ScrollPane(box);
         scroll.setFitToWidth(true);
         scroll.getStyleClass().add("inspector");
         return scroll;
+    }
+
+    /** Shows (and lays out) the nodes only while the flow profile is {@code profile}. */
+    private static void showWhen(ScenarioSettings st, String profile, javafx.scene.Node... nodes) {
+        for (javafx.scene.Node n : nodes) {
+            n.visibleProperty().bind(st.flowProfileProperty().isEqualTo(profile));
+            n.managedProperty().bind(n.visibleProperty());
+        }
+    }
+
+    private static TextField smallField(javafx.beans.property.StringProperty p, String prompt) {
+        TextField f = field(p);
+        f.setPrefColumnCount(4);
+        f.setPromptText(prompt);
+        return f;
     }
 
     private static GridPane grid() {

@@ -13,6 +13,7 @@ import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioException;
 import dev.nanoplan.scenario.ScenarioReader;
 import dev.nanoplan.scenario.ScenarioWriter;
+import dev.nanoplan.scenario.Species;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -88,6 +89,8 @@ public final class PlannerViewModel {
     private final ObservableList<DemandComparison> comparison = FXCollections.observableArrayList();
     private final NodeInspector inspector = new NodeInspector();
     private final ScenarioSettings settings = new ScenarioSettings();
+    private final ObservableList<Species> unusedSpecies = FXCollections.observableArrayList();
+    private final ObservableList<String> speciesNames = FXCollections.observableArrayList();
     private final UndoStack undo = new UndoStack();
     private final RecentFiles recent;
 
@@ -160,6 +163,7 @@ public final class PlannerViewModel {
         selectedRoute.set(null);
         // the message comes before the plan is scheduled, so a fast planning failure is not overwritten
         message.set(from == null ? "new layout" : "opened " + from.getFileName());
+        unusedSpecies.clear();
         setScenario(s);
         dirty.set(false);
     }
@@ -204,7 +208,9 @@ public final class PlannerViewModel {
         file.set(path);
         dirty.set(false);
         recent.add(path);
-        message.set("saved " + path.getFileName());
+        message.set("saved " + path.getFileName() + (unusedSpecies.isEmpty() ? ""
+                : " (species no node uses are not saved: "
+                        + String.join(", ", unusedSpecies.stream().map(Species::name).toList()) + ")"));
         return true;
     }
 
@@ -230,14 +236,39 @@ public final class PlannerViewModel {
             message.set(label + " refused: " + e.getMessage());
             return false;
         }
-        if (after == null || after.equals(before)) {
+        if (after == null) {
             return false;
         }
-        undo.push(new UndoStack.Edit(label, before, after));
+        // species no node uses any more stay declared in the editor, beside the layout
+        List<Species> unusedAfter = new ArrayList<>();
+        Set<String> inLayout = new HashSet<>(after.speciesByName().keySet());
+        for (Species sp : declaredSpecies(before)) {
+            if (inLayout.add(sp.name())) {
+                unusedAfter.add(sp);
+            }
+        }
+        return commit(label, before, after, unusedAfter);
+    }
+
+    /** Records and shows an edit of the layout and its unused species; false if nothing changed. */
+    private boolean commit(String label, Scenario before, Scenario after, List<Species> unusedAfter) {
+        List<Species> unusedBefore = List.copyOf(unusedSpecies);
+        if (after.equals(before) && unusedAfter.equals(unusedBefore)) {
+            return false;
+        }
+        undo.push(new UndoStack.Edit(label, before, after, unusedBefore, unusedAfter));
+        unusedSpecies.setAll(unusedAfter);
         setScenario(after);
         dirty.set(true);
         message.set(label);
         return true;
+    }
+
+    /** The layout's species followed by the unused ones declared in the editor. */
+    private List<Species> declaredSpecies(Scenario s) {
+        List<Species> all = new ArrayList<>(s.species());
+        all.addAll(unusedSpecies);
+        return all;
     }
 
     /** Undoes the last edit; false when there is none. */
@@ -246,6 +277,7 @@ public final class PlannerViewModel {
         if (e == null) {
             return false;
         }
+        unusedSpecies.setAll(e.unusedBefore());
         setScenario(e.before());
         dirty.set(true);
         message.set("undid " + e.label());
@@ -258,6 +290,7 @@ public final class PlannerViewModel {
         if (e == null) {
             return false;
         }
+        unusedSpecies.setAll(e.unusedAfter());
         setScenario(e.after());
         dirty.set(true);
         message.set("redid " + e.label());
@@ -278,18 +311,49 @@ public final class PlannerViewModel {
     }
 
     /**
-     * Applies the settings panel's fields (medium, signalling, species) as one undoable edit.
-     * A malformed or out-of-range field is refused with a message naming it and changes nothing;
+     * Applies the settings panel's fields (medium and flow, signalling, species added, renamed,
+     * edited or removed) as one undoable edit; the plan is recomputed. A malformed or
+     * out-of-range field is refused with a one-line message naming it and changes nothing;
      * settings equal to the current ones are not an edit.
      *
-     * @return whether the layout changed
+     * @return whether the layout (or its unused species) changed
      */
     public boolean applySettings() {
-        boolean ok = edit("edit settings", settings::applyTo);
-        if (!ok && scenario.get() != null && !message.get().startsWith("edit settings refused")) {
+        String label = "edit settings";
+        Scenario before = scenario.get();
+        if (before == null) {
+            message.set(label + " refused: no layout open");
+            return false;
+        }
+        ScenarioSettings.Applied applied;
+        try {
+            applied = settings.apply(before, unusedSpecies);
+        } catch (IllegalArgumentException e) {
+            message.set(label + " refused: " + e.getMessage());
+            return false;
+        }
+        boolean ok = commit(label, before, applied.scenario(), applied.unusedSpecies());
+        if (!ok) {
             message.set("settings unchanged");
         }
         return ok;
+    }
+
+    /**
+     * Removes a species row from the settings editor (the species leaves on Apply). Refused, with a
+     * one-line message naming the nodes that still use it, when nodes use it; nothing changes then.
+     *
+     * @return whether the row was removed
+     */
+    public boolean removeSpecies(ScenarioSettings.SpeciesRow row) {
+        try {
+            settings.removeSpecies(row);
+        } catch (IllegalArgumentException e) {
+            message.set("remove species refused: " + e.getMessage());
+            return false;
+        }
+        message.set("species " + row.name() + " will be removed on Apply");
+        return true;
     }
 
     /** Applies the inspector's fields to the selected node. */
@@ -416,7 +480,8 @@ public final class PlannerViewModel {
     private void setScenario(Scenario s) {
         maxCapacity.set(Math.log(s.signalling().levels()) / Math.log(2));
         scenario.set(s);
-        settings.load(s);
+        settings.load(s, unusedSpecies);
+        speciesNames.setAll(declaredSpecies(s).stream().map(Species::name).toList());
         String sel = selectedNodeId.get();
         if (sel != null && nodeById(sel) == null) {
             selectedNodeId.set(null);
@@ -646,15 +711,28 @@ public final class PlannerViewModel {
         throw new IllegalArgumentException("no node '" + id + "'");
     }
 
-    private static Scenario replace(Scenario s, String id, Node n) {
+    private Scenario replace(Scenario s, String id, Node n) {
         List<Node> nodes = new ArrayList<>(s.nodes());
         nodes.set(indexOf(nodes, id), n);
         return with(s, nodes, s.demands());
     }
 
-    /** The same scenario with other nodes and demands; the constructor validates the result. */
-    static Scenario with(Scenario s, List<Node> nodes, List<Demand> demands) {
-        return new Scenario(s.name(), s.volume(), s.medium(), s.species(), s.signalling(), nodes, demands,
+    /**
+     * The same scenario with other nodes and demands; the constructor validates the result. Its
+     * species are the declared ones (the layout's and the editor's unused ones, in that order) that
+     * the nodes use, so a node can take up an unused species and a species no node uses any more
+     * moves out of the layout (it stays declared as unused, see {@link #edit}).
+     */
+    Scenario with(Scenario s, List<Node> nodes, List<Demand> demands) {
+        Set<String> used = new HashSet<>();
+        nodes.forEach(n -> {
+            used.add(n.species());
+            used.add(n.emitsSpecies());
+        });
+        Set<String> seen = new HashSet<>();
+        List<Species> species = declaredSpecies(s).stream()
+                .filter(sp -> used.contains(sp.name()) && seen.add(sp.name())).toList();
+        return new Scenario(s.name(), s.volume(), s.medium(), species, s.signalling(), nodes, demands,
                 s.targets());
     }
 
@@ -751,6 +829,20 @@ public final class PlannerViewModel {
     /** The scenario-wide settings editor, reloaded from the layout after every change. */
     public ScenarioSettings settings() {
         return settings;
+    }
+
+    /**
+     * Species declared in the settings editor that no node uses yet. They cannot be part of a
+     * valid {@link Scenario} (nor of a file), so they are kept here, undone and redone with the
+     * layout, and join it as soon as a node uses them.
+     */
+    public ObservableList<Species> unusedSpecies() {
+        return FXCollections.unmodifiableObservableList(unusedSpecies);
+    }
+
+    /** Names a node may use: the layout's species, then the unused ones. */
+    public ObservableList<String> speciesNames() {
+        return FXCollections.unmodifiableObservableList(speciesNames);
     }
 
     public UndoStack undoStack() {

@@ -1,13 +1,27 @@
 package dev.nanoplan.desktop;
 
 import dev.nanoplan.count.CountModelKind;
+import dev.nanoplan.geometry.Vec3;
+import dev.nanoplan.scenario.Flow;
 import dev.nanoplan.scenario.Medium;
+import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.ScenarioProblem;
+import dev.nanoplan.scenario.ScenarioValidator;
+import dev.nanoplan.scenario.Schedule;
 import dev.nanoplan.scenario.Signalling;
 import dev.nanoplan.scenario.Species;
 import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.LinkedHashSet;
 import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.TreeSet;
 import javafx.beans.property.ObjectProperty;
+import javafx.beans.property.ReadOnlyStringProperty;
+import javafx.beans.property.ReadOnlyStringWrapper;
 import javafx.beans.property.SimpleObjectProperty;
 import javafx.beans.property.SimpleStringProperty;
 import javafx.beans.property.StringProperty;
@@ -16,31 +30,75 @@ import javafx.collections.ObservableList;
 
 /**
  * The scenario-wide settings as text the settings panel binds to: the medium (temperature,
- * viscosity, background arrivals), the signalling (symbol time, ISI memory, levels, prior of a
- * one, count model) and, per species, the diffusion coefficient and half-life (blank = stable).
- * {@link #applyTo(Scenario)} parses the fields and builds the new layout; a malformed or
- * out-of-range value is refused with an {@link IllegalArgumentException} whose message names the
- * field (the core records' own checks supply the range messages).
+ * viscosity, bulk flow, background arrivals), the signalling (symbol time, ISI memory, levels,
+ * prior of a one, count model; the schedule is shown read-only because the core has one) and the
+ * species (name, diffusion coefficient or hydrodynamic radius, half-life; rows can be added,
+ * renamed and removed). {@link #apply(Scenario, List)} parses the fields and builds the new layout;
+ * a malformed or out-of-range value is refused with an {@link IllegalArgumentException} whose
+ * one-line message names the field (the core records' and {@link ScenarioValidator}'s own checks
+ * supply the range, name and cross-field messages).
  *
- * <p>A species described by its hydrodynamic radius keeps that description while its diffusion
- * field is left as shown (its coefficient then follows the new temperature and viscosity through
+ * <p>Species: a {@link Scenario} may only declare species some node uses, so a species added here
+ * and not yet used by any node is carried beside the layout as an <em>unused</em> species (shown
+ * in the editor, offered to the node inspector, not written to files) and joins the layout when a
+ * node starts to use it. Renaming a species renames it in every node ({@code species} and
+ * {@code emits_species}), the only place a layout refers to species names. Removing a species
+ * still used by nodes is refused naming them.
+ *
+ * <p>A species is given either by its diffusion coefficient or by its hydrodynamic radius, as in
+ * the file. A species described by its radius keeps that description while its diffusion field is
+ * left as shown (its coefficient then follows the temperature and viscosity through
  * Stokes–Einstein, as when the file is read); typing another diffusion coefficient replaces the
- * radius by that coefficient.
+ * radius by that coefficient. A row with both a typed coefficient and a typed radius is refused.
  */
 public final class ScenarioSettings {
 
-    /** The editable fields of one species; the name is fixed (nodes refer to it). */
-    public static final class SpeciesRow {
-        private final String name;
-        private final StringProperty diffusionUm2PerS = new SimpleStringProperty("");
-        private final StringProperty halfLifeS = new SimpleStringProperty("");
-        private String shownDiffusion = "";
+    /** Flow profiles offered, by their file names ({@link Flow#profile()}). */
+    public static final List<String> FLOW_PROFILES = List.of(new Flow.None().profile(),
+            new Flow.Uniform(Vec3.ZERO).profile(), new Flow.Poiseuille(0).profile());
 
-        SpeciesRow(String name) {
-            this.name = name;
+    /** What the (only) schedule of the core means, for the read-only schedule field's tooltip. */
+    public static final String SCHEDULE_HELP = Schedule.ALL_ACTIVE.id()
+            + ": every emitter of a species sends in every symbol slot, all slots on one clock. "
+            + "It is the only schedule the planner models, so it cannot be changed here.";
+
+    /** The layout plus the species declared in the editor that no node uses yet. */
+    public record Applied(Scenario scenario, List<Species> unusedSpecies) {
+        public Applied {
+            java.util.Objects.requireNonNull(scenario, "scenario");
+            unusedSpecies = List.copyOf(unusedSpecies);
+        }
+    }
+
+    /** The editable fields of one species. */
+    public static final class SpeciesRow {
+        private final String originalName;
+        private final StringProperty name = new SimpleStringProperty("");
+        private final StringProperty diffusionUm2PerS = new SimpleStringProperty("");
+        private final StringProperty hydrodynamicRadiusNm = new SimpleStringProperty("");
+        private final StringProperty halfLifeS = new SimpleStringProperty("");
+        private final ReadOnlyStringWrapper usage = new ReadOnlyStringWrapper("");
+        private List<String> usedBy = List.of();
+        private String shownDiffusion = "";
+        private String shownRadius = "";
+
+        SpeciesRow(String originalName) {
+            this.originalName = originalName;
+            name.set(originalName == null ? "" : originalName);
         }
 
+        /** The name the species has in the layout, or null for a row added in the editor. */
+        public String originalName() {
+            return originalName;
+        }
+
+        /** The name as typed now. */
         public String name() {
+            return name.get();
+        }
+
+        /** The name; changing it renames the species in every node on Apply. */
+        public StringProperty nameProperty() {
             return name;
         }
 
@@ -48,29 +106,64 @@ public final class ScenarioSettings {
             return diffusionUm2PerS;
         }
 
+        /** Hydrodynamic radius in nm (D then follows from Stokes–Einstein); blank if D is given. */
+        public StringProperty hydrodynamicRadiusNmProperty() {
+            return hydrodynamicRadiusNm;
+        }
+
         /** Half-life in seconds; blank means stable (no decay). */
         public StringProperty halfLifeSProperty() {
             return halfLifeS;
+        }
+
+        /** Which nodes use the species, in words ("3 nodes", "not used yet"). */
+        public ReadOnlyStringProperty usageProperty() {
+            return usage.getReadOnlyProperty();
+        }
+
+        /** Ids of the nodes of the loaded layout that use the species (absorb or emit it). */
+        public List<String> usedBy() {
+            return usedBy;
         }
     }
 
     private final StringProperty temperatureK = new SimpleStringProperty("");
     private final StringProperty viscosityMPaS = new SimpleStringProperty("");
     private final StringProperty backgroundMoleculesPerS = new SimpleStringProperty("");
+    private final ObjectProperty<String> flowProfile = new SimpleObjectProperty<>(FLOW_PROFILES.get(0));
+    private final StringProperty flowVxUmPerS = new SimpleStringProperty("");
+    private final StringProperty flowVyUmPerS = new SimpleStringProperty("");
+    private final StringProperty flowVzUmPerS = new SimpleStringProperty("");
+    private final StringProperty flowMeanSpeedUmPerS = new SimpleStringProperty("");
     private final StringProperty symbolTimeS = new SimpleStringProperty("");
     private final StringProperty isiMemorySymbols = new SimpleStringProperty("");
     private final StringProperty levels = new SimpleStringProperty("");
     private final StringProperty priorOne = new SimpleStringProperty("");
     private final ObjectProperty<CountModelKind> countModel = new SimpleObjectProperty<>(CountModelKind.EXACT);
+    private final ReadOnlyStringWrapper schedule = new ReadOnlyStringWrapper("");
     private final ObservableList<SpeciesRow> species = FXCollections.observableArrayList();
+    private final Set<String> removed = new LinkedHashSet<>();
+    private Map<String, List<String>> users = Map.of();
 
     /** Shows a layout's settings (or clears the fields when {@code s} is null). */
     public void load(Scenario s) {
+        load(s, List.of());
+    }
+
+    /**
+     * Shows a layout's settings and, after its species, the species declared in the editor that
+     * no node uses yet.
+     */
+    public void load(Scenario s, List<Species> unused) {
+        removed.clear();
         if (s == null) {
             for (StringProperty p : new StringProperty[] {temperatureK, viscosityMPaS, backgroundMoleculesPerS,
-                symbolTimeS, isiMemorySymbols, levels, priorOne}) {
+                flowVxUmPerS, flowVyUmPerS, flowVzUmPerS, flowMeanSpeedUmPerS, symbolTimeS, isiMemorySymbols,
+                levels, priorOne}) {
                 p.set("");
             }
+            schedule.set("");
+            users = Map.of();
             species.clear();
             return;
         }
@@ -78,34 +171,89 @@ public final class ScenarioSettings {
         temperatureK.set(fmt(m.temperatureK()));
         viscosityMPaS.set(fmt(m.viscosityMPaS()));
         backgroundMoleculesPerS.set(fmt(m.backgroundMoleculesPerS()));
+        Flow f = m.flow();
+        flowProfile.set(f.profile());
+        Vec3 v = f instanceof Flow.Uniform u ? u.velocityUmPerS() : Vec3.ZERO;
+        flowVxUmPerS.set(fmt(v.x()));
+        flowVyUmPerS.set(fmt(v.y()));
+        flowVzUmPerS.set(fmt(v.z()));
+        flowMeanSpeedUmPerS.set(fmt(f instanceof Flow.Poiseuille p ? p.meanSpeedUmPerS() : 0.0));
         Signalling g = s.signalling();
         symbolTimeS.set(fmt(g.symbolTimeS()));
         isiMemorySymbols.set(Integer.toString(g.isiMemorySymbols()));
         levels.set(Integer.toString(g.levels()));
         priorOne.set(fmt(g.priorOne()));
         countModel.set(g.countModel());
+        schedule.set(g.schedule().id());
+        users = usersBySpecies(s.nodes());
         List<SpeciesRow> rows = new ArrayList<>();
-        for (Species sp : s.species()) {
+        List<Species> all = new ArrayList<>(s.species());
+        all.addAll(unused);
+        for (Species sp : all) {
             SpeciesRow r = new SpeciesRow(sp.name());
             r.shownDiffusion = fmt(sp.diffusionUm2PerS());
+            r.shownRadius = sp.hydrodynamicRadiusNm().isPresent() ? fmt(sp.hydrodynamicRadiusNm().getAsDouble()) : "";
             r.diffusionUm2PerS.set(r.shownDiffusion);
+            r.hydrodynamicRadiusNm.set(r.shownRadius);
             r.halfLifeS.set(sp.isStable() ? "" : fmt(sp.halfLifeS()));
+            setUsage(r, users.getOrDefault(sp.name(), List.of()));
             rows.add(r);
         }
         species.setAll(rows);
     }
 
     /**
-     * The layout {@code s} with the settings the fields describe; nodes, demands, volume and
-     * targets are kept, and the {@link Scenario} constructor validates the result.
-     *
-     * @throws IllegalArgumentException naming the field when a value does not parse or is out of range
+     * Adds an empty species row with a fresh name ("C", "D", ..., then "S1", "S2", ...); the user
+     * fills in a diffusion coefficient or a hydrodynamic radius, and Apply declares it.
      */
-    public Scenario applyTo(Scenario s) {
+    public SpeciesRow addSpecies() {
+        Set<String> taken = new HashSet<>();
+        species.forEach(r -> taken.add(r.name()));
+        taken.addAll(removed);
+        String fresh = null;
+        for (char c = 'A'; c <= 'Z' && fresh == null; c++) {
+            fresh = taken.contains(String.valueOf(c)) ? null : String.valueOf(c);
+        }
+        for (int i = 1; fresh == null; i++) {
+            fresh = taken.contains("S" + i) ? null : "S" + i;
+        }
+        SpeciesRow r = new SpeciesRow(null);
+        r.name.set(fresh);
+        setUsage(r, List.of());
+        species.add(r);
+        return r;
+    }
+
+    /**
+     * Removes a species row; the species leaves the layout on Apply.
+     *
+     * @throws IllegalArgumentException (one line, naming the nodes) if nodes of the loaded layout
+     *     still use the species; nothing changes then
+     */
+    public void removeSpecies(SpeciesRow row) {
+        if (!species.contains(row)) {
+            throw new IllegalArgumentException("no species row '" + row.name() + "' in the editor");
+        }
+        if (row.originalName != null) {
+            refuseIfUsed(row.originalName, users.getOrDefault(row.originalName, List.of()));
+            removed.add(row.originalName);
+        }
+        species.remove(row);
+    }
+
+    /**
+     * The layout {@code s} (with the editor's {@code unused} species beside it) changed as the
+     * fields describe. Nodes follow renamed species; volume, demands and targets are kept; the
+     * {@link Scenario} constructor validates the result.
+     *
+     * @throws IllegalArgumentException with a one-line message naming the field when a value does
+     *     not parse, is out of range, a name is blank or taken, or a removed species is still used
+     */
+    public Applied apply(Scenario s, List<Species> unused) {
         Medium medium;
         try {
             medium = new Medium(parse("temperature K", temperatureK.get()),
-                    parse("viscosity mPa·s", viscosityMPaS.get()), s.medium().flow(),
+                    parse("viscosity mPa·s", viscosityMPaS.get()), flow(),
                     parse("background molecules/s", backgroundMoleculesPerS.get()));
         } catch (IllegalArgumentException e) {
             throw prefixed("medium", e);
@@ -118,48 +266,193 @@ public final class ScenarioSettings {
         } catch (IllegalArgumentException e) {
             throw prefixed("signalling", e);
         }
-        List<Species> list = new ArrayList<>();
-        for (Species old : s.species()) {
-            SpeciesRow row = rowFor(old.name());
-            if (row == null) {
-                list.add(old);
-                continue;
-            }
+
+        Map<String, Species> old = new HashMap<>();
+        s.species().forEach(sp -> old.put(sp.name(), sp));
+        unused.forEach(sp -> old.put(sp.name(), sp));
+        List<Species> declared = new ArrayList<>();
+        Map<String, String> renamed = new HashMap<>();
+        for (int i = 0; i < species.size(); i++) {
+            SpeciesRow row = species.get(i);
+            String label = row.originalName != null ? "species " + row.originalName : "new species row " + (i + 1);
             try {
-                list.add(species(old, row, medium));
+                declared.add(species(old.get(row.originalName), row, medium));
             } catch (IllegalArgumentException e) {
-                throw prefixed("species " + old.name(), e);
+                throw prefixed(label, e);
+            }
+            if (row.originalName != null && !row.originalName.equals(row.name())) {
+                renamed.put(row.originalName, row.name());
             }
         }
-        return new Scenario(s.name(), s.volume(), medium, list, signalling, s.nodes(), s.demands(), s.targets());
+        // species the editor did not show (it was loaded from another layout) are kept
+        for (Species sp : concat(s.species(), unused)) {
+            if (rowFor(sp.name()) == null && !removed.contains(sp.name())) {
+                declared.add(species(sp, null, medium));
+            }
+        }
+
+        List<Node> nodes = new ArrayList<>();
+        for (Node n : s.nodes()) {
+            String sp = renamed.getOrDefault(n.species(), n.species());
+            String em = renamed.getOrDefault(n.emitsSpecies(), n.emitsSpecies());
+            nodes.add(sp.equals(n.species()) && em.equals(n.emitsSpecies()) ? n
+                    : new Node(n.id(), n.role(), n.positionUm(), n.radiusUm(), sp, em, n.moleculesPerSymbol()));
+        }
+        Map<String, List<String>> nowUsing = usersBySpecies(nodes);
+        for (String gone : removed) {
+            if (!renamed.containsKey(gone)) {
+                refuseIfUsed(gone, nowUsing.getOrDefault(gone, List.of()));
+            }
+        }
+        checkNames(s, medium, declared, nodes, nowUsing.keySet());
+
+        List<Species> inLayout = new ArrayList<>();
+        List<Species> notUsed = new ArrayList<>();
+        for (Species sp : declared) {
+            (nowUsing.containsKey(sp.name()) ? inLayout : notUsed).add(sp);
+        }
+        try {
+            return new Applied(new Scenario(s.name(), s.volume(), medium, inLayout, signalling, nodes, s.demands(),
+                    s.targets()), notUsed);
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException(oneLine(e.getMessage()), e);
+        }
     }
 
+    /**
+     * Duplicate names, with the core's own check and message (the paths count the editor's rows
+     * from 0 in the order shown, as the file's {@code species[i]}); the "not used by any node"
+     * problem is expected for unused species and skipped.
+     */
+    private static void checkNames(Scenario s, Medium medium, List<Species> declared, List<Node> nodes,
+            Set<String> used) {
+        Set<String> seen = new HashSet<>();
+        Set<String> skip = new HashSet<>();
+        for (int i = 0; i < declared.size(); i++) {
+            String name = declared.get(i).name();
+            if (seen.add(name) && !used.contains(name)) {
+                skip.add("species[" + i + "].name");
+            }
+        }
+        for (ScenarioProblem p : ScenarioValidator.check(s.volume(), medium.flow(), declared, nodes, s.demands())) {
+            if (p.path().startsWith("species[") && !skip.contains(p.path())) {
+                throw new IllegalArgumentException(p.toString());
+            }
+        }
+    }
+
+    private Flow flow() {
+        String profile = flowProfile.get();
+        try {
+            if (FLOW_PROFILES.get(1).equals(profile)) {
+                return new Flow.Uniform(new Vec3(parse("flow velocity x µm/s", flowVxUmPerS.get()),
+                        parse("flow velocity y µm/s", flowVyUmPerS.get()),
+                        parse("flow velocity z µm/s", flowVzUmPerS.get())));
+            }
+            if (FLOW_PROFILES.get(2).equals(profile)) {
+                String field = "flow mean speed µm/s";
+                double u = parse(field, flowMeanSpeedUmPerS.get());
+                try {
+                    return new Flow.Poiseuille(u);
+                } catch (IllegalArgumentException e) {
+                    throw prefixed(field, e);
+                }
+            }
+            if (FLOW_PROFILES.get(0).equals(profile)) {
+                return new Flow.None();
+            }
+        } catch (IllegalArgumentException e) {
+            throw prefixed("flow", e);
+        }
+        throw new IllegalArgumentException("flow: unknown profile '" + profile + "', expected one of " + FLOW_PROFILES);
+    }
+
+    /** The species a row describes; {@code row == null} re-derives {@code old} in the new medium. */
     private static Species species(Species old, SpeciesRow row, Medium medium) {
-        String halfText = row.halfLifeS.get() == null ? "" : row.halfLifeS.get().trim();
+        if (row == null) {
+            return old.hydrodynamicRadiusNm().isPresent()
+                    ? Species.ofHydrodynamicRadius(old.name(), old.hydrodynamicRadiusNm().getAsDouble(), old.halfLifeS(),
+                            medium)
+                    : old;
+        }
+        String name = row.name.get();
+        String halfText = trim(row.halfLifeS.get());
         double halfLifeS = halfText.isEmpty() ? Double.POSITIVE_INFINITY : parse("half-life s", halfText);
-        String dText = row.diffusionUm2PerS.get() == null ? "" : row.diffusionUm2PerS.get().trim();
-        if (old.hydrodynamicRadiusNm().isPresent() && dText.equals(row.shownDiffusion)) {
-            return Species.ofHydrodynamicRadius(old.name(), old.hydrodynamicRadiusNm().getAsDouble(), halfLifeS,
-                    medium);
+        String dText = trim(row.diffusionUm2PerS.get());
+        String rText = trim(row.hydrodynamicRadiusNm.get());
+        boolean dTyped = !dText.isEmpty() && !dText.equals(row.shownDiffusion);
+        boolean rTyped = !rText.isEmpty() && !rText.equals(row.shownRadius);
+        if (dTyped && rTyped) {
+            throw new IllegalArgumentException("give either diffusion µm²/s or hydrodynamic radius nm, not both");
+        }
+        if (!dTyped && !rText.isEmpty()) {
+            double r = parse("hydrodynamic radius nm", rText);
+            if (!(r > 0)) {
+                throw new IllegalArgumentException("hydrodynamic radius nm must be > 0, got " + rText);
+            }
+            return Species.ofHydrodynamicRadius(name, r, halfLifeS, medium);
+        }
+        if (dText.isEmpty()) {
+            throw new IllegalArgumentException("diffusion µm²/s: missing (give diffusion µm²/s or hydrodynamic radius nm)");
         }
         double d = parse("diffusion µm²/s", dText);
         if (!(d > 0)) {
             throw new IllegalArgumentException("diffusion µm²/s must be > 0, got " + dText);
         }
-        return Species.ofDiffusion(old.name(), d, halfLifeS);
+        return Species.ofDiffusion(name, d, halfLifeS);
+    }
+
+    private static void refuseIfUsed(String name, List<String> nodeIds) {
+        if (!nodeIds.isEmpty()) {
+            int shown = Math.min(6, nodeIds.size());
+            String list = String.join(", ", nodeIds.subList(0, shown))
+                    + (nodeIds.size() > shown ? " and " + (nodeIds.size() - shown) + " more" : "");
+            throw new IllegalArgumentException("species " + name + " is still used by node"
+                    + (nodeIds.size() == 1 ? " " : "s ") + list + "; give them another species first");
+        }
+    }
+
+    /** Node ids per species name they absorb or emit, ids in layout order. */
+    private static Map<String, List<String>> usersBySpecies(List<Node> nodes) {
+        Map<String, List<String>> m = new HashMap<>();
+        for (Node n : nodes) {
+            for (String sp : new TreeSet<>(List.of(n.species(), n.emitsSpecies()))) {
+                m.computeIfAbsent(sp, k -> new ArrayList<>()).add(n.id());
+            }
+        }
+        return m;
+    }
+
+    private static void setUsage(SpeciesRow r, List<String> ids) {
+        r.usedBy = List.copyOf(ids);
+        r.usage.set(ids.isEmpty() ? "not used yet" : ids.size() == 1 ? "node " + ids.get(0) : ids.size() + " nodes");
+    }
+
+    private static <T> List<T> concat(List<T> a, List<T> b) {
+        List<T> out = new ArrayList<>(a);
+        out.addAll(b);
+        return out;
     }
 
     private SpeciesRow rowFor(String name) {
         for (SpeciesRow r : species) {
-            if (r.name.equals(name)) {
+            if (name.equals(r.originalName)) {
                 return r;
             }
         }
         return null;
     }
 
+    private static String trim(String s) {
+        return s == null ? "" : s.trim();
+    }
+
+    private static String oneLine(String message) {
+        return message == null ? "" : message.replace(":\n", ": ").replace("\n", "; ");
+    }
+
     private static IllegalArgumentException prefixed(String where, IllegalArgumentException e) {
-        return new IllegalArgumentException(where + ": " + e.getMessage(), e);
+        return new IllegalArgumentException(where + ": " + oneLine(e.getMessage()), e);
     }
 
     private static String fmt(double v) {
@@ -167,7 +460,7 @@ public final class ScenarioSettings {
     }
 
     private static double parse(String field, String text) {
-        String t = text == null ? "" : text.trim();
+        String t = trim(text);
         try {
             double v = Double.parseDouble(t);
             if (!Double.isFinite(v)) {
@@ -180,7 +473,7 @@ public final class ScenarioSettings {
     }
 
     private static int parseInt(String field, String text) {
-        String t = text == null ? "" : text.trim();
+        String t = trim(text);
         try {
             return Integer.parseInt(t);
         } catch (NumberFormatException e) {
@@ -198,6 +491,31 @@ public final class ScenarioSettings {
 
     public StringProperty backgroundMoleculesPerSProperty() {
         return backgroundMoleculesPerS;
+    }
+
+    /** The flow profile, one of {@link #FLOW_PROFILES}. */
+    public ObjectProperty<String> flowProfileProperty() {
+        return flowProfile;
+    }
+
+    /** Uniform flow: x component of the velocity in µm/s. */
+    public StringProperty flowVxUmPerSProperty() {
+        return flowVxUmPerS;
+    }
+
+    /** Uniform flow: y component of the velocity in µm/s. */
+    public StringProperty flowVyUmPerSProperty() {
+        return flowVyUmPerS;
+    }
+
+    /** Uniform flow: z component of the velocity in µm/s. */
+    public StringProperty flowVzUmPerSProperty() {
+        return flowVzUmPerS;
+    }
+
+    /** Poiseuille flow: mean speed over the cylinder's cross-section in µm/s (2× on the axis). */
+    public StringProperty flowMeanSpeedUmPerSProperty() {
+        return flowMeanSpeedUmPerS;
     }
 
     public StringProperty symbolTimeSProperty() {
@@ -220,13 +538,27 @@ public final class ScenarioSettings {
         return countModel;
     }
 
-    /** One row per species of the loaded layout, in the layout's order. */
+    /** The schedule's file name, read-only (see {@link #SCHEDULE_HELP}). */
+    public ReadOnlyStringProperty scheduleProperty() {
+        return schedule.getReadOnlyProperty();
+    }
+
+    /** One row per species: the layout's in its order, then the unused ones, then added rows. */
     public ObservableList<SpeciesRow> species() {
         return species;
     }
 
-    /** The row of the species with this name, or null. */
+    /** The row of the species with this layout name (or, for added rows, this typed name), or null. */
     public SpeciesRow species(String name) {
-        return rowFor(name);
+        SpeciesRow r = rowFor(name);
+        if (r != null) {
+            return r;
+        }
+        for (SpeciesRow row : species) {
+            if (name.equals(row.name())) {
+                return row;
+            }
+        }
+        return null;
     }
 }

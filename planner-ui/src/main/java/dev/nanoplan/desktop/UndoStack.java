@@ -1,8 +1,10 @@
 package dev.nanoplan.desktop;
 
 import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Species;
 import java.util.ArrayDeque;
 import java.util.Deque;
+import java.util.List;
 import java.util.Objects;
 import javafx.beans.property.ReadOnlyBooleanProperty;
 import javafx.beans.property.ReadOnlyBooleanWrapper;
@@ -11,7 +13,8 @@ import javafx.beans.property.ReadOnlyStringWrapper;
 
 /**
  * Undo/redo of scenario edits. Scenarios are immutable records, so an edit is the pair of the
- * layout before and after it; undoing restores "before", redoing restores "after". A new edit
+ * layout before and after it (plus the editor's unused species); undoing restores "before",
+ * redoing restores "after". A new edit
  * clears the redo side. At most {@value #LIMIT} edits are kept (oldest dropped). O(1) per call.
  */
 public final class UndoStack {
@@ -19,12 +22,23 @@ public final class UndoStack {
     /** Most edits kept. */
     public static final int LIMIT = 500;
 
-    /** One edit: a label for menus and the layouts around it. */
-    public record Edit(String label, Scenario before, Scenario after) {
+    /**
+     * One edit: a label for menus, the layouts around it, and the species declared in the editor
+     * that no node uses yet before and after it (they cannot be part of a valid {@link Scenario}).
+     */
+    public record Edit(String label, Scenario before, Scenario after, List<Species> unusedBefore,
+            List<Species> unusedAfter) {
         public Edit {
             Objects.requireNonNull(label, "label");
             Objects.requireNonNull(before, "before");
             Objects.requireNonNull(after, "after");
+            unusedBefore = List.copyOf(unusedBefore);
+            unusedAfter = List.copyOf(unusedAfter);
+        }
+
+        /** An edit of the layout alone (no unused species on either side). */
+        public Edit(String label, Scenario before, Scenario after) {
+            this(label, before, after, List.of(), List.of());
         }
     }
 

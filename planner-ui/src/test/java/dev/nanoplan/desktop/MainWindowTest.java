@@ -246,4 +246,44 @@ class MainWindowTest {
         assertThat(p.scenario().signalling().symbolTimeS()).isEqualTo(0.5);
         assertThat(onFx(() -> w.vm().undoStack().canUndoProperty().get())).isTrue();
     }
+
+    @Test
+    void settingsTabAddsASpeciesThroughItsButtons() throws Exception {
+        Window w = open("culture-tank");
+        onFx(() -> {
+            assertThat(w.view().showTab("Settings")).isTrue();
+            Parent pane = (Parent) w.view().tabs().getSelectionModel().getSelectedItem().getContent();
+            ((javafx.scene.control.Button) pane.lookup("#add-species")).fire();
+            return null;
+        });
+        WaitForAsyncUtils.waitForFxEvents();
+        onFx(() -> {
+            Parent pane = (Parent) w.view().tabs().getSelectionModel().getSelectedItem().getContent();
+            // culture-tank.json declares A and B: the added row is the third
+            javafx.scene.control.TextField name = (javafx.scene.control.TextField) pane.lookup("#species-name-2");
+            javafx.scene.control.TextField d = (javafx.scene.control.TextField) pane.lookup("#species-d-2");
+            assertThat(name).isNotNull();
+            name.setText("lactate");
+            d.setText("95");
+            ((javafx.scene.control.Button) pane.lookup("#apply-settings")).fire();
+            return null;
+        });
+        WaitForAsyncUtils.waitForFxEvents();
+        onFx(() -> {
+            assertThat(w.vm().messageProperty().get()).isEqualTo("edit settings");
+            Parent pane = (Parent) w.view().tabs().getSelectionModel().getSelectedItem().getContent();
+            // the species list, rebuilt from the view model after Apply, shows the new species
+            List<String> names = new ArrayList<>();
+            for (Node n : ((Parent) pane.lookup("#species-grid")).getChildrenUnmodifiable()) {
+                if (n instanceof javafx.scene.control.TextField f && f.getId() != null
+                        && f.getId().startsWith("species-name-")) {
+                    names.add(f.getText());
+                }
+            }
+            assertThat(names).containsExactly("A", "B", "lactate");
+            assertThat(w.vm().speciesNames()).contains("lactate");
+            assertThat(w.vm().undoStack().canUndoProperty().get()).isTrue();
+            return null;
+        });
+    }
 }
