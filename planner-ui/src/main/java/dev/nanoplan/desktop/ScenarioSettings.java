@@ -191,7 +191,10 @@ public final class ScenarioSettings {
         all.addAll(unused);
         for (Species sp : all) {
             SpeciesRow r = new SpeciesRow(sp.name());
-            r.shownDiffusion = fmt(sp.diffusionUm2PerS());
+            // a radius-given species' D is derived (Stokes–Einstein): shown to 4 digits, it is only used if retyped
+            r.shownDiffusion = sp.hydrodynamicRadiusNm().isPresent()
+                    ? String.format(java.util.Locale.ROOT, "%.4g", sp.diffusionUm2PerS())
+                    : fmt(sp.diffusionUm2PerS());
             r.shownRadius = sp.hydrodynamicRadiusNm().isPresent() ? fmt(sp.hydrodynamicRadiusNm().getAsDouble()) : "";
             r.diffusionUm2PerS.set(r.shownDiffusion);
             r.hydrodynamicRadiusNm.set(r.shownRadius);
