@@ -269,13 +269,16 @@ public final class SimulationViewModel {
 
         static Work of(Scenario s, SimulationSettings settings) {
             int emitters = (int) s.nodes().stream().filter(n -> n.role().emits()).count();
-            double dt = new ParticleSimulator(settings).timeStepS(s);
             int slots = s.signalling().isiMemorySymbols() + 1;
+            double dt;
             long steps;
             try {
+                dt = new ParticleSimulator(settings).timeStepS(s);
                 steps = (long) TimeStepRule.stepsPerSymbol(s.signalling().symbolTimeS(), dt) * slots;
             } catch (IllegalArgumentException e) {
-                throw new IllegalArgumentException(TIME_STEP_FIELD + ": too small: " + e.getMessage());
+                // the core names its parameter (timeStepS); the user knows the field by its label
+                throw new IllegalArgumentException(TIME_STEP_FIELD + ": too small ("
+                        + e.getMessage().replaceFirst("^timeStepS: ", "") + ")");
             }
             if (steps > Integer.MAX_VALUE) {
                 throw new IllegalArgumentException(TIME_STEP_FIELD + ": " + Formats.sig(dt) + " s needs " + steps
