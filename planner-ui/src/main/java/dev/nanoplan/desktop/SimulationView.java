@@ -27,7 +27,7 @@ import javafx.scene.layout.VBox;
  *
  * <p>Node ids for tests: {@code sim-run}, {@code sim-cancel}, {@code sim-progress},
  * {@code sim-status}, {@code sim-stale}, {@code sim-table}, {@code sim-molecules}, {@code sim-seed},
- * {@code sim-dt}.
+ * {@code sim-dt}, {@code sim-selected}.
  */
 public final class SimulationView {
 
@@ -53,8 +53,11 @@ public final class SimulationView {
         GridPane fields = new GridPane();
         fields.setHgap(6);
         fields.setVgap(5);
-        fields.addRow(0, new Label(SimulationViewModel.MOLECULES_FIELD), molecules, new Label(SimulationViewModel.SEED_FIELD),
-                seed, new Label(SimulationViewModel.TIME_STEP_FIELD), dt);
+        fields.addRow(0, label(SimulationViewModel.MOLECULES_FIELD), molecules);
+        fields.addRow(1, label(SimulationViewModel.SEED_FIELD), seed);
+        Label auto = new Label("blank = automatic");
+        auto.getStyleClass().add("hint");
+        fields.addRow(2, label(SimulationViewModel.TIME_STEP_FIELD), dt, auto);
 
         Button run = new Button("Run");
         run.setId("sim-run");
@@ -94,6 +97,14 @@ public final class SimulationView {
         stale.managedProperty().bind(vm.staleProperty());
 
         buildTable();
+        Label selected = new Label();
+        selected.setId("sim-selected");
+        selected.setWrapText(true);
+        selected.textProperty().bind(Bindings.createStringBinding(() -> {
+            SimulationRow r = table.getSelectionModel().getSelectedItem();
+            return r == null ? "Select a row to read why it is or is not flagged (⚑ = clear and relevant difference)."
+                    : r.from() + " → " + r.to() + (r.flagged() ? " ⚑ " : ": ") + r.reason();
+        }, table.getSelectionModel().selectedItemProperty()));
         Label caution = new Label(CAUTION);
         caution.getStyleClass().add("caution");
         caution.setWrapText(true);
@@ -101,7 +112,7 @@ public final class SimulationView {
         Label head = new Label("Particle simulation versus the closed form");
         head.getStyleClass().add("section");
         VBox.setVgrow(table, Priority.ALWAYS);
-        root = new VBox(8, head, fields, estimate, controls, status, stale, table, caution);
+        root = new VBox(8, head, fields, estimate, controls, status, stale, table, selected, caution);
         root.setPadding(new Insets(10));
         root.getStyleClass().add("inspector");
         root.setUserData(this);
@@ -121,27 +132,30 @@ public final class SimulationView {
     }
 
     private void buildTable() {
-        TableColumn<SimulationRow, Double> se = MainView.numberText("±", SimulationRow::standardError,
-                r -> Formats.sig(r.standardError()));
-        TableColumn<SimulationRow, String> flag = MainView.text("flag", r -> r.flagged() ? "⚑ flagged" : "ok");
+        TableColumn<SimulationRow, String> flag = MainView.text("", r -> r.flagged() ? "⚑" : "");
+        flag.setComparator((a, b) -> b.compareTo(a));
+        flag.setPrefWidth(28);
         TableColumn<SimulationRow, String> reason = MainView.text("reason", SimulationRow::reason);
-        reason.setPrefWidth(280);
+        reason.setPrefWidth(340);
         table.getColumns().addAll(List.of(
-                MainView.text("emitter", SimulationRow::from),
-                MainView.text("receiver", SimulationRow::to),
-                MainView.number("p0 analytic", SimulationRow::analyticHitProbability),
-                MainView.number("p0 simulated", SimulationRow::simulatedHitProbability),
-                se,
-                MainView.number("z", SimulationRow::zScore),
-                MainView.numberText("Δ %", r -> r.relativeDifference() * 100,
-                        r -> Double.isNaN(r.relativeDifference()) ? "—"
-                                : String.format(Locale.ROOT, "%+.1f", r.relativeDifference() * 100)),
-                MainView.numberText("capacity analytic bit", SimulationRow::analyticCapacityBits,
-                        r -> capacity(r.analyticCapacityBits())),
-                MainView.numberText("capacity simulated bit", SimulationRow::simulatedCapacityBits,
-                        r -> capacity(r.simulatedCapacityBits())),
                 flag,
+                width(MainView.text("emitter", SimulationRow::from), 70),
+                width(MainView.text("receiver", SimulationRow::to), 70),
+                width(MainView.number("p0 analytic", SimulationRow::analyticHitProbability), 80),
+                width(MainView.number("p0 simulated", SimulationRow::simulatedHitProbability), 100),
+                width(MainView.number("± s.e.", SimulationRow::standardError), 70),
+                width(MainView.number("z", SimulationRow::zScore), 75),
+                width(MainView.numberText("Δ %", r -> r.relativeDifference() * 100,
+                        r -> Double.isNaN(r.relativeDifference()) ? "—"
+                                : String.format(Locale.ROOT, "%+.1f", r.relativeDifference() * 100)), 75),
+                width(MainView.numberText("C analytic bit", SimulationRow::analyticCapacityBits,
+                        r -> capacity(r.analyticCapacityBits())), 95),
+                width(MainView.numberText("C simulated bit", SimulationRow::simulatedCapacityBits,
+                        r -> capacity(r.simulatedCapacityBits())), 105),
                 reason));
+        for (TableColumn<SimulationRow, ?> c : table.getColumns()) {
+            c.setMinWidth(Region.USE_PREF_SIZE);
+        }
         table.setItems(vm.rows());
         table.setId("sim-table");
         table.setPlaceholder(new Label("Press Run to simulate the layout and compare each link with the closed form."));
@@ -157,9 +171,21 @@ public final class SimulationView {
                 if (item.flagged()) {
                     getStyleClass().add("sim-flagged");
                 }
-                setTooltip(new Tooltip((item.flagged() ? "Flagged: " : "") + item.reason()));
+                setTooltip(new Tooltip(item.from() + " → " + item.to() + ": " + (item.flagged() ? "flagged — " : "")
+                        + item.reason()));
             }
         });
+    }
+
+    private static <T, V> TableColumn<T, V> width(TableColumn<T, V> c, double px) {
+        c.setPrefWidth(px);
+        return c;
+    }
+
+    private static Label label(String text) {
+        Label l = new Label(text);
+        l.setMinWidth(Region.USE_PREF_SIZE);
+        return l;
     }
 
     /** A plan's capacity, or "below floor" when the plan left the link out. */
