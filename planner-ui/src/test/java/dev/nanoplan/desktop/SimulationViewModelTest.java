@@ -145,6 +145,38 @@ class SimulationViewModelTest {
     }
 
     @Test
+    void stateChangesArriveOnTheUiExecutorAtMostOneProgressUpdateQueuedAtATime() throws Exception {
+        // a slow "UI thread": this test thread drains a queue every 200 ms, as a busy FX thread would;
+        // blocks finish every few tens of ms, so without coalescing several updates would pile up
+        java.util.concurrent.BlockingQueue<Runnable> ui = new java.util.concurrent.LinkedBlockingQueue<>();
+        SimulationViewModel queued = new SimulationViewModel(planner, ui::add, bgThread::execute, 1);
+        planner.load(pair(), null);
+        Thread uiThread = Thread.currentThread();
+        List<Thread> changedOn = new CopyOnWriteArrayList<>();
+        queued.progressProperty().addListener((o, a, b) -> changedOn.add(Thread.currentThread()));
+        queued.rows().addListener((javafx.collections.ListChangeListener<SimulationRow>) c ->
+                changedOn.add(Thread.currentThread()));
+        // 1e5 molecules = 25 blocks of 4096, each reporting progress from the simulator's worker
+        queued.moleculesPerEmitterProperty().set("100000");
+        assertThat(queued.run()).isTrue();
+        int maxQueued = 0;
+        long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(40);
+        while (!queued.finished().isDone() && System.nanoTime() < deadline) {
+            Thread.sleep(200);
+            maxQueued = Math.max(maxQueued, ui.size());
+            for (Runnable r; (r = ui.poll()) != null;) {
+                r.run();
+            }
+        }
+        assertThat(queued.finished().get(1, TimeUnit.SECONDS)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+        assertThat(queued.progressProperty().get()).isEqualTo(1.0);
+        assertThat(queued.rows()).hasSize(1);
+        assertThat(changedOn).isNotEmpty().allMatch(t -> t == uiThread);
+        // per drain at most: one progress update, the "planning" status and the result
+        assertThat(maxQueued).isLessThanOrEqualTo(3);
+    }
+
+    @Test
     void simulatedHitProbabilityOfAnOpenMediumLinkMatchesTheClosedFormWithinItsStandardError() throws Exception {
         planner.load(pair(), null);
         sim.moleculesPerEmitterProperty().set("20000");
