@@ -91,6 +91,7 @@ public final class MainView {
                 tab("Budgets", budgetTable),
                 tab("Compare", comparePane()),
                 tab("Link charts", charts.node()),
+                tab("Simulation", new SimulationView(SimulationViewModel.forApplication(vm)).node()),
                 tab("Warnings", warningsPane()),
                 tab("Settings", settingsPane()));
         tabs.setTabClosingPolicy(TabPane.TabClosingPolicy.UNAVAILABLE);

@@ -1,0 +1,483 @@
+package dev.nanoplan.desktop;
+
+import dev.nanoplan.plan.LinkReport;
+import dev.nanoplan.plan.NetworkPlanner;
+import dev.nanoplan.plan.Plan;
+import dev.nanoplan.plan.PlanOptions;
+import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.sim.LinkComparison;
+import dev.nanoplan.sim.ParticleSimulator;
+import dev.nanoplan.sim.SimulatedChannel;
+import dev.nanoplan.sim.SimulatedChannelMatrix;
+import dev.nanoplan.sim.SimulationComparison;
+import dev.nanoplan.sim.SimulationSettings;
+import dev.nanoplan.sim.TimeStepRule;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Objects;
+import java.util.OptionalDouble;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.Executor;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.atomic.AtomicBoolean;
+import java.util.concurrent.atomic.AtomicLong;
+import javafx.application.Platform;
+import javafx.beans.property.ReadOnlyBooleanProperty;
+import javafx.beans.property.ReadOnlyBooleanWrapper;
+import javafx.beans.property.ReadOnlyDoubleProperty;
+import javafx.beans.property.ReadOnlyDoubleWrapper;
+import javafx.beans.property.ReadOnlyStringProperty;
+import javafx.beans.property.ReadOnlyStringWrapper;
+import javafx.beans.property.SimpleStringProperty;
+import javafx.beans.property.StringProperty;
+import javafx.collections.FXCollections;
+import javafx.collections.ObservableList;
+
+/**
+ * State and commands of the Simulation tab (ViewModel of MVVM): runs planner-core's
+ * {@link ParticleSimulator} on the current layout of a {@link PlannerViewModel} in the background,
+ * with progress and cancel, and shows per link the closed-form versus simulated hit probability
+ * ({@link SimulationComparison}) and the link's capacity in the analytic plan versus the plan on
+ * the simulated taps ({@link PlanOptions#withChannel} with {@link SimulatedChannelMatrix}, as
+ * {@code nanoplan plan --channel simulated} does). No physics here: every number comes from the core.
+ *
+ * <p>Life of a run: {@link #run()} validates the settings fields (a bad field is refused with a
+ * one-line message naming it, and nothing starts), takes a snapshot of the layout, clears the
+ * previous rows and starts the simulation on the {@code background} executor (never the UI
+ * thread). Progress (molecules finished / molecules to simulate, 0..1) is coalesced: at most one
+ * update is queued on the UI thread at a time and at most one every {@value #PROGRESS_INTERVAL_MS}
+ * ms, the last one always. {@link #cancel()} stops the simulator between blocks (or within a block
+ * every few hundred steps); a cancelled run shows "cancelled" and no rows at all, never a partial
+ * result. When the layout is edited after (or during) a run the rows are marked stale; undoing back
+ * to the simulated layout clears the mark.
+ *
+ * <p>Threading: all public methods are called on the UI thread; results are applied through
+ * {@code uiThread} (Platform.runLater in the application, a direct executor in tests).
+ */
+public final class SimulationViewModel {
+
+    /** How a run ended. */
+    public enum Outcome {
+        /** Rows shown. */
+        COMPLETE,
+        /** Stopped by {@link #cancel()}; no rows. */
+        CANCELLED,
+        /** The core failed; the status says why, no rows. */
+        FAILED
+    }
+
+    /** Largest molecules per emitter the field accepts (counts up to 1e9 stay exact in the core). */
+    public static final long MAX_MOLECULES_PER_EMITTER = 1_000_000_000L;
+    /** Default seed, as in {@code nanoplan simulate}. */
+    public static final long DEFAULT_SEED = 1;
+    /** Shortest interval between two progress updates queued on the UI thread. */
+    static final long PROGRESS_INTERVAL_MS = 50;
+
+    /** Field names as the view labels them; validation messages start with them. */
+    public static final String MOLECULES_FIELD = "molecules per emitter";
+    public static final String SEED_FIELD = "seed";
+    public static final String TIME_STEP_FIELD = "time step s";
+
+    private static final ExecutorService WORKER = Executors.newSingleThreadExecutor(r -> {
+        Thread t = new Thread(r, "nanoplan-simulation");
+        t.setDaemon(true);
+        return t;
+    });
+
+    private final PlannerViewModel planner;
+    private final Executor uiThread;
+    private final Executor background;
+    private final int threads;
+
+    private final StringProperty moleculesPerEmitter =
+            new SimpleStringProperty(Long.toString(SimulationSettings.DEFAULT_MOLECULES_PER_EMITTER));
+    private final StringProperty seed = new SimpleStringProperty(Long.toString(DEFAULT_SEED));
+    private final StringProperty timeStepS = new SimpleStringProperty("");
+    private final ReadOnlyDoubleWrapper progress = new ReadOnlyDoubleWrapper(0);
+    private final ReadOnlyBooleanWrapper running = new ReadOnlyBooleanWrapper(false);
+    private final ReadOnlyBooleanWrapper cancelling = new ReadOnlyBooleanWrapper(false);
+    private final ReadOnlyBooleanWrapper stale = new ReadOnlyBooleanWrapper(false);
+    private final ReadOnlyStringWrapper status = new ReadOnlyStringWrapper("not run yet");
+    private final ReadOnlyStringWrapper estimate = new ReadOnlyStringWrapper("");
+    private final ObservableList<SimulationRow> rows = FXCollections.observableArrayList();
+
+    /** The run in progress, or null (written on the UI thread, read by workers). */
+    private volatile Run current;
+    /** The layout the shown rows belong to, or null when no rows are shown. */
+    private Scenario resultScenario;
+    private CompletableFuture<Outcome> finished = new CompletableFuture<>();
+
+    /**
+     * @param planner    whose current layout is simulated (read only; nothing in it is changed)
+     * @param uiThread   where state changes are applied (the FX thread in the application)
+     * @param background where the simulation and the two plans run
+     * @param threads    simulator worker threads, ≥ 1 (results do not depend on it)
+     */
+    public SimulationViewModel(PlannerViewModel planner, Executor uiThread, Executor background, int threads) {
+        this.planner = Objects.requireNonNull(planner, "planner");
+        this.uiThread = Objects.requireNonNull(uiThread, "uiThread");
+        this.background = Objects.requireNonNull(background, "background");
+        if (threads < 1) {
+            throw new IllegalArgumentException("threads: must be >= 1, got " + threads);
+        }
+        this.threads = threads;
+        planner.scenarioProperty().addListener((o, a, b) -> {
+            stale.set(resultScenario != null && !resultScenario.equals(b));
+            refreshEstimate();
+        });
+        moleculesPerEmitter.addListener((o, a, b) -> refreshEstimate());
+        seed.addListener((o, a, b) -> refreshEstimate());
+        timeStepS.addListener((o, a, b) -> refreshEstimate());
+        refreshEstimate();
+    }
+
+    /** The application's: FX thread for results, one shared daemon thread for runs, all processors. */
+    public static SimulationViewModel forApplication(PlannerViewModel planner) {
+        return new SimulationViewModel(planner, Platform::runLater, WORKER, Runtime.getRuntime().availableProcessors());
+    }
+
+    // ---------------------------------------------------------------- commands
+
+    /**
+     * Starts a simulation of the current layout with the fields' settings.
+     *
+     * @return false, with the reason in {@link #statusProperty()}, when a run is in progress, no
+     *     layout is open, the layout has no emitter, or a field is invalid; nothing is started then
+     */
+    public boolean run() {
+        if (current != null) {
+            status.set("not started: a simulation is already running");
+            return false;
+        }
+        Scenario s = planner.scenarioProperty().get();
+        if (s == null) {
+            status.set("not started: open a layout first");
+            return false;
+        }
+        SimulationSettings settings;
+        Work work;
+        try {
+            settings = settings();
+            work = Work.of(s, settings);
+        } catch (IllegalArgumentException e) {
+            status.set("not started: " + e.getMessage());
+            return false;
+        }
+        if (work.emitters() == 0) {
+            status.set("not started: the layout has no transmitter or relay to simulate");
+            return false;
+        }
+        Run r = new Run(s, settings);
+        current = r;
+        finished = r.finished;
+        rows.clear();
+        resultScenario = null;
+        stale.set(false);
+        progress.set(0);
+        cancelling.set(false);
+        running.set(true);
+        status.set(String.format(Locale.ROOT, "simulating %d emitter(s) × %d molecules (seed %d, Δt %s s)…",
+                work.emitters(), settings.moleculesPerEmitter(), settings.seed(), Formats.sig(work.timeStepS())));
+        background.execute(() -> execute(r));
+        return true;
+    }
+
+    /** Asks the running simulation to stop; it ends as {@link Outcome#CANCELLED} with no rows. */
+    public void cancel() {
+        Run r = current;
+        if (r == null || r.cancelled.get()) {
+            return;
+        }
+        r.cancelled.set(true);
+        cancelling.set(true);
+        status.set("cancelling…");
+    }
+
+    /**
+     * Completes when the latest started run has ended and its outcome has been applied to the
+     * state (safe from any thread). Before the first run it never completes.
+     */
+    public CompletableFuture<Outcome> finished() {
+        return finished;
+    }
+
+    /**
+     * The settings the fields describe.
+     *
+     * @throws IllegalArgumentException with a one-line message starting with the field's name
+     */
+    public SimulationSettings settings() {
+        long m = parseLong(MOLECULES_FIELD, moleculesPerEmitter.get());
+        if (m < 1 || m > MAX_MOLECULES_PER_EMITTER) {
+            throw new IllegalArgumentException(MOLECULES_FIELD + ": must be a whole number from 1 to "
+                    + MAX_MOLECULES_PER_EMITTER + ", got " + m);
+        }
+        long sd = parseLong(SEED_FIELD, seed.get());
+        String dtText = timeStepS.get() == null ? "" : timeStepS.get().strip();
+        OptionalDouble dt = OptionalDouble.empty();
+        if (!dtText.isEmpty() && !dtText.equalsIgnoreCase("auto")) {
+            double v;
+            try {
+                v = Double.parseDouble(dtText);
+            } catch (NumberFormatException e) {
+                throw new IllegalArgumentException(TIME_STEP_FIELD + ": not a number: '" + dtText
+                        + "' (leave blank for automatic)");
+            }
+            if (!(v > 0) || !Double.isFinite(v)) {
+                throw new IllegalArgumentException(TIME_STEP_FIELD + ": must be a finite number > 0 (blank = "
+                        + "automatic), got " + dtText);
+            }
+            dt = OptionalDouble.of(v);
+        }
+        return new SimulationSettings(m, sd, dt, threads);
+    }
+
+    private static long parseLong(String field, String text) {
+        String t = text == null ? "" : text.strip().replace("_", "");
+        if (t.isEmpty()) {
+            throw new IllegalArgumentException(field + ": required");
+        }
+        try {
+            return Long.parseLong(t);
+        } catch (NumberFormatException e) {
+            throw new IllegalArgumentException(field + ": must be a whole number, got '" + text.strip() + "'");
+        }
+    }
+
+    // ---------------------------------------------------------------- background
+
+    /** One run: its layout snapshot, settings, cancel flag and progress coalescing. */
+    private static final class Run {
+        final Scenario scenario;
+        final SimulationSettings settings;
+        final AtomicBoolean cancelled = new AtomicBoolean();
+        final AtomicBoolean progressQueued = new AtomicBoolean();
+        final AtomicLong lastQueuedNanos = new AtomicLong(Long.MIN_VALUE / 2);
+        volatile double latest;
+        final CompletableFuture<Outcome> finished = new CompletableFuture<>();
+
+        Run(Scenario scenario, SimulationSettings settings) {
+            this.scenario = scenario;
+            this.settings = settings;
+        }
+    }
+
+    /** The estimate of a run's work, from the core's time-step rule (cheap: O(emitters × receivers)). */
+    private record Work(int emitters, double timeStepS, long stepsPerMolecule, int symbolTimes) {
+
+        static Work of(Scenario s, SimulationSettings settings) {
+            int emitters = (int) s.nodes().stream().filter(n -> n.role().emits()).count();
+            int slots = s.signalling().isiMemorySymbols() + 1;
+            double dt;
+            long steps;
+            try {
+                dt = new ParticleSimulator(settings).timeStepS(s);
+                steps = (long) TimeStepRule.stepsPerSymbol(s.signalling().symbolTimeS(), dt) * slots;
+            } catch (IllegalArgumentException e) {
+                // the core names its parameter (timeStepS); the user knows the field by its label
+                throw new IllegalArgumentException(TIME_STEP_FIELD + ": too small ("
+                        + e.getMessage().replaceFirst("^timeStepS: ", "") + ")");
+            }
+            if (steps > Integer.MAX_VALUE) {
+                throw new IllegalArgumentException(TIME_STEP_FIELD + ": " + Formats.sig(dt) + " s needs " + steps
+                        + " steps to cover " + slots + " symbol times; use a larger time step");
+            }
+            return new Work(emitters, dt, steps, slots);
+        }
+    }
+
+    private void execute(Run r) {
+        try {
+            ParticleSimulator simulator = new ParticleSimulator(r.settings);
+            SimulatedChannel channel = simulator.simulate(r.scenario, (done, total) -> onProgress(r, done, total),
+                    r.cancelled::get);
+            if (r.cancelled.get() || !channel.complete()) {
+                long total = r.settings.moleculesPerEmitter() * channel.emitters().size();
+                uiThread.execute(() -> endCancelled(r, channel.moleculesSimulated(), total));
+                return;
+            }
+            List<LinkComparison> comparisons = SimulationComparison.compare(r.scenario, channel);
+            uiThread.execute(() -> {
+                if (current == r && !r.cancelled.get()) {
+                    status.set("simulated; planning on the simulated taps…");
+                }
+            });
+            Plan analytic = NetworkPlanner.plan(r.scenario, PlanOptions.DEFAULT);
+            if (r.cancelled.get()) {
+                uiThread.execute(() -> endCancelled(r, channel.moleculesSimulated(), channel.moleculesSimulated()));
+                return;
+            }
+            Plan simulated = NetworkPlanner.plan(r.scenario,
+                    PlanOptions.DEFAULT.withChannel(SimulatedChannelMatrix.of(channel)));
+            if (r.cancelled.get()) {
+                uiThread.execute(() -> endCancelled(r, channel.moleculesSimulated(), channel.moleculesSimulated()));
+                return;
+            }
+            List<SimulationRow> out = new ArrayList<>(comparisons.size());
+            for (LinkComparison c : comparisons) {
+                out.add(SimulationRow.of(c, capacity(analytic, c), capacity(simulated, c)));
+            }
+            uiThread.execute(() -> endComplete(r, out, channel));
+        } catch (RuntimeException | Error e) {
+            uiThread.execute(() -> endFailed(r, e));
+        }
+    }
+
+    private static double capacity(Plan p, LinkComparison c) {
+        for (LinkReport l : p.links()) {
+            if (l.from().equals(c.from()) && l.to().equals(c.to())) {
+                return l.capacityBits();
+            }
+        }
+        return Double.NaN;
+    }
+
+    /** Called from simulator workers: remembers the fraction and queues at most one UI update. */
+    private void onProgress(Run r, long done, long total) {
+        r.latest = total <= 0 ? 1 : Math.min(1, (double) done / total);
+        long now = System.nanoTime();
+        boolean last = done >= total;
+        if (!last && now - r.lastQueuedNanos.get() < PROGRESS_INTERVAL_MS * 1_000_000L) {
+            return;
+        }
+        if (r.progressQueued.compareAndSet(false, true)) {
+            r.lastQueuedNanos.set(now);
+            uiThread.execute(() -> {
+                r.progressQueued.set(false);
+                if (current == r) {
+                    progress.set(r.latest);
+                }
+            });
+        }
+    }
+
+    // ---------------------------------------------------------------- endings (UI thread)
+
+    private void endComplete(Run r, List<SimulationRow> out, SimulatedChannel channel) {
+        if (current != r) {
+            return;
+        }
+        if (r.cancelled.get()) {
+            endCancelled(r, channel.moleculesSimulated(), channel.moleculesSimulated());
+            return;
+        }
+        current = null;
+        progress.set(1);
+        rows.setAll(out);
+        resultScenario = r.scenario;
+        stale.set(!r.scenario.equals(planner.scenarioProperty().get()));
+        long flagged = out.stream().filter(SimulationRow::flagged).count();
+        status.set(String.format(Locale.ROOT, "done: %d link(s) compared, %d flagged — %d molecules per emitter, "
+                + "seed %d, Δt %s s", out.size(), flagged, channel.moleculesRequestedPerEmitter(), channel.seed(),
+                Formats.sig(channel.timeStepS())));
+        cancelling.set(false);
+        running.set(false);
+        r.finished.complete(Outcome.COMPLETE);
+    }
+
+    private void endCancelled(Run r, long done, long total) {
+        if (current != r) {
+            return;
+        }
+        current = null;
+        rows.clear();
+        resultScenario = null;
+        stale.set(false);
+        progress.set(0);
+        status.set(String.format(Locale.ROOT, "cancelled after %d of %d molecules; no result shown", done, total));
+        cancelling.set(false);
+        running.set(false);
+        r.finished.complete(Outcome.CANCELLED);
+    }
+
+    private void endFailed(Run r, Throwable e) {
+        if (current != r) {
+            return;
+        }
+        current = null;
+        rows.clear();
+        resultScenario = null;
+        stale.set(false);
+        progress.set(0);
+        status.set("simulation failed: " + (e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage()));
+        cancelling.set(false);
+        running.set(false);
+        r.finished.complete(Outcome.FAILED);
+    }
+
+    private void refreshEstimate() {
+        Scenario s = planner.scenarioProperty().get();
+        if (s == null) {
+            estimate.set("open a layout to simulate it");
+            return;
+        }
+        try {
+            SimulationSettings settings = settings();
+            Work w = Work.of(s, settings);
+            if (w.emitters() == 0) {
+                estimate.set("nothing to simulate: the layout has no transmitter or relay");
+                return;
+            }
+            double moleculeSteps = (double) w.stepsPerMolecule() * w.emitters() * settings.moleculesPerEmitter();
+            estimate.set(String.format(Locale.ROOT,
+                    "work: Δt %s s, %d steps per molecule (%d symbol times), %d emitter(s) × %d molecules, "
+                            + "at most %.2g molecule-steps", Formats.sig(w.timeStepS()), w.stepsPerMolecule(),
+                    w.symbolTimes(), w.emitters(), settings.moleculesPerEmitter(), moleculeSteps));
+        } catch (IllegalArgumentException e) {
+            estimate.set(e.getMessage());
+        }
+    }
+
+    // ---------------------------------------------------------------- properties
+
+    /** Molecules each emitter releases (text field). */
+    public StringProperty moleculesPerEmitterProperty() {
+        return moleculesPerEmitter;
+    }
+
+    /** Master seed (text field). */
+    public StringProperty seedProperty() {
+        return seed;
+    }
+
+    /** Time step in s (text field); blank or "auto" = chosen from the geometry. */
+    public StringProperty timeStepSProperty() {
+        return timeStepS;
+    }
+
+    /** Molecules finished / molecules to simulate, 0..1 (1 when rows are shown). */
+    public ReadOnlyDoubleProperty progressProperty() {
+        return progress.getReadOnlyProperty();
+    }
+
+    public ReadOnlyBooleanProperty runningProperty() {
+        return running.getReadOnlyProperty();
+    }
+
+    /** True between {@link #cancel()} and the end of the run. */
+    public ReadOnlyBooleanProperty cancellingProperty() {
+        return cancelling.getReadOnlyProperty();
+    }
+
+    /** True when the shown rows belong to a layout other than the current one. */
+    public ReadOnlyBooleanProperty staleProperty() {
+        return stale.getReadOnlyProperty();
+    }
+
+    /** One line: what happened last (started, done, cancelled, refused and why, failed). */
+    public ReadOnlyStringProperty statusProperty() {
+        return status.getReadOnlyProperty();
+    }
+
+    /** The work a run would do with the current fields (Δt, steps, molecules), or why it cannot run. */
+    public ReadOnlyStringProperty estimateProperty() {
+        return estimate.getReadOnlyProperty();
+    }
+
+    /** One row per compared link of the last complete run, in emitter then receiver order. */
+    public ObservableList<SimulationRow> rows() {
+        return rows;
+    }
+}
