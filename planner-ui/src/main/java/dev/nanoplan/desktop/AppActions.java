@@ -39,6 +39,7 @@ public final class AppActions {
     private final Stage stage;
     private final PlannerViewModel vm;
     private Supplier<SceneView> scene = () -> null;
+    private Runnable layoutReplaced = () -> { };
 
     public AppActions(Stage stage, PlannerViewModel vm) {
         this.stage = stage;
@@ -47,6 +48,7 @@ public final class AppActions {
 
     void attach(MainView view) {
         this.scene = view::sceneView;
+        this.layoutReplaced = view.simulation()::layoutReplaced;
     }
 
     MenuBar menuBar() {
@@ -56,12 +58,19 @@ public final class AppActions {
             templates.getItems().add(item(t, null, () -> openTemplate(t)));
         }
         templates.getItems().add(item("random swarm (40 nodes, open medium)", null,
-                () -> guarded(() -> vm.load(SwarmGenerator.generate(40, System.nanoTime()), null))));
+                () -> guarded(() -> {
+                    vm.load(SwarmGenerator.generate(40, System.nanoTime()), null);
+                    layoutReplaced.run();
+                })));
         Menu recent = new Menu("Open recent");
         Runnable fill = () -> {
             recent.getItems().clear();
             for (Path p : vm.recentFiles()) {
-                recent.getItems().add(item(p.toString(), null, () -> guarded(() -> vm.open(p))));
+                recent.getItems().add(item(p.toString(), null, () -> guarded(() -> {
+                    if (vm.open(p)) {
+                        layoutReplaced.run();
+                    }
+                })));
             }
             recent.setDisable(recent.getItems().isEmpty());
         };
@@ -95,8 +104,8 @@ public final class AppActions {
         }
         FileChooser fc = chooser("Open scenario");
         File f = fc.showOpenDialog(stage);
-        if (f != null) {
-            vm.open(f.toPath());
+        if (f != null && vm.open(f.toPath())) {
+            layoutReplaced.run();
         }
     }
 
@@ -185,6 +194,7 @@ public final class AppActions {
             Scenario s = template(name);
             if (s != null) {
                 vm.load(s, null);
+                layoutReplaced.run();
             }
         });
     }

@@ -59,9 +59,17 @@ public final class MainView {
     private final TabPane tabs = new TabPane();
     private boolean syncing;
     private final LinkChartsView charts;
+    private final SimulationViewModel simulation;
 
+    /** The window's content; simulated channels are cached where the command line caches them. */
     public MainView(PlannerViewModel vm, AppActions actions) {
+        this(vm, actions, SimulationViewModel.defaultCacheDirectory());
+    }
+
+    /** The window's content, with simulated channels cached in {@code simulationCacheDir}. */
+    public MainView(PlannerViewModel vm, AppActions actions, java.nio.file.Path simulationCacheDir) {
         this.vm = vm;
+        this.simulation = SimulationViewModel.forApplication(vm, simulationCacheDir);
         this.sceneView = new SceneView(vm);
         root.getStyleClass().add("nanoplan");
         root.getStylesheets().add(MainView.class.getResource("nanoplan.css").toExternalForm());
@@ -91,7 +99,7 @@ public final class MainView {
                 tab("Budgets", budgetTable),
                 tab("Compare", comparePane()),
                 tab("Link charts", charts.node()),
-                tab("Simulation", new SimulationView(SimulationViewModel.forApplication(vm)).node()),
+                tab("Simulation", new SimulationView(simulation).node()),
                 tab("Warnings", warningsPane()),
                 tab("Settings", settingsPane()));
         tabs.setTabClosingPolicy(TabPane.TabClosingPolicy.UNAVAILABLE);
@@ -124,6 +132,11 @@ public final class MainView {
 
     LinkChartsView charts() {
         return charts;
+    }
+
+    /** The Simulation tab's view model. */
+    public SimulationViewModel simulation() {
+        return simulation;
     }
 
     /** Shows the panel tab with this title; false when there is none. */

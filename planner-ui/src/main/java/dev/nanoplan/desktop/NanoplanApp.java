@@ -27,6 +27,8 @@ public final class NanoplanApp extends Application {
                 e.consume();
             }
         });
+        // closed by the window's button or File ▸ Quit: a simulation in progress would be dropped
+        stage.setOnHidden(e -> view.simulation().dispose());
         List<String> raw = getParameters().getRaw();
         if (!raw.isEmpty()) {
             vm.open(Path.of(raw.get(0)));

@@ -749,6 +749,11 @@ public final class PlannerViewModel {
         return scenario.getReadOnlyProperty();
     }
 
+    /** The service that makes this view model's plans. */
+    PlanService planService() {
+        return service;
+    }
+
     public ReadOnlyObjectProperty<Plan> planProperty() {
         return plan.getReadOnlyProperty();
     }

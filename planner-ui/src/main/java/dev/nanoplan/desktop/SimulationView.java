@@ -6,6 +6,7 @@ import javafx.beans.binding.Bindings;
 import javafx.geometry.Insets;
 import javafx.geometry.Pos;
 import javafx.scene.control.Button;
+import javafx.scene.control.CheckBox;
 import javafx.scene.control.Label;
 import javafx.scene.control.ProgressBar;
 import javafx.scene.control.TableColumn;
@@ -27,7 +28,7 @@ import javafx.scene.layout.VBox;
  *
  * <p>Node ids for tests: {@code sim-run}, {@code sim-cancel}, {@code sim-progress},
  * {@code sim-status}, {@code sim-stale}, {@code sim-table}, {@code sim-molecules}, {@code sim-seed},
- * {@code sim-dt}, {@code sim-selected}.
+ * {@code sim-dt}, {@code sim-dt-hint}, {@code sim-resimulate}, {@code sim-selected}.
  */
 public final class SimulationView {
 
@@ -45,6 +46,7 @@ public final class SimulationView {
         TextField molecules = field(vm.moleculesPerEmitterProperty(), "sim-molecules", 9);
         TextField seed = field(vm.seedProperty(), "sim-seed", 6);
         TextField dt = field(vm.timeStepSProperty(), "sim-dt", 7);
+        // the prompt shows while the field is empty; its colour is the theme's muted text (nanoplan.css)
         dt.setPromptText("auto");
         molecules.setTooltip(new Tooltip("Molecules each transmitter or relay releases at t = 0; the standard "
                 + "error of a hit probability p is √(p(1 − p)/M)"));
@@ -55,9 +57,19 @@ public final class SimulationView {
         fields.setVgap(5);
         fields.addRow(0, label(SimulationViewModel.MOLECULES_FIELD), molecules);
         fields.addRow(1, label(SimulationViewModel.SEED_FIELD), seed);
+        // the hint sits in its own column, after the field at its full width, so it never covers it
         Label auto = new Label("blank = automatic");
         auto.getStyleClass().add("hint");
+        auto.setId("sim-dt-hint");
+        auto.setMinWidth(Region.USE_PREF_SIZE);
         fields.addRow(2, label(SimulationViewModel.TIME_STEP_FIELD), dt, auto);
+        CheckBox resimulate = new CheckBox("Re-simulate (ignore cache)");
+        resimulate.setId("sim-resimulate");
+        resimulate.selectedProperty().bindBidirectional(vm.ignoreCacheProperty());
+        resimulate.setTooltip(new Tooltip("A layout simulated before with the same physics, molecules, seed and time "
+                + "step is read from the cache" + (vm.cache() == null ? "" : " (" + vm.cache().directory() + ", shared "
+                + "with nanoplan plan --channel simulated)") + ". Tick to simulate again and replace the cached result."));
+        fields.add(resimulate, 1, 3, 2, 1);
 
         Button run = new Button("Run");
         run.setId("sim-run");
@@ -197,6 +209,7 @@ public final class SimulationView {
         TextField f = new TextField();
         f.textProperty().bindBidirectional(p);
         f.setPrefColumnCount(columns);
+        f.setMinWidth(Region.USE_PREF_SIZE);
         f.setId(id);
         return f;
     }

@@ -4,7 +4,9 @@ import dev.nanoplan.plan.LinkReport;
 import dev.nanoplan.plan.NetworkPlanner;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.PlanOptions;
+import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.sim.ChannelCache;
 import dev.nanoplan.sim.LinkComparison;
 import dev.nanoplan.sim.ParticleSimulator;
 import dev.nanoplan.sim.SimulatedChannel;
@@ -12,6 +14,8 @@ import dev.nanoplan.sim.SimulatedChannelMatrix;
 import dev.nanoplan.sim.SimulationComparison;
 import dev.nanoplan.sim.SimulationSettings;
 import dev.nanoplan.sim.TimeStepRule;
+import java.io.IOException;
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -24,14 +28,17 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicLong;
 import javafx.application.Platform;
+import javafx.beans.property.BooleanProperty;
 import javafx.beans.property.ReadOnlyBooleanProperty;
 import javafx.beans.property.ReadOnlyBooleanWrapper;
 import javafx.beans.property.ReadOnlyDoubleProperty;
 import javafx.beans.property.ReadOnlyDoubleWrapper;
 import javafx.beans.property.ReadOnlyStringProperty;
 import javafx.beans.property.ReadOnlyStringWrapper;
+import javafx.beans.property.SimpleBooleanProperty;
 import javafx.beans.property.SimpleStringProperty;
 import javafx.beans.property.StringProperty;
+import javafx.beans.value.ChangeListener;
 import javafx.collections.FXCollections;
 import javafx.collections.ObservableList;
 
@@ -51,7 +58,22 @@ import javafx.collections.ObservableList;
  * ms, the last one always. {@link #cancel()} stops the simulator between blocks (or within a block
  * every few hundred steps); a cancelled run shows "cancelled" and no rows at all, never a partial
  * result. When the layout is edited after (or during) a run the rows are marked stale; undoing back
- * to the simulated layout clears the mark.
+ * to the simulated layout clears the mark. When another layout replaces the current one
+ * ({@link #layoutReplaced()}: a file opened, a template loaded) or the window closes
+ * ({@link #dispose()}), a run in progress is cancelled, since its result would be dropped.
+ *
+ * <p>Simulated-channel cache: with a {@link ChannelCache} (the application uses the same folder as
+ * {@code nanoplan plan --channel simulated}, so both share results), a run whose layout physics, M,
+ * seed and Δt were simulated before loads the stored channel instead of simulating (the status then
+ * says "from cache"); a complete new run is stored. {@link #ignoreCacheProperty()} ("Re-simulate")
+ * forces a new simulation, whose result replaces the stored one. A cancelled run is never stored.
+ *
+ * <p>Analytic plan: the closed-form plan the simulated one is compared with is taken from the
+ * planner when it already holds the exact plan of the very same layout ({@link PlannerViewModel#planned()}
+ * completed, its plan's scenario equal to the simulated one, and the planner's service being the
+ * core's default planner); otherwise it is computed again here. {@code planned()} only completes
+ * with exact plans, never with a fast preview, which is why the plan is not read from
+ * {@link PlannerViewModel#planProperty()}.
  *
  * <p>Threading: all public methods are called on the UI thread; results are applied through
  * {@code uiThread} (Platform.runLater in the application, a direct executor in tests).
@@ -90,11 +112,16 @@ public final class SimulationViewModel {
     private final Executor uiThread;
     private final Executor background;
     private final int threads;
+    /** Where simulated channels are stored, or null for none. */
+    private final ChannelCache cache;
+    /** Whether the planner's plans are the core's default analytic plans (so they can be reused). */
+    private final boolean reusePlannerPlans;
 
     private final StringProperty moleculesPerEmitter =
             new SimpleStringProperty(Long.toString(SimulationSettings.DEFAULT_MOLECULES_PER_EMITTER));
     private final StringProperty seed = new SimpleStringProperty(Long.toString(DEFAULT_SEED));
     private final StringProperty timeStepS = new SimpleStringProperty("");
+    private final BooleanProperty ignoreCache = new SimpleBooleanProperty(false);
     private final ReadOnlyDoubleWrapper progress = new ReadOnlyDoubleWrapper(0);
     private final ReadOnlyBooleanWrapper running = new ReadOnlyBooleanWrapper(false);
     private final ReadOnlyBooleanWrapper cancelling = new ReadOnlyBooleanWrapper(false);
@@ -108,6 +135,9 @@ public final class SimulationViewModel {
     /** The layout the shown rows belong to, or null when no rows are shown. */
     private Scenario resultScenario;
     private CompletableFuture<Outcome> finished = new CompletableFuture<>();
+    private final ChangeListener<Scenario> layoutListener;
+    private boolean disposed;
+    private boolean lastAnalyticReused;
 
     /**
      * @param planner    whose current layout is simulated (read only; nothing in it is changed)
@@ -116,6 +146,21 @@ public final class SimulationViewModel {
      * @param threads    simulator worker threads, ≥ 1 (results do not depend on it)
      */
     public SimulationViewModel(PlannerViewModel planner, Executor uiThread, Executor background, int threads) {
+        this(planner, uiThread, background, threads, null, false);
+    }
+
+    /**
+     * @param planner           whose current layout is simulated (read only; nothing in it is changed)
+     * @param uiThread          where state changes are applied (the FX thread in the application)
+     * @param background        where the simulation and the two plans run
+     * @param threads           simulator worker threads, ≥ 1 (results do not depend on it)
+     * @param cache             where simulated channels are looked up and stored; null for no cache
+     * @param reusePlannerPlans true when {@code planner}'s plans are planner-core's default
+     *                          analytic plans ({@link PlanService#core()}), so that its exact plan of
+     *                          the simulated layout can stand for the analytic plan
+     */
+    public SimulationViewModel(PlannerViewModel planner, Executor uiThread, Executor background, int threads,
+            ChannelCache cache, boolean reusePlannerPlans) {
         this.planner = Objects.requireNonNull(planner, "planner");
         this.uiThread = Objects.requireNonNull(uiThread, "uiThread");
         this.background = Objects.requireNonNull(background, "background");
@@ -123,19 +168,34 @@ public final class SimulationViewModel {
             throw new IllegalArgumentException("threads: must be >= 1, got " + threads);
         }
         this.threads = threads;
-        planner.scenarioProperty().addListener((o, a, b) -> {
+        this.cache = cache;
+        this.reusePlannerPlans = reusePlannerPlans;
+        layoutListener = (o, a, b) -> {
             stale.set(resultScenario != null && !resultScenario.equals(b));
             refreshEstimate();
-        });
+        };
+        planner.scenarioProperty().addListener(layoutListener);
         moleculesPerEmitter.addListener((o, a, b) -> refreshEstimate());
         seed.addListener((o, a, b) -> refreshEstimate());
         timeStepS.addListener((o, a, b) -> refreshEstimate());
         refreshEstimate();
     }
 
-    /** The application's: FX thread for results, one shared daemon thread for runs, all processors. */
-    public static SimulationViewModel forApplication(PlannerViewModel planner) {
-        return new SimulationViewModel(planner, Platform::runLater, WORKER, Runtime.getRuntime().availableProcessors());
+    /**
+     * The application's: FX thread for results, one shared daemon thread for runs, all processors,
+     * the cache in {@code cacheDir}; the planner's plans are reused when it plans with the core.
+     */
+    public static SimulationViewModel forApplication(PlannerViewModel planner, Path cacheDir) {
+        return new SimulationViewModel(planner, Platform::runLater, WORKER, Runtime.getRuntime().availableProcessors(),
+                new ChannelCache(cacheDir), planner.planService() == PlanService.core());
+    }
+
+    /**
+     * The cache folder {@code nanoplan plan --channel simulated} uses by default:
+     * {@code $NANOPLAN_CACHE_DIR}, else {@code ~/.cache/nanoplan/channels}.
+     */
+    public static Path defaultCacheDirectory() {
+        return ChannelCache.defaultDirectory(System.getenv(), System.getProperty("user.home"));
     }
 
     // ---------------------------------------------------------------- commands
@@ -147,6 +207,10 @@ public final class SimulationViewModel {
      *     layout is open, the layout has no emitter, or a field is invalid; nothing is started then
      */
     public boolean run() {
+        if (disposed) {
+            status.set("not started: the window is closing");
+            return false;
+        }
         if (current != null) {
             status.set("not started: a simulation is already running");
             return false;
@@ -169,7 +233,7 @@ public final class SimulationViewModel {
             status.set("not started: the layout has no transmitter or relay to simulate");
             return false;
         }
-        Run r = new Run(s, settings);
+        Run r = new Run(s, settings, ignoreCache.get());
         current = r;
         finished = r.finished;
         rows.clear();
@@ -178,7 +242,8 @@ public final class SimulationViewModel {
         progress.set(0);
         cancelling.set(false);
         running.set(true);
-        status.set(String.format(Locale.ROOT, "simulating %d emitter(s) × %d molecules (seed %d, Δt %s s)…",
+        status.set(String.format(Locale.ROOT, (cache != null && !r.ignoreCache ? "from the cache if stored, else " : "")
+                + "simulating %d emitter(s) × %d molecules (seed %d, Δt %s s)…",
                 work.emitters(), settings.moleculesPerEmitter(), settings.seed(), Formats.sig(work.timeStepS())));
         background.execute(() -> execute(r));
         return true;
@@ -193,6 +258,35 @@ public final class SimulationViewModel {
         r.cancelled.set(true);
         cancelling.set(true);
         status.set("cancelling…");
+    }
+
+    /**
+     * Another layout replaces the current one (a file opened, a template or swarm loaded): cancels
+     * the run in progress (it ends {@link Outcome#CANCELLED}) and clears the rows, which belong to
+     * the old layout.
+     */
+    public void layoutReplaced() {
+        cancel();
+        if (current == null) {
+            rows.clear();
+            resultScenario = null;
+            stale.set(false);
+            progress.set(0);
+            status.set("not run yet");
+        }
+    }
+
+    /**
+     * The window is closing: cancels the run in progress (it ends {@link Outcome#CANCELLED}, nothing
+     * is cached), refuses new runs and stops following the planner's layout. Idempotent.
+     */
+    public void dispose() {
+        if (disposed) {
+            return;
+        }
+        disposed = true;
+        cancel();
+        planner.scenarioProperty().removeListener(layoutListener);
     }
 
     /**
@@ -252,15 +346,19 @@ public final class SimulationViewModel {
     private static final class Run {
         final Scenario scenario;
         final SimulationSettings settings;
+        final boolean ignoreCache;
         final AtomicBoolean cancelled = new AtomicBoolean();
         final AtomicBoolean progressQueued = new AtomicBoolean();
         final AtomicLong lastQueuedNanos = new AtomicLong(Long.MIN_VALUE / 2);
         volatile double latest;
+        /** Whether the analytic plan was the planner's (set on the worker before the result is queued). */
+        volatile boolean analyticReused;
         final CompletableFuture<Outcome> finished = new CompletableFuture<>();
 
-        Run(Scenario scenario, SimulationSettings settings) {
+        Run(Scenario scenario, SimulationSettings settings, boolean ignoreCache) {
             this.scenario = scenario;
             this.settings = settings;
+            this.ignoreCache = ignoreCache;
         }
     }
 
@@ -288,11 +386,57 @@ public final class SimulationViewModel {
         }
     }
 
+    /** A simulated channel and where it came from. */
+    private record Obtained(SimulatedChannel channel, String source) {
+    }
+
+    /**
+     * The channel of {@code r}: from the cache when allowed and present, else simulated (and stored
+     * when complete; a failed store is reported in the source, not as a failure of the run).
+     */
+    private Obtained obtain(Run r) {
+        ParticleSimulator simulator = new ParticleSimulator(r.settings);
+        String key = null;
+        if (cache != null) {
+            key = ChannelCache.key(r.scenario, r.settings.moleculesPerEmitter(), r.settings.seed(),
+                    simulator.timeStepS(r.scenario));
+            if (!r.ignoreCache) {
+                var cached = cache.load(r.scenario, key);
+                if (cached.isPresent()) {
+                    return new Obtained(cached.get(), "from cache");
+                }
+            }
+        }
+        SimulatedChannel channel = simulator.simulate(r.scenario, (done, total) -> onProgress(r, done, total),
+                r.cancelled::get);
+        if (cache == null || !channel.complete() || r.cancelled.get()) {
+            return new Obtained(channel, "simulated");
+        }
+        try {
+            cache.store(key, channel);
+            return new Obtained(channel, r.ignoreCache ? "re-simulated, cache updated" : "simulated, cached");
+        } catch (IOException | RuntimeException e) {
+            return new Obtained(channel, "simulated (not cached: " + e.getMessage() + ")");
+        }
+    }
+
+    /** The planner's exact plan of {@code s}, when it holds one and its plans are the core's default; else null. */
+    private Plan plannersPlan(Scenario s) {
+        if (!reusePlannerPlans) {
+            return null;
+        }
+        CompletableFuture<Plan> f = planner.planned();
+        if (!f.isDone() || f.isCompletedExceptionally()) {
+            return null;
+        }
+        Plan p = f.getNow(null);
+        return p != null && ChannelMatrix.ANALYTIC.equals(p.channel()) && s.equals(p.scenario()) ? p : null;
+    }
+
     private void execute(Run r) {
         try {
-            ParticleSimulator simulator = new ParticleSimulator(r.settings);
-            SimulatedChannel channel = simulator.simulate(r.scenario, (done, total) -> onProgress(r, done, total),
-                    r.cancelled::get);
+            Obtained got = obtain(r);
+            SimulatedChannel channel = got.channel();
             if (r.cancelled.get() || !channel.complete()) {
                 long total = r.settings.moleculesPerEmitter() * channel.emitters().size();
                 uiThread.execute(() -> endCancelled(r, channel.moleculesSimulated(), total));
@@ -304,7 +448,9 @@ public final class SimulationViewModel {
                     status.set("simulated; planning on the simulated taps…");
                 }
             });
-            Plan analytic = NetworkPlanner.plan(r.scenario, PlanOptions.DEFAULT);
+            Plan reused = plannersPlan(r.scenario);
+            r.analyticReused = reused != null;
+            Plan analytic = reused != null ? reused : NetworkPlanner.plan(r.scenario, PlanOptions.DEFAULT);
             if (r.cancelled.get()) {
                 uiThread.execute(() -> endCancelled(r, channel.moleculesSimulated(), channel.moleculesSimulated()));
                 return;
@@ -319,7 +465,7 @@ public final class SimulationViewModel {
             for (LinkComparison c : comparisons) {
                 out.add(SimulationRow.of(c, capacity(analytic, c), capacity(simulated, c)));
             }
-            uiThread.execute(() -> endComplete(r, out, channel));
+            uiThread.execute(() -> endComplete(r, out, channel, got.source()));
         } catch (RuntimeException | Error e) {
             uiThread.execute(() -> endFailed(r, e));
         }
@@ -355,7 +501,7 @@ public final class SimulationViewModel {
 
     // ---------------------------------------------------------------- endings (UI thread)
 
-    private void endComplete(Run r, List<SimulationRow> out, SimulatedChannel channel) {
+    private void endComplete(Run r, List<SimulationRow> out, SimulatedChannel channel, String source) {
         if (current != r) {
             return;
         }
@@ -369,11 +515,12 @@ public final class SimulationViewModel {
         resultScenario = r.scenario;
         stale.set(!r.scenario.equals(planner.scenarioProperty().get()));
         long flagged = out.stream().filter(SimulationRow::flagged).count();
-        status.set(String.format(Locale.ROOT, "done: %d link(s) compared, %d flagged — %d molecules per emitter, "
-                + "seed %d, Δt %s s", out.size(), flagged, channel.moleculesRequestedPerEmitter(), channel.seed(),
-                Formats.sig(channel.timeStepS())));
+        status.set(String.format(Locale.ROOT, "done: %d link(s) compared, %d flagged — %s: %d molecules per emitter, "
+                + "seed %d, Δt %s s", out.size(), flagged, source, channel.moleculesRequestedPerEmitter(),
+                channel.seed(), Formats.sig(channel.timeStepS())));
         cancelling.set(false);
         running.set(false);
+        lastAnalyticReused = r.analyticReused;
         r.finished.complete(Outcome.COMPLETE);
     }
 
@@ -431,6 +578,21 @@ public final class SimulationViewModel {
     }
 
     // ---------------------------------------------------------------- properties
+
+    /** Whether the last complete run took its analytic plan from the planner (for tests). */
+    boolean lastAnalyticReused() {
+        return lastAnalyticReused;
+    }
+
+    /** The simulated-channel cache, or null when runs are not cached. */
+    public ChannelCache cache() {
+        return cache;
+    }
+
+    /** "Re-simulate": when true, Run simulates even if the cache holds this run, and replaces it. */
+    public BooleanProperty ignoreCacheProperty() {
+        return ignoreCache;
+    }
 
     /** Molecules each emitter releases (text field). */
     public StringProperty moleculesPerEmitterProperty() {

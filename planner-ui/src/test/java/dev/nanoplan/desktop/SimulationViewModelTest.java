@@ -8,6 +8,7 @@ import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.geometry.Volume;
 import dev.nanoplan.plan.LinkReport;
 import dev.nanoplan.plan.NetworkPlanner;
+import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.PlanOptions;
 import dev.nanoplan.scenario.Demand;
 import dev.nanoplan.scenario.Medium;
@@ -17,11 +18,16 @@ import dev.nanoplan.scenario.Schedule;
 import dev.nanoplan.scenario.Signalling;
 import dev.nanoplan.scenario.Species;
 import dev.nanoplan.scenario.Targets;
+import dev.nanoplan.sim.ChannelCache;
 import dev.nanoplan.sim.LinkComparison;
 import dev.nanoplan.sim.ParticleSimulator;
 import dev.nanoplan.sim.SimulationComparison;
 import dev.nanoplan.sim.SimulationSettings;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.attribute.FileTime;
 import java.util.List;
+import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.CopyOnWriteArrayList;
 import java.util.concurrent.Executor;
 import java.util.concurrent.ExecutorService;
@@ -35,6 +41,7 @@ import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
+import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 
@@ -275,5 +282,202 @@ class SimulationViewModelTest {
         assertThat(sim.run()).isFalse();
         assertThat(sim.statusProperty().get()).contains("open a layout");
         assertThat(started).hasValue(0);
+    }
+
+    // ------------------------------------------------------------ closing, replacing the layout
+
+    /** Starts a run far too long to finish within a test (5e7 molecules) and waits for its first progress. */
+    void startLongRun() throws Exception {
+        sim.moleculesPerEmitterProperty().set("50000000");
+        assertThat(sim.run()).isTrue();
+        long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(30);
+        while (sim.progressProperty().get() == 0 && System.nanoTime() < deadline) {
+            Thread.sleep(5);
+        }
+        assertThat(sim.progressProperty().get()).isStrictlyBetween(0.0, 1.0);
+    }
+
+    @Test
+    void disposingCancelsTheRunInProgressAndRefusesNewRuns() throws Exception {
+        planner.load(threeNodes(), null);
+        startLongRun();
+
+        sim.dispose();
+
+        assertThat(sim.finished().get(30, TimeUnit.SECONDS)).isEqualTo(SimulationViewModel.Outcome.CANCELLED);
+        assertThat(sim.rows()).isEmpty();
+        assertThat(sim.runningProperty().get()).isFalse();
+        assertThat(sim.statusProperty().get()).startsWith("cancelled after");
+        sim.dispose();
+        sim.moleculesPerEmitterProperty().set("2000");
+        assertThat(sim.run()).as("no run after the window closed").isFalse();
+        assertThat(sim.statusProperty().get()).contains("closing");
+        assertThat(started).hasValue(1);
+    }
+
+    @Test
+    void anotherLayoutCancelsTheRunInProgressAndClearsTheOldRows() throws Exception {
+        planner.load(threeNodes(), null);
+        sim.moleculesPerEmitterProperty().set("2000");
+        assertThat(runToEnd()).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+        planner.load(pair(), null);
+        sim.layoutReplaced();
+        assertThat(sim.rows()).as("rows of the old layout are dropped").isEmpty();
+        assertThat(sim.staleProperty().get()).isFalse();
+
+        startLongRun();
+        planner.load(threeNodes(), null);
+        sim.layoutReplaced();
+
+        assertThat(sim.finished().get(30, TimeUnit.SECONDS)).isEqualTo(SimulationViewModel.Outcome.CANCELLED);
+        assertThat(sim.rows()).isEmpty();
+        assertThat(sim.runningProperty().get()).isFalse();
+        sim.moleculesPerEmitterProperty().set("2000");
+        assertThat(runToEnd()).as("the next run starts normally").isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+    }
+
+    // ------------------------------------------------------------ simulated-channel cache
+
+    SimulationViewModel cached(Path dir) {
+        return new SimulationViewModel(planner, Runnable::run, task -> {
+            started.incrementAndGet();
+            bgThread.execute(task);
+        }, 1, new ChannelCache(dir), false);
+    }
+
+    static SimulationViewModel.Outcome runToEnd(SimulationViewModel vm) throws Exception {
+        assertThat(vm.run()).as(vm.statusProperty().get()).isTrue();
+        return vm.finished().get(40, TimeUnit.SECONDS);
+    }
+
+    static long files(Path dir) throws Exception {
+        try (var s = Files.list(dir)) {
+            return s.count();
+        }
+    }
+
+    @Test
+    void aSecondRunOfTheSameLayoutAndSettingsReadsTheCacheAndAChangedSeedOrLayoutMissesIt(@TempDir Path dir)
+            throws Exception {
+        SimulationViewModel vm = cached(dir);
+        Scenario s = threeNodes();
+        planner.load(s, null);
+        // 9000 molecules = 3 blocks of ParticleSimulator.BLOCK_SIZE, so a simulation reports progress between 0 and 1
+        vm.moleculesPerEmitterProperty().set("9000");
+        vm.seedProperty().set("11");
+        assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+        assertThat(vm.statusProperty().get()).contains("simulated, cached").doesNotContain("from cache");
+        List<SimulationRow> first = List.copyOf(vm.rows());
+        assertThat(files(dir)).isEqualTo(1);
+        Path file = Files.list(dir).findFirst().orElseThrow();
+        FileTime written = Files.getLastModifiedTime(file);
+
+        // same layout, same settings: read from the cache, no simulation block runs (no progress
+        // between 0 and 1), nothing rewritten, the same rows
+        List<Double> seen = new CopyOnWriteArrayList<>();
+        vm.progressProperty().addListener((o, a, b) -> seen.add(b.doubleValue()));
+        assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+        assertThat(vm.statusProperty().get()).contains("from cache");
+        assertThat(vm.rows()).containsExactlyElementsOf(first);
+        assertThat(seen).allMatch(p -> p == 0.0 || p == 1.0);
+        assertThat(Files.getLastModifiedTime(file)).isEqualTo(written);
+        assertThat(files(dir)).isEqualTo(1);
+        // the command line finds the same entry: nanoplan plan --channel simulated goes through
+        // getOrSimulate with the same M, seed and automatic time step
+        ChannelCache.Lookup cli = new ChannelCache(dir).getOrSimulate(s, SimulationSettings.of(9000, 11), x -> {
+            throw new AssertionError("the command line would have simulated again");
+        });
+        assertThat(cli.hit()).isTrue();
+        assertThat(cli.file()).isEqualTo(file);
+
+        // another seed: a miss, a new simulation, a second file
+        vm.seedProperty().set("12");
+        seen.clear();
+        assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+        assertThat(vm.statusProperty().get()).contains("simulated, cached").doesNotContain("from cache");
+        assertThat(seen).anyMatch(p -> p > 0 && p < 1);
+        assertThat(files(dir)).isEqualTo(2);
+
+        // the seed back but a node moved: a miss too
+        vm.seedProperty().set("11");
+        assertThat(planner.moveNode("rx2", new Vec3(0, 14, 0))).isTrue();
+        assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+        assertThat(vm.statusProperty().get()).doesNotContain("from cache");
+        assertThat(files(dir)).isEqualTo(3);
+
+        // back to the first layout, hit again; with Re-simulate ticked it simulates anyway, rewrites
+        // the entry, and (same seed) gets the same rows
+        assertThat(planner.undo()).isTrue();
+        assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+        assertThat(vm.statusProperty().get()).contains("from cache");
+        vm.ignoreCacheProperty().set(true);
+        seen.clear();
+        assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+        assertThat(vm.statusProperty().get()).contains("re-simulated").doesNotContain("from cache");
+        assertThat(seen).anyMatch(p -> p > 0 && p < 1);
+        assertThat(vm.rows()).containsExactlyElementsOf(first);
+        assertThat(files(dir)).isEqualTo(3);
+    }
+
+    @Test
+    void aCancelledRunIsNotCached(@TempDir Path dir) throws Exception {
+        sim = cached(dir);
+        planner.load(pair(), null);
+        startLongRun();
+        sim.cancel();
+        assertThat(sim.finished().get(30, TimeUnit.SECONDS)).isEqualTo(SimulationViewModel.Outcome.CANCELLED);
+        assertThat(files(dir)).isZero();
+    }
+
+    // ------------------------------------------------------------ reusing the planner's plan
+
+    @Test
+    void thePlannersExactPlanOfTheSameLayoutIsReused() throws Exception {
+        SimulationViewModel vm = new SimulationViewModel(planner, Runnable::run, bgThread::execute, 1, null, true);
+        planner.load(pair(), null);
+        Plan plannersPlan = planner.planned().get(10, TimeUnit.SECONDS);
+        vm.moleculesPerEmitterProperty().set("2000");
+
+        assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+
+        assertThat(vm.lastAnalyticReused()).isTrue();
+        // the planner here is the hand-made FakePlans, whose capacity label differs from the core's:
+        // the analytic column shows the planner's plan, not a new one
+        assertThat(vm.rows().get(0).analyticCapacityBits()).isEqualTo(plannersPlan.links().get(0).capacityBits());
+    }
+
+    @Test
+    void aPlanOfAnotherLayoutIsNotReused() throws Exception {
+        CountDownLatch release = new CountDownLatch(1);
+        FakePlans fake = new FakePlans();
+        Scenario first = pair();
+        PlannerViewModel blocking = new PlannerViewModel(sc -> {
+            if (!sc.equals(first)) {
+                try {
+                    release.await(30, TimeUnit.SECONDS);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+            }
+            return fake.plan(sc);
+        }, Runnable::run, planning, 0, new RecentFiles(null));
+        try {
+            SimulationViewModel vm = new SimulationViewModel(blocking, Runnable::run, bgThread::execute, 1, null, true);
+            blocking.load(first, null);
+            blocking.planned().get(10, TimeUnit.SECONDS);
+            // the edited layout's plan is still running: the planner holds no plan of it
+            assertThat(blocking.moveNode("rx", new Vec3(12, 0, 0))).isTrue();
+            Scenario edited = blocking.scenarioProperty().get();
+            vm.moleculesPerEmitterProperty().set("2000");
+
+            assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+
+            assertThat(vm.lastAnalyticReused()).isFalse();
+            // re-planned with the core, called directly as the reference
+            LinkReport l = NetworkPlanner.plan(edited, PlanOptions.DEFAULT).links().get(0);
+            assertThat(vm.rows().get(0).analyticCapacityBits()).isEqualTo(l.capacityBits());
+        } finally {
+            release.countDown();
+        }
     }
 }

@@ -5,22 +5,30 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
+import java.nio.file.Path;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 import javafx.application.Platform;
 import javafx.scene.Scene;
+import javafx.geometry.Bounds;
 import javafx.scene.control.Button;
+import javafx.scene.control.CheckBox;
 import javafx.scene.control.Label;
 import javafx.scene.control.ProgressBar;
 import javafx.scene.control.Tab;
 import javafx.scene.control.TableView;
 import javafx.scene.control.TextField;
+import javafx.scene.paint.Color;
+import javafx.scene.paint.LinearGradient;
+import javafx.scene.paint.Paint;
+import javafx.scene.text.Text;
 import javafx.stage.Stage;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
+import org.junit.jupiter.api.io.TempDir;
 import org.testfx.util.WaitForAsyncUtils;
 
 /**
@@ -32,6 +40,8 @@ class SimulationWindowTest {
 
     ScheduledExecutorService bg;
     Stage stage;
+    @TempDir
+    Path cacheDir;
 
     @BeforeAll
     static void startFx() throws Exception {
@@ -61,7 +71,7 @@ class SimulationWindowTest {
         PlannerViewModel vm = onFx(() -> {
             PlannerViewModel v = new PlannerViewModel(PlanService.core(), Platform::runLater, bg, 0,
                     new RecentFiles(null));
-            MainView view = new MainView(v, null);
+            MainView view = new MainView(v, null, cacheDir);
             stage = new Stage();
             stage.setScene(new Scene(view.root(), 1200, 760));
             stage.show();
@@ -106,10 +116,92 @@ class SimulationWindowTest {
             return null;
         });
 
+        // the same run again: read from the cache (the folder given to the window)
+        onFx(() -> {
+            assertThat(((CheckBox) sv.node().lookup("#sim-resimulate")).isSelected()).isFalse();
+            ((Button) sv.node().lookup("#sim-run")).fire();
+            return null;
+        });
+        assertThat(sv.viewModel().finished().get(150, TimeUnit.SECONDS)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
+        WaitForAsyncUtils.waitForFxEvents();
+        assertThat(onFx(() -> ((Label) sv.node().lookup("#sim-status")).getText())).contains("from cache");
+
         // an edit after the run shows the stale mark
         onFx(() -> vm.moveNode("dst", new dev.nanoplan.geometry.Vec3(150, 0, 0)));
         WaitForAsyncUtils.waitForFxEvents();
         assertThat(onFx(() -> sv.node().lookup("#sim-stale").isVisible())).isTrue();
+    }
+
+    @Test
+    void theTimeStepPromptIsReadableAndItsHintBesideTheField() throws Exception {
+        bg = PlannerViewModel.daemonScheduler();
+        SimulationView sv = onFx(() -> {
+            PlannerViewModel v = new PlannerViewModel(PlanService.core(), Platform::runLater, bg, 0,
+                    new RecentFiles(null));
+            MainView view = new MainView(v, null, cacheDir);
+            stage = new Stage();
+            stage.setScene(new Scene(view.root(), 1200, 760));
+            stage.show();
+            assertThat(view.showTab("Simulation")).isTrue();
+            return (SimulationView) view.tabs().getSelectionModel().getSelectedItem().getContent().getUserData();
+        });
+        WaitForAsyncUtils.waitForFxEvents();
+        onFx(() -> {
+            TextField dt = (TextField) sv.node().lookup("#sim-dt");
+            assertThat(dt.getText()).isEmpty();
+            Text prompt = texts(dt).stream().filter(t -> "auto".equals(t.getText())).findFirst().orElseThrow();
+            assertThat(prompt.isVisible()).isTrue();
+            Color fill = (Color) prompt.getFill();
+            Color field = innerBackground(dt);
+            // W3C, Web Content Accessibility Guidelines 2.1, 2018, success criterion 1.4.3 (contrast
+            // (minimum)): text needs a contrast ratio of at least 4.5:1 with its background
+            assertThat(contrast(fill, field)).as("prompt %s on %s", fill, field).isGreaterThanOrEqualTo(4.5);
+            Bounds field1 = dt.localToScene(dt.getBoundsInLocal());
+            javafx.scene.Node hint = sv.node().lookup("#sim-dt-hint");
+            Bounds hintB = hint.localToScene(hint.getBoundsInLocal());
+            assertThat(hintB.getMinX()).as("the hint starts right of the field").isGreaterThanOrEqualTo(field1.getMaxX());
+            return null;
+        });
+    }
+
+    static java.util.List<Text> texts(javafx.scene.Parent p) {
+        java.util.List<Text> out = new java.util.ArrayList<>();
+        for (javafx.scene.Node n : p.getChildrenUnmodifiable()) {
+            if (n instanceof Text t) {
+                out.add(t);
+            } else if (n instanceof javafx.scene.Parent q) {
+                out.addAll(texts(q));
+            }
+        }
+        return out;
+    }
+
+    /** The colour the text of a text field is drawn on: its last background fill (the end of a gradient). */
+    static Color innerBackground(TextField f) {
+        var fills = f.getBackground().getFills();
+        Paint p = fills.get(fills.size() - 1).getFill();
+        if (p instanceof LinearGradient g) {
+            return g.getStops().get(g.getStops().size() - 1).getColor();
+        }
+        return (Color) p;
+    }
+
+    /**
+     * Contrast ratio (L1 + 0.05) / (L2 + 0.05) of relative luminances, W3C WCAG 2.1 (2018), definitions
+     * of "contrast ratio" and "relative luminance" (sRGB channels linearised, weights 0.2126, 0.7152, 0.0722).
+     */
+    static double contrast(Color a, Color b) {
+        double la = luminance(a);
+        double lb = luminance(b);
+        return (Math.max(la, lb) + 0.05) / (Math.min(la, lb) + 0.05);
+    }
+
+    static double luminance(Color c) {
+        return 0.2126 * linear(c.getRed()) + 0.7152 * linear(c.getGreen()) + 0.0722 * linear(c.getBlue());
+    }
+
+    static double linear(double v) {
+        return v <= 0.04045 ? v / 12.92 : Math.pow((v + 0.055) / 1.055, 2.4);
     }
 
     static Node firstEmitter(Scenario s) {
