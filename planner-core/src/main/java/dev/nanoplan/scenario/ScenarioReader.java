@@ -435,7 +435,7 @@ public final class ScenarioReader {
                 try {
                     schedule = Schedule.parse(sched);
                 } catch (IllegalArgumentException e) {
-                    o.problem("schedule", "unknown schedule '" + sched + "', expected all-active");
+                    o.problem("schedule", "unknown schedule '" + sched + "', expected " + Schedule.EXPECTED);
                 }
             }
             o.finish();

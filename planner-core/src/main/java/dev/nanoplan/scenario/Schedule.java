@@ -1,9 +1,22 @@
 package dev.nanoplan.scenario;
 
-/** Who sends in which symbol slot. */
+/**
+ * Who sends in which symbol slot. All slots are synchronous (DESIGN.md §4.1); the schedule decides
+ * which emitters of a species release in a slot ({@code dev.nanoplan.plan.SlotSchedule} turns it into
+ * the taps each link hears and its rate).
+ */
 public enum Schedule {
     /** Every emitter of a species sends in every symbol slot (file name {@code all-active}). */
-    ALL_ACTIVE("all-active");
+    ALL_ACTIVE("all-active"),
+    /**
+     * Time division within each species (file name {@code round-robin}): the K emitters of a
+     * species, numbered k = 0..K−1 in file order, take turns; emitter k sends in the slots
+     * s ≡ k (mod K) and releases nothing in the others. One symbol per frame of K slots.
+     */
+    ROUND_ROBIN("round-robin");
+
+    /** The file names of every schedule, for messages: {@code all-active or round-robin}. */
+    public static final String EXPECTED = "all-active or round-robin";
 
     private final String id;
 
@@ -27,6 +40,6 @@ public enum Schedule {
                 return s;
             }
         }
-        throw new IllegalArgumentException("unknown schedule '" + name + "', expected all-active");
+        throw new IllegalArgumentException("unknown schedule '" + name + "', expected " + EXPECTED);
     }
 }

@@ -78,6 +78,7 @@ bad("levels-17", "signalling.levels", True, "seventeen levels", setp(["signallin
 bad("levels-fraction", "signalling.levels", True, "fractional levels", setp(["signalling", "levels"], 2.5))
 bad("prior-1.5", "signalling.prior_one", True, "prior above one", setp(["signalling", "prior_one"], 1.5))
 bad("count-model-unknown", "signalling.count_model", True, "unknown count model", setp(["signalling", "count_model"], "binomial"))
+bad("schedule-unknown", "signalling.schedule", True, "unknown schedule", setp(["signalling", "schedule"], "token-ring"))
 bad("isi-memory-negative", "signalling.isi_memory_symbols", True, "negative ISI memory", setp(["signalling", "isi_memory_symbols"], -1))
 bad("nan-symbol-time", "signalling.symbol_time_s", False, "NaN literal", raw=lambda t: t.replace('"symbol_time_s": 1.0', '"symbol_time_s": NaN'))
 bad("infinity-radius", "nodes[1].radius_um", False, "Infinity literal", raw=lambda t: t.replace('"radius_um": 5.0', '"radius_um": Infinity'))
