@@ -19,6 +19,10 @@ import java.util.Map;
 /**
  * Everything needed to evaluate one emitter → receiver link, and to re-evaluate it with one
  * thing changed (the what-ifs behind {@code limited_by}, the advice and the budgets).
+ *
+ * <p>Under a round-robin schedule ({@link SlotSchedule}) {@link #entry} and the interferers carry
+ * the taps the link hears in its emitter's slots, {@link #physical} the pair's channel taps, and
+ * rates are per frame of {@link #frameSlots} slots.
  */
 final class LinkContext {
 
@@ -30,6 +34,12 @@ final class LinkContext {
     final List<Crosstalk.Interferer> interferers;
     final int exactCount;
     final boolean analytic;
+    /** The slot schedule; {@link SlotSchedule#ALL_ACTIVE} unless built with one. */
+    final SlotSchedule slots;
+    /** The pair as in the channel (equal to {@link #entry} under all-active). */
+    final ChannelEntry physical;
+    /** Slots per frame K of the link's species (1 under all-active): one symbol per K·T. */
+    final int frameSlots;
 
     /** Crosstalk terms of the link as laid out ({@link Crosstalk#terms(List, int)} of the interferers). */
     final List<CountTerm> terms;
@@ -52,6 +62,21 @@ final class LinkContext {
     LinkContext(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry,
             List<Crosstalk.Interferer> interferers, int exactCount, List<CountTerm> terms, ReceiverCrosstalk shared,
             int rank) {
+        this(scenario, emitter, receiver, species, entry, interferers, exactCount, terms, shared, rank,
+                SlotSchedule.ALL_ACTIVE, entry);
+    }
+
+    /**
+     * Under a slot schedule: {@code entry} and {@code interferers} hold the taps heard in the
+     * emitter's slots ({@link SlotSchedule#own}, {@link SlotSchedule#interferer}), {@code physical}
+     * the pair's channel taps.
+     */
+    LinkContext(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry,
+            List<Crosstalk.Interferer> interferers, int exactCount, List<CountTerm> terms, ReceiverCrosstalk shared,
+            int rank, SlotSchedule slots, ChannelEntry physical) {
+        this.slots = slots;
+        this.physical = physical;
+        this.frameSlots = slots.frameSlots(entry.species());
         this.terms = terms;
         this.shared = shared;
         this.rank = rank;
@@ -89,7 +114,9 @@ final class LinkContext {
 
     LinkSpec spec(double[] taps, long top, double symbolTimeS, double backgroundPerS, CountModelKind model) {
         Signalling s = signalling();
-        return new LinkSpec(taps, levels(top), s.priorOne(), backgroundPerS * symbolTimeS, model, symbolTimeS);
+        // background is counted over one slot; a symbol (and so the rate) takes a frame of K slots
+        return new LinkSpec(taps, levels(top), s.priorOne(), backgroundPerS * symbolTimeS, model,
+                symbolTimeS * frameSlots);
     }
 
     /**
@@ -195,8 +222,8 @@ final class LinkContext {
 
     /** Analytic only: the link with the emitter moved to centre distance {@code distanceUm}. */
     LinkEvaluation atDistance(double distanceUm) {
-        double[] taps = AnalyticChannel.model(distanceUm, receiver.radiusUm(), species)
-                .taps(symbolTimeS(), signalling().isiMemorySymbols());
+        double[] taps = slots.own(entry.species(), AnalyticChannel.model(distanceUm, receiver.radiusUm(), species)
+                .taps(symbolTimeS(), signalling().isiMemorySymbols()));
         return whatIf(taps, emitter.moleculesPerSymbol(), symbolTimeS(), scenario.medium().backgroundMoleculesPerS(),
                 interferers);
     }
@@ -204,12 +231,14 @@ final class LinkContext {
     /** Analytic only: the link and its interferers with symbol time {@code t} (same memory L). */
     LinkEvaluation withSymbolTime(double t, Map<String, Node> nodes) {
         int memory = signalling().isiMemorySymbols();
-        double[] taps = AnalyticChannel.model(distance(), receiver.radiusUm(), species).taps(t, memory);
+        double[] taps = slots.own(entry.species(),
+                AnalyticChannel.model(distance(), receiver.radiusUm(), species).taps(t, memory));
         List<Crosstalk.Interferer> others = new ArrayList<>(interferers.size());
         for (Crosstalk.Interferer i : interferers) {
             Node n = nodes.get(i.id());
             double d = n.positionUm().distance(receiver.positionUm());
-            double[] it = AnalyticChannel.model(d, receiver.radiusUm(), species).taps(t, memory);
+            double[] it = slots.interferer(entry.species(), emitter.id(), i.id(),
+                    AnalyticChannel.model(d, receiver.radiusUm(), species).taps(t, memory));
             others.add(new Crosstalk.Interferer(i.id(), it, i.levelMolecules(), i.weights()));
         }
         return whatIf(taps, emitter.moleculesPerSymbol(), t, scenario.medium().backgroundMoleculesPerS(), others);

@@ -32,6 +32,11 @@ import java.util.function.DoubleConsumer;
  * (Σ_j w_j n_j)/T, with binary n = {0, N} and w = {1 − q, q}: q·N/T; per mission = that × mission
  * duration. A node on no route still releases its configured N in every slot (it is an
  * interferer): its needed N is reported as 0 and its rate at the configured N.
+ *
+ * <p><b>Round-robin.</b> A node releases one symbol per frame of K slots of its emitted species
+ * ({@link SlotSchedule}), so molecules per second = mean molecules per symbol ÷ (K·T). The hop
+ * searches run on the link as heard in its emitter's slots (decimated taps), interferers scaled
+ * alike as above.
  */
 final class MoleculeBudgets {
 
@@ -58,6 +63,7 @@ final class MoleculeBudgets {
         double target = scenario.targets().maxErrorProbability();
         Signalling sig = scenario.signalling();
         double[] w = LinkContext.weights(sig);
+        SlotSchedule slots = SlotSchedule.of(scenario);
         Map<String, HopBudget> hopBudgets = new java.util.concurrent.ConcurrentHashMap<>();
         List<NetworkPlanner.Evaluated> hops = new ArrayList<>(uniqueHops.values());
         java.util.concurrent.atomic.AtomicInteger done = new java.util.concurrent.atomic.AtomicInteger();
@@ -71,11 +77,13 @@ final class MoleculeBudgets {
                 continue;
             }
             List<NetworkPlanner.Evaluated> mine = sends.get(n.id());
+            // one symbol per frame of K slots (K = 1 under all-active)
+            int frame = slots.frameSlots(n.emitsSpecies());
             if (mine == null) {
-                double rate = meanMolecules(sig, w, n.moleculesPerSymbol()) / sig.symbolTimeS();
+                double rate = meanMolecules(sig, w, n.moleculesPerSymbol()) / (frame * sig.symbolTimeS());
                 out.add(new BudgetReport(n.id(), 0, rate, rate * scenario.targets().missionDurationS(), true,
                         "on no route; still releases its configured " + n.moleculesPerSymbol()
-                                + " per symbol (all-active)"));
+                                + " per symbol (" + sig.schedule().id() + ")"));
                 continue;
             }
             long needed = 0;
@@ -98,10 +106,13 @@ final class MoleculeBudgets {
                         reason));
                 continue;
             }
-            double rate = meanMolecules(sig, w, needed) / sig.symbolTimeS();
+            double rate = meanMolecules(sig, w, needed) / (frame * sig.symbolTimeS());
             int k = carried.getOrDefault(n.id(), 0);
-            String r = String.format(Locale.ROOT, "%s; error target %.3g; sends every slot for %d route hop(s)",
-                    reason, target, k);
+            String r = slots.allActive()
+                    ? String.format(Locale.ROOT, "%s; error target %.3g; sends every slot for %d route hop(s)",
+                            reason, target, k)
+                    : String.format(Locale.ROOT, "%s; error target %.3g; sends 1 slot in %d for %d route hop(s)",
+                            reason, target, frame, k);
             out.add(new BudgetReport(n.id(), needed, rate, rate * scenario.targets().missionDurationS(), true, r));
         }
         return out;

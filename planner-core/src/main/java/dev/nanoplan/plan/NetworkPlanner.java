@@ -51,6 +51,12 @@ import java.util.stream.IntStream;
  * capacity-achieving detectors ({@link dev.nanoplan.info.ChannelCascade}), never above the
  * weakest hop. Latency = hops × T, rate = end-to-end capacity / T.
  *
+ * <p><b>Round-robin.</b> Under {@link dev.nanoplan.scenario.Schedule#ROUND_ROBIN} each link hears
+ * its own and its neighbours' taps decimated to its emitter's slots ({@link SlotSchedule}); the
+ * crosstalk then depends on the emitter decoded, so it is built per link (no shared receiver
+ * crosstalk). A link's rate is capacity / (K·T) for a frame of K slots, a route's latency Σ K_h·T
+ * over its hops and its rate the end-to-end capacity over the longest frame K_max·T.
+ *
  * <p>Progress: the channel is 20 % of the work, links 65 %, routes and advice 5 %, budgets 10 %.
  */
 public final class NetworkPlanner {
@@ -86,6 +92,7 @@ public final class NetworkPlanner {
         List<String> warnings = new ArrayList<>(channel.notes());
         Signalling sig = scenario.signalling();
         double[] weights = LinkContext.weights(sig);
+        SlotSchedule slots = SlotSchedule.of(scenario);
 
         List<String> receivers = channel.receivers();
         @SuppressWarnings("unchecked")
@@ -94,8 +101,11 @@ public final class NetworkPlanner {
         AtomicInteger done = new AtomicInteger();
         int total = Math.max(1, receivers.size());
         IntStream.range(0, receivers.size()).parallel().forEach(ri -> {
-            perReceiver[ri] = evaluateReceiver(scenario, nodes, species, channel.atReceiver(receivers.get(ri)),
-                    weights, options, evaluatedCapacity);
+            perReceiver[ri] = slots.allActive()
+                    ? evaluateReceiver(scenario, nodes, species, channel.atReceiver(receivers.get(ri)),
+                            weights, options, evaluatedCapacity)
+                    : evaluateScheduled(scenario, nodes, species, channel.atReceiver(receivers.get(ri)),
+                            weights, options, evaluatedCapacity, slots);
             progress.accept(0.2 + 0.65 * done.incrementAndGet() / total);
         });
         List<Evaluated> links = new ArrayList<>();
@@ -193,6 +203,51 @@ public final class NetworkPlanner {
         return out;
     }
 
+    /**
+     * The links of one receiver under a slot schedule other than all-active: per link, its own taps
+     * and every other emitter's taps decimated to the link emitter's slots ({@link SlotSchedule}),
+     * silent interferers dropped, crosstalk convolved per link.
+     */
+    private static List<Evaluated> evaluateScheduled(Scenario scenario, Map<String, Node> nodes,
+            Map<String, Species> species, List<ChannelEntry> entries, double[] weights, PlanOptions options,
+            Map<String, Double> evaluatedCapacity, SlotSchedule slots) {
+        List<Evaluated> out = new ArrayList<>();
+        for (int i = 0; i < entries.size(); i++) {
+            ChannelEntry e = entries.get(i);
+            Node tx = nodes.get(e.emitter());
+            Node rx = nodes.get(e.receiver());
+            long[] lv = levelsOf(scenario.signalling(), tx.moleculesPerSymbol());
+            long swing = lv[lv.length - 1] - lv[0];
+            // capacity <= total variation <= 1 - (1 - p0)^swing (p0 is kept by every schedule)
+            double tvBound = e.tap(0) >= 1 ? 1 : -Math.expm1(swing * Math.log1p(-e.tap(0)));
+            if (tvBound < options.capacityFloorBits() || tvBound == 0) {
+                continue;
+            }
+            List<Crosstalk.Interferer> others = new ArrayList<>(entries.size());
+            for (int j = 0; j < entries.size(); j++) {
+                ChannelEntry o = entries.get(j);
+                double[] heard = j == i ? null : slots.interferer(e.species(), e.emitter(), o.emitter(), o.taps());
+                if (heard != null && heard.length > 0) {
+                    others.add(new Crosstalk.Interferer(o.emitter(), heard,
+                            levelsOf(scenario.signalling(), nodes.get(o.emitter()).moleculesPerSymbol()), weights));
+                }
+            }
+            ChannelEntry heard = new ChannelEntry(e.emitter(), e.receiver(), e.species(),
+                    slots.own(e.species(), e.taps()), e.source(), e.modelCaveat());
+            LinkContext ctx = new LinkContext(scenario, tx, rx, species.get(rx.species()), heard, others,
+                    options.exactInterferers(), Crosstalk.terms(others, options.exactInterferers()), null, -1, slots, e);
+            if (ctx.screenBits() * dev.nanoplan.network.GaussianScreen.SAFETY_FACTOR < options.capacityFloorBits()) {
+                continue;
+            }
+            LinkEvaluation ev = ctx.evaluate();
+            evaluatedCapacity.put(key(tx.id(), rx.id()), ev.capacityBits());
+            if (ev.capacityBits() >= options.capacityFloorBits()) {
+                out.add(report(ctx, ev, others));
+            }
+        }
+        return out;
+    }
+
     static long[] levelsOf(Signalling s, long top) {
         return dev.nanoplan.network.LinkSpec.evenLevels(s.levels(), Math.max(top, s.levels() - 1));
     }
@@ -246,7 +301,7 @@ public final class NetworkPlanner {
             e1 = 1 - matrix[m - 1][m - 1];
             threshold = ev.multiLevel().thresholds()[0];
         }
-        ChannelEntry entry = ctx.entry;
+        ChannelEntry entry = ctx.physical;
         String caveat = entry.source().equals(ChannelMatrix.SIMULATED) ? "simulated" : entry.modelCaveat();
         double p0 = entry.tap(0);
         LinkReport r = new LinkReport(entry.emitter(), entry.receiver(), entry.species(), p0, entry.taps(),
@@ -288,9 +343,13 @@ public final class NetworkPlanner {
         List<String> v = path.vertices();
         List<double[][]> matrices = new ArrayList<>();
         Evaluated weakest = null;
+        int frameSlotsSum = 0;
+        int frameSlotsMax = 1;
         for (int i = 0; i + 1 < v.size(); i++) {
             Evaluated e = byPair.get(key(v.get(i), v.get(i + 1)));
             hopsOut.add(e);
+            frameSlotsSum += e.context().frameSlots;
+            frameSlotsMax = Math.max(frameSlotsMax, e.context().frameSlots);
             matrices.add(e.edge().channel());
             if (weakest == null || e.report().capacityBits() < weakest.report().capacityBits()) {
                 weakest = e;
@@ -302,14 +361,15 @@ public final class NetworkPlanner {
                         weakest.report().capacityBits());
         String advice = BottleneckAdvisor.advise(weakest.context(), weakest.report(), options.adviceTargetBits(),
                 nodes);
-        double rate = endToEnd / symbolT;
+        // one symbol per frame; all-active: frames of one slot, so rate = C/T and latency = hops × T
+        double rate = endToEnd / (frameSlotsMax * symbolT);
         double minRate = weakest.context().scenario.targets().minRateBitsPerS();
         if (rate < minRate) {
             warnings.add(String.format(Locale.ROOT, "demand %s -> %s: %.3g bit/s is below the target %.3g bit/s",
                     d.from(), d.to(), rate, minRate));
         }
         return new RouteReport(d.from(), d.to(), v, weakest.report().capacityBits(), weakest.report().from(),
-                weakest.report().to(), endToEnd, rate, (v.size() - 1) * symbolT, direct,
+                weakest.report().to(), endToEnd, rate, frameSlotsSum * symbolT, direct,
                 weakest.report().limitedBy(), advice);
     }
 

@@ -19,6 +19,14 @@ public final class PlanText {
     public static String render(Plan plan) {
         StringBuilder sb = new StringBuilder();
         sb.append("Plan: ").append(plan.scenario().name()).append(" (channel ").append(plan.channel()).append(")\n");
+        SlotSchedule slots = SlotSchedule.of(plan.scenario());
+        if (!slots.allActive()) {
+            sb.append("Schedule: ").append(slots.schedule().id()).append(" (emitters of a species take turns;");
+            plan.scenario().species().forEach(sp -> sb.append(' ').append(sp.name()).append(": frame of ")
+                    .append(slots.frameSlots(sp.name())).append(" slots,"));
+            sb.setLength(sb.length() - 1);
+            sb.append(" — rates per frame, latencies one frame per hop)\n");
+        }
         sb.append(String.format(Locale.ROOT, "%d links above the floor, %d demands%n%n", plan.links().size(),
                 plan.routes().size()));
         List<LinkReport> sorted = new ArrayList<>(plan.links());

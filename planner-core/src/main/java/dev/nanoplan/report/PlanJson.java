@@ -13,7 +13,8 @@ import java.util.List;
 /**
  * The {@code plan --json} object of DESIGN.md §4.3 (stable snake_case keys; more may be added).
  *
- * <p>Top level: {@code scenario} (name), {@code channel}, {@code symbol_time_s}, {@code links},
+ * <p>Top level: {@code scenario} (name), {@code channel}, {@code symbol_time_s}, {@code schedule}
+ * ({@code all-active} or {@code round-robin}: then link rates are per frame of K slots), {@code links},
  * {@code routes}, {@code budgets}, {@code warnings}, {@code assumptions} ({@link Cautions#ASSUMPTIONS}),
  * {@code caution} ({@link Cautions#SHORT}).
  *
@@ -39,6 +40,7 @@ public final class PlanJson {
         o.put("scenario", plan.scenario().name());
         o.put("channel", plan.channel());
         number(o, "symbol_time_s", plan.scenario().signalling().symbolTimeS());
+        o.put("schedule", plan.scenario().signalling().schedule().id());
         ArrayNode links = o.putArray("links");
         for (LinkReport l : plan.links()) {
             links.add(link(l));
