@@ -7,6 +7,7 @@ import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.report.Cautions;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
+import dev.nanoplan.scenario.Schedule;
 import java.util.List;
 import java.util.function.Function;
 import javafx.beans.binding.Bindings;
@@ -407,7 +408,7 @@ public final class MainView {
     }
 
     /**
-     * Medium (with bulk flow), signalling (schedule read-only) and species settings of the whole
+     * Medium (with bulk flow), signalling (with the slot schedule) and species settings of the whole
      * layout; species can be added, renamed and removed. Apply makes it one undoable edit.
      */
     private Region settingsPane() {
@@ -468,12 +469,20 @@ public final class MainView {
         });
         count.valueProperty().bindBidirectional(st.countModelProperty());
         signalling.addRow(row++, new Label("count model"), count);
-        TextField schedule = new TextField();
-        schedule.textProperty().bind(st.scheduleProperty());
-        schedule.setEditable(false);
-        schedule.setFocusTraversable(false);
-        schedule.setPrefColumnCount(8);
-        schedule.getStyleClass().add("read-only");
+        ChoiceBox<Schedule> schedule = new ChoiceBox<>();
+        schedule.getItems().addAll(Schedule.values());
+        schedule.setConverter(new javafx.util.StringConverter<>() {
+            @Override
+            public String toString(Schedule k) {
+                return k == null ? "" : k.id();
+            }
+
+            @Override
+            public Schedule fromString(String text) {
+                return Schedule.parse(text);
+            }
+        });
+        schedule.valueProperty().bindBidirectional(st.scheduleProperty());
         schedule.setId("schedule");
         Tooltip scheduleTip = new Tooltip(ScenarioSettings.SCHEDULE_HELP);
         scheduleTip.setWrapText(true);

@@ -31,7 +31,7 @@ import javafx.collections.ObservableList;
 /**
  * The scenario-wide settings as text the settings panel binds to: the medium (temperature,
  * viscosity, bulk flow, background arrivals), the signalling (symbol time, ISI memory, levels,
- * prior of a one, count model; the schedule is shown read-only because the core has one) and the
+ * prior of a one, count model, slot schedule: all-active or round-robin) and the
  * species (name, diffusion coefficient or hydrodynamic radius, half-life; rows can be added,
  * renamed and removed). {@link #apply(Scenario, List)} parses the fields and builds the new layout;
  * a malformed or out-of-range value is refused with an {@link IllegalArgumentException} whose
@@ -57,10 +57,12 @@ public final class ScenarioSettings {
     public static final List<String> FLOW_PROFILES = List.of(new Flow.None().profile(),
             new Flow.Uniform(Vec3.ZERO).profile(), new Flow.Poiseuille(0).profile());
 
-    /** What the (only) schedule of the core means, for the read-only schedule field's tooltip. */
+    /** What the schedules mean, for the schedule choice's tooltip. */
     public static final String SCHEDULE_HELP = Schedule.ALL_ACTIVE.id()
             + ": every emitter of a species sends in every symbol slot, all slots on one clock. "
-            + "It is the only schedule the planner models, so it cannot be changed here.";
+            + Schedule.ROUND_ROBIN.id() + ": the K emitters of a species take turns in file order, one slot "
+            + "each, so a link hears less crosstalk but carries one symbol per K slots (rate / K); "
+            + "the ISI memory should then cover a few frames of K slots.";
 
     /** The layout plus the species declared in the editor that no node uses yet. */
     public record Applied(Scenario scenario, List<Species> unusedSpecies) {
@@ -140,7 +142,7 @@ public final class ScenarioSettings {
     private final StringProperty levels = new SimpleStringProperty("");
     private final StringProperty priorOne = new SimpleStringProperty("");
     private final ObjectProperty<CountModelKind> countModel = new SimpleObjectProperty<>(CountModelKind.EXACT);
-    private final ReadOnlyStringWrapper schedule = new ReadOnlyStringWrapper("");
+    private final ObjectProperty<Schedule> schedule = new SimpleObjectProperty<>(Schedule.ALL_ACTIVE);
     private final ObservableList<SpeciesRow> species = FXCollections.observableArrayList();
     private final Set<String> removed = new LinkedHashSet<>();
     private Map<String, List<String>> users = Map.of();
@@ -162,7 +164,7 @@ public final class ScenarioSettings {
                 levels, priorOne}) {
                 p.set("");
             }
-            schedule.set("");
+            schedule.set(Schedule.ALL_ACTIVE);
             users = Map.of();
             species.clear();
             return;
@@ -184,7 +186,7 @@ public final class ScenarioSettings {
         levels.set(Integer.toString(g.levels()));
         priorOne.set(fmt(g.priorOne()));
         countModel.set(g.countModel());
-        schedule.set(g.schedule().id());
+        schedule.set(g.schedule());
         users = usersBySpecies(s.nodes());
         List<SpeciesRow> rows = new ArrayList<>();
         List<Species> all = new ArrayList<>(s.species());
@@ -265,7 +267,7 @@ public final class ScenarioSettings {
         try {
             signalling = new Signalling(parse("symbol time s", symbolTimeS.get()),
                     parseInt("ISI memory symbols", isiMemorySymbols.get()), parseInt("levels", levels.get()),
-                    parse("prior one", priorOne.get()), countModel.get(), s.signalling().schedule());
+                    parse("prior one", priorOne.get()), countModel.get(), schedule.get());
         } catch (IllegalArgumentException e) {
             throw prefixed("signalling", e);
         }
@@ -541,9 +543,9 @@ public final class ScenarioSettings {
         return countModel;
     }
 
-    /** The schedule's file name, read-only (see {@link #SCHEDULE_HELP}). */
-    public ReadOnlyStringProperty scheduleProperty() {
-        return schedule.getReadOnlyProperty();
+    /** The slot schedule (see {@link #SCHEDULE_HELP}). */
+    public ObjectProperty<Schedule> scheduleProperty() {
+        return schedule;
     }
 
     /** One row per species: the layout's in its order, then the unused ones, then added rows. */

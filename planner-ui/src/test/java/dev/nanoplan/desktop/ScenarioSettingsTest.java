@@ -31,7 +31,7 @@ import org.junit.jupiter.params.provider.MethodSource;
 
 /**
  * The settings editor through the view model, without a window: adding, renaming and removing
- * species, the bulk flow, the read-only schedule; each Apply is one undo step and replans.
+ * species, the bulk flow, the slot schedule; each Apply is one undo step and replans.
  */
 @Timeout(30)
 class ScenarioSettingsTest {
@@ -373,11 +373,26 @@ class ScenarioSettingsTest {
     }
 
     @Test
-    void scheduleIsShownReadOnly() throws Exception {
-        opened(TANK);
-        // culture-tank.json: "schedule": "all-active", the only schedule of the core
-        assertThat(vm.settings().scheduleProperty().get()).isEqualTo("all-active");
-        assertThat(vm.settings().scheduleProperty()).isNotInstanceOf(javafx.beans.value.WritableValue.class);
-        assertThat(ScenarioSettings.SCHEDULE_HELP).contains("every emitter").contains("every symbol slot");
+    void scheduleIsAChoiceThatReplansSavesAndUndoes(@TempDir Path dir) throws Exception {
+        Scenario tank = opened(TANK);
+        // culture-tank.json: "schedule": "all-active"
+        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(dev.nanoplan.scenario.Schedule.ALL_ACTIVE);
+        assertThat(ScenarioSettings.SCHEDULE_HELP).contains("every emitter").contains("every symbol slot")
+                .contains("round-robin").contains("take turns");
+
+        vm.settings().scheduleProperty().set(dev.nanoplan.scenario.Schedule.ROUND_ROBIN);
+        assertThat(vm.applySettings()).isTrue();
+        // the layout handed to the planner has the new schedule, nothing else changed
+        Plan p = awaitPlan();
+        assertThat(p.scenario().signalling().schedule()).isEqualTo(dev.nanoplan.scenario.Schedule.ROUND_ROBIN);
+        assertThat(p.scenario().nodes()).isEqualTo(tank.nodes());
+
+        Path file = dir.resolve("rr.json");
+        assertThat(vm.saveAs(file)).isTrue();
+        assertThat(ScenarioReader.strict().read(file).signalling().schedule())
+                .isEqualTo(dev.nanoplan.scenario.Schedule.ROUND_ROBIN);
+        assertThat(vm.undo()).isTrue();
+        assertThat(current().signalling()).isEqualTo(tank.signalling());
+        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(dev.nanoplan.scenario.Schedule.ALL_ACTIVE);
     }
 }
