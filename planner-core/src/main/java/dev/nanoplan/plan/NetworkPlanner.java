@@ -93,6 +93,15 @@ public final class NetworkPlanner {
         Signalling sig = scenario.signalling();
         double[] weights = LinkContext.weights(sig);
         SlotSchedule slots = SlotSchedule.of(scenario);
+        for (Species sp : slots.allActive() ? List.<Species>of() : scenario.species()) {
+            int frame = slots.frameSlots(sp.name());
+            if (frame > 1 && sig.isiMemorySymbols() < 2 * frame) {
+                warnings.add(String.format(Locale.ROOT, "round-robin: species %s has a frame of %d slots but "
+                        + "isi_memory_symbols is %d: leftovers older than that (a link's own earlier symbols come "
+                        + "%d slots back) are not counted; let the memory cover a few frames unless %s decays within "
+                        + "a few slots", sp.name(), frame, sig.isiMemorySymbols(), frame, sp.name()));
+            }
+        }
 
         List<String> receivers = channel.receivers();
         @SuppressWarnings("unchecked")

@@ -67,7 +67,14 @@ public record PlanComparison(String nameA, String nameB, List<Row> rows) {
                 rows.add(new Row(r.from(), r.to(), null, side(b, r)));
             }
         }
-        return new PlanComparison(a.scenario().name(), b.scenario().name(), rows);
+        return new PlanComparison(label(a), label(b), rows);
+    }
+
+    /** The scenario's name, followed by its schedule when that is not all-active (rates differ in kind). */
+    static String label(Plan p) {
+        var schedule = p.scenario().signalling().schedule();
+        return schedule == dev.nanoplan.scenario.Schedule.ALL_ACTIVE ? p.scenario().name()
+                : p.scenario().name() + " [schedule " + schedule.id() + "]";
     }
 
     static Side side(Plan p, RouteReport r) {

@@ -154,6 +154,12 @@ class RoundRobinPlannerTest {
         assertThat(route.rateBitsPerS()).isCloseTo(route.endToEndCapacityBits() / (2 * T_S), within(1e-12));
         assertThat(PlanText.render(rr)).contains("Schedule: round-robin").contains("A: frame of 2 slots");
         assertThat(dev.nanoplan.report.PlanJson.of(rr).get("schedule").asText()).isEqualTo("round-robin");
+        assertThat(PlanComparison.of(aa, rr).toText()).contains("B: rr [schedule round-robin]")
+                .doesNotContain("A: rr [");
+        // L = 4 covers two frames of K = 2: no warning about the memory
+        assertThat(rr.warnings()).noneMatch(msg -> msg.startsWith("round-robin"));
+        Plan shortMemory = NetworkPlanner.plan(layout(nodes, stable, 2, Schedule.ROUND_ROBIN), ALL_LINKS);
+        assertThat(shortMemory.warnings()).anyMatch(msg -> msg.startsWith("round-robin: species A has a frame of 2 slots"));
     }
 
     @Test
