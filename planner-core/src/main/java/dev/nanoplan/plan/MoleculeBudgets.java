@@ -108,7 +108,7 @@ final class MoleculeBudgets {
             }
             double rate = meanMolecules(sig, w, needed) / (frame * sig.symbolTimeS());
             int k = carried.getOrDefault(n.id(), 0);
-            String r = slots.allActive()
+            String r = frame == 1
                     ? String.format(Locale.ROOT, "%s; error target %.3g; sends every slot for %d route hop(s)",
                             reason, target, k)
                     : String.format(Locale.ROOT, "%s; error target %.3g; sends 1 slot in %d for %d route hop(s)",

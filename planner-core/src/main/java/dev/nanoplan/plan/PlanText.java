@@ -23,7 +23,7 @@ public final class PlanText {
         if (!slots.allActive()) {
             sb.append("Schedule: ").append(slots.schedule().id()).append(" (emitters of a species take turns;");
             plan.scenario().species().forEach(sp -> sb.append(' ').append(sp.name()).append(": frame of ")
-                    .append(slots.frameSlots(sp.name())).append(" slots,"));
+                    .append(slots.frameSlots(sp.name())).append(slots.frameSlots(sp.name()) == 1 ? " slot," : " slots,"));
             sb.setLength(sb.length() - 1);
             sb.append(" — rates per frame, latencies one frame per hop)\n");
         }
