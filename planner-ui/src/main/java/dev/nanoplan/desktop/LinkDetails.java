@@ -40,7 +40,10 @@ public record LinkDetails(LinkReport link, double[] taps, List<List<double[]>> c
         double t = s.signalling().symbolTimeS();
         double bg = s.medium().backgroundMoleculesPerS() * t;
         int levels = s.signalling().levels();
-        LinkEvaluation ev = LinkEvaluator.evaluate(spec(l.taps(), levels, n, s, bg));
+        // the own leftovers the receiver counts: every K-th lag under round-robin (K = 1 under all-active)
+        double[] own = dev.nanoplan.plan.SlotSchedule.ownTaps(l.taps(),
+                dev.nanoplan.plan.SlotSchedule.of(s).frameSlots(l.species()));
+        LinkEvaluation ev = LinkEvaluator.evaluate(spec(own, levels, n, s, bg));
         List<List<double[]>> curves = new ArrayList<>();
         for (CountPmf p : ev.givenLevel()) {
             curves.add(points(p));
@@ -58,7 +61,7 @@ public record LinkDetails(LinkReport link, double[] taps, List<List<double[]>> c
         List<double[]> err = new ArrayList<>();
         for (double f : MOLECULE_FACTORS) {
             long m = Math.max(levels - 1, Math.round(n * f));
-            LinkEvaluation e = f == 1 ? ev : LinkEvaluator.evaluate(spec(l.taps(), levels, m, s, bg));
+            LinkEvaluation e = f == 1 ? ev : LinkEvaluator.evaluate(spec(own, levels, m, s, bg));
             if (Double.isFinite(e.log10ErrorProbability())) {
                 err.add(new double[] {m, e.log10ErrorProbability()});
             }
