@@ -100,35 +100,19 @@ final class Convolution {
         System.arraycopy(a, 0, re, 0, a.length);
         System.arraycopy(b, 0, im, 0, b.length);
         forwardDif(re, im, tw);
-        // product spectrum in place, each conjugate pair (k, m − k) once
-        int shift = 32 - bits;
-        int mask = m - 1;
-        for (int p = 0; p < m; p++) {
-            int k = Integer.reverse(p) >>> shift;
-            int q = Integer.reverse((m - k) & mask) >>> shift;
-            if (q < p) {
-                continue;
-            }
-            double zr = re[p];
-            double zi = im[p];
-            double wr = re[q];
-            double wi = -im[q];
-            // (Z_k² − W²)/(4i) with W = conj(Z_{m−k})
-            double sr = zr * zr - zi * zi - (wr * wr - wi * wi);
-            double si = 2 * (zr * zi - wr * wi);
-            double cr = si * 0.25;
-            double ci = -sr * 0.25;
-            re[p] = cr;
-            im[p] = ci;
-            if (q != p) {
-                // C_{m−k} = conj(C_k): the output is real
-                re[q] = cr;
-                im[q] = -ci;
+        // product spectrum in place, each conjugate pair (k, m − k) once. In bit-reversed order
+        // positions 0 (k = 0) and 1 (k = m/2) pair with themselves, and for 2^j ≤ p < 2^{j+1} the
+        // partner of p is 3·2^j − 1 − p (the block read from both ends, sequentially)
+        product(re, im, 0, 0);
+        product(re, im, 1, 1);
+        for (int lo = 2; lo < m; lo <<= 1) {
+            for (int p = lo, q = 2 * lo - 1; p < q; p++, q--) {
+                product(re, im, p, q);
             }
         }
         // fold to half length: Y_k = E_k + i·O_k at bit-reversed position p (k = rev_{m/2}(p))
         int h = m >> 1;
-        int hShift = shift + 1;
+        int hShift = 33 - bits;
         for (int p = 0; p < h; p++) {
             int k = Integer.reverse(p) >>> hShift;
             double ar = re[2 * p];
@@ -162,6 +146,25 @@ final class Convolution {
             }
         }
         return out;
+    }
+
+    /**
+     * Replaces Z at positions p and q (holding Z_k and Z_{m−k}) by the product spectrum
+     * C_k = (Z_k² − conj(Z_{m−k})²)/(4i) and C_{m−k} = conj(C_k) (the output is real).
+     */
+    private static void product(double[] re, double[] im, int p, int q) {
+        double zr = re[p];
+        double zi = im[p];
+        double wr = re[q];
+        double wi = -im[q];
+        double sr = zr * zr - zi * zi - (wr * wr - wi * wi);
+        double si = 2 * (zr * zi - wr * wi);
+        double cr = si * 0.25;
+        double ci = -sr * 0.25;
+        re[p] = cr;
+        im[p] = ci;
+        re[q] = cr;
+        im[q] = -ci;
     }
 
     /**
