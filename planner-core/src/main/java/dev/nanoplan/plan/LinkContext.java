@@ -144,10 +144,10 @@ final class LinkContext {
         return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluate(spec, t);
     }
 
-    /** Gaussian estimate of the link as laid out ({@link dev.nanoplan.network.GaussianScreen}). */
-    double screenBits() {
-        return dev.nanoplan.network.GaussianScreen.estimateBits(spec(entry.taps(), emitter.moleculesPerSymbol(),
-                symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), terms);
+    /** Whether the Gaussian screen lets the link as laid out through to exact evaluation. */
+    boolean passesScreen(double floorBits) {
+        return dev.nanoplan.network.GaussianScreen.passes(spec(entry.taps(), emitter.moleculesPerSymbol(),
+                symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), terms, floorBits);
     }
 
     /** Capacity of the link as laid out, with the what-if model. */
