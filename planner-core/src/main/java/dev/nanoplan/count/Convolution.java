@@ -8,11 +8,12 @@ package dev.nanoplan.count;
  * {@code Complex} objects and allocates per element; this one works in place on primitive
  * arrays, packs both real inputs into one complex transform (Z = FFT(a + i·b), then
  * A·B = (Z_k² − conj(Z_{−k})²)/(4i)), recovers the real output with a half-length inverse,
- * skips both bit-reversal passes (decimation in frequency forward, in time backward) and reads
- * twiddle factors contiguously per stage from one table computed directly by
- * {@code Math.cos}/{@code Math.sin} (no recurrence, so no drift). Measured (thread CPU time,
- * shared 2-core machine) 1.7–1.9× faster than the former full-length radix-2 version with
- * bit reversal, e.g. 4.2 ms instead of 7.8 ms for 60,000 × 60,000 cells.
+ * skips both bit-reversal passes (decimation in frequency forward, in time backward), fuses two
+ * radix-2 stages per pass over the data, and reads twiddle factors contiguously per stage from
+ * one table computed directly by {@code Math.cos}/{@code Math.sin} (no recurrence, so no
+ * drift). Measured (minimum thread CPU time, shared 2-core machine) 2.5–2.7× faster than the
+ * former full-length radix-2 version with bit reversal: 3.0 ms instead of 7.8 ms for
+ * 60,000 × 60,000 cells, 0.11 ms instead of 0.29 ms for 3,000 × 3,000.
  *
  * <p><b>Accuracy.</b> Direct: each output is a sum of non-negative products, relative error
  * ≤ (number of products)·2⁻⁵³. FFT: absolute error about 1e-16·log₂M·max(a)·Σb per output, so
@@ -170,30 +171,80 @@ final class Convolution {
     /**
      * In-place forward DFT X_k = Σ x_j e^{−2πijk/m} (m = re.length, a power of two) by
      * decimation in frequency: natural-order input, output X_k at position rev(k) (bit reversal
-     * over log₂m bits).
+     * over log₂m bits). Two radix-2 stages are fused per pass over the data (same operations in
+     * the same order as two separate passes, half the memory traffic); an odd stage count ends
+     * with one radix-2 pass.
      */
     static void forwardDif(double[] re, double[] im, double[] tw) {
         int m = re.length;
-        for (int half = m >> 1; half >= 1; half >>= 1) {
+        int half = m >> 1;
+        for (; half >= 2; half >>= 2) {
+            int q = half >> 1;
             int len = half << 1;
-            int base = 2 * half;
+            int outer = 2 * half;
+            int inner = 2 * q;
             for (int start = 0; start < m; start += len) {
-                for (int j = 0; j < half; j++) {
-                    int p = start + j;
-                    int q = p + half;
-                    double ur = re[p];
-                    double ui = im[p];
-                    double vr = re[q];
-                    double vi = im[q];
-                    re[p] = ur + vr;
-                    im[p] = ui + vi;
-                    double dr = ur - vr;
-                    double di = ui - vi;
-                    double wr = tw[base + 2 * j];
-                    double wi = tw[base + 2 * j + 1];
-                    re[q] = dr * wr - di * wi;
-                    im[q] = dr * wi + di * wr;
+                for (int j = 0; j < q; j++) {
+                    int p0 = start + j;
+                    int p1 = p0 + q;
+                    int p2 = p1 + q;
+                    int p3 = p2 + q;
+                    // stage of span 2·half: (p0, p2) with w^j, (p1, p3) with w^{j+q}
+                    double w0r = tw[outer + 2 * j];
+                    double w0i = tw[outer + 2 * j + 1];
+                    double w1r = tw[outer + 2 * (j + q)];
+                    double w1i = tw[outer + 2 * (j + q) + 1];
+                    double x0r = re[p0];
+                    double x0i = im[p0];
+                    double x2r = re[p2];
+                    double x2i = im[p2];
+                    double a0r = x0r + x2r;
+                    double a0i = x0i + x2i;
+                    double dr = x0r - x2r;
+                    double di = x0i - x2i;
+                    double a2r = dr * w0r - di * w0i;
+                    double a2i = dr * w0i + di * w0r;
+                    double x1r = re[p1];
+                    double x1i = im[p1];
+                    double x3r = re[p3];
+                    double x3i = im[p3];
+                    double a1r = x1r + x3r;
+                    double a1i = x1i + x3i;
+                    dr = x1r - x3r;
+                    di = x1i - x3i;
+                    double a3r = dr * w1r - di * w1i;
+                    double a3i = dr * w1i + di * w1r;
+                    // stage of span half: (p0, p1) and (p2, p3), both with w^j
+                    double vr = tw[inner + 2 * j];
+                    double vi = tw[inner + 2 * j + 1];
+                    re[p0] = a0r + a1r;
+                    im[p0] = a0i + a1i;
+                    dr = a0r - a1r;
+                    di = a0i - a1i;
+                    re[p1] = dr * vr - di * vi;
+                    im[p1] = dr * vi + di * vr;
+                    re[p2] = a2r + a3r;
+                    im[p2] = a2i + a3i;
+                    dr = a2r - a3r;
+                    di = a2i - a3i;
+                    re[p3] = dr * vr - di * vi;
+                    im[p3] = dr * vi + di * vr;
                 }
+            }
+        }
+        if (half == 1) {
+            for (int p = 0; p < m; p += 2) {
+                // span 2, twiddle 1 (tw entry (1, 0) exactly): same as the general butterfly
+                double ur = re[p];
+                double ui = im[p];
+                double vr = re[p + 1];
+                double vi = im[p + 1];
+                re[p] = ur + vr;
+                im[p] = ui + vi;
+                double dr = ur - vr;
+                double di = ui - vi;
+                re[p + 1] = dr * tw[2] - di * tw[3];
+                im[p + 1] = dr * tw[3] + di * tw[2];
             }
         }
     }
@@ -201,23 +252,67 @@ final class Convolution {
     /**
      * In-place unscaled inverse DFT x_j = Σ X_k e^{+2πijk/n} of the first n entries by
      * decimation in time: input X_k at position rev(k) (over log₂n bits), natural-order output.
+     * An odd stage count starts with one radix-2 pass; then two stages are fused per pass, as in
+     * {@link #forwardDif}.
      */
     static void inverseDit(double[] re, double[] im, int n, double[] tw) {
-        for (int half = 1; half < n; half <<= 1) {
-            int len = half << 1;
-            int base = 2 * half;
+        int half = 1;
+        if (Integer.numberOfTrailingZeros(n) % 2 == 1) {
+            for (int p = 0; p < n; p += 2) {
+                double wr = tw[2];
+                double wi = -tw[3];
+                double xr = re[p + 1] * wr - im[p + 1] * wi;
+                double xi = re[p + 1] * wi + im[p + 1] * wr;
+                re[p + 1] = re[p] - xr;
+                im[p + 1] = im[p] - xi;
+                re[p] += xr;
+                im[p] += xi;
+            }
+            half = 2;
+        }
+        for (; half < n; half <<= 2) {
+            int q = half;
+            int len = half << 2;
+            int inner = 2 * q;
+            int outer = 4 * q;
             for (int start = 0; start < n; start += len) {
-                for (int j = 0; j < half; j++) {
-                    int p = start + j;
-                    int q = p + half;
-                    double wr = tw[base + 2 * j];
-                    double wi = -tw[base + 2 * j + 1];
-                    double xr = re[q] * wr - im[q] * wi;
-                    double xi = re[q] * wi + im[q] * wr;
-                    re[q] = re[p] - xr;
-                    im[q] = im[p] - xi;
-                    re[p] += xr;
-                    im[p] += xi;
+                for (int j = 0; j < q; j++) {
+                    int p0 = start + j;
+                    int p1 = p0 + q;
+                    int p2 = p1 + q;
+                    int p3 = p2 + q;
+                    // stage of span 2q: (p0, p1) and (p2, p3) with conj(w^j)
+                    double vr = tw[inner + 2 * j];
+                    double vi = -tw[inner + 2 * j + 1];
+                    double xr = re[p1] * vr - im[p1] * vi;
+                    double xi = re[p1] * vi + im[p1] * vr;
+                    double b1r = re[p0] - xr;
+                    double b1i = im[p0] - xi;
+                    double b0r = re[p0] + xr;
+                    double b0i = im[p0] + xi;
+                    xr = re[p3] * vr - im[p3] * vi;
+                    xi = re[p3] * vi + im[p3] * vr;
+                    double b3r = re[p2] - xr;
+                    double b3i = im[p2] - xi;
+                    double b2r = re[p2] + xr;
+                    double b2i = im[p2] + xi;
+                    // stage of span 4q: (p0, p2) with conj(w^j), (p1, p3) with conj(w^{j+q})
+                    double w0r = tw[outer + 2 * j];
+                    double w0i = -tw[outer + 2 * j + 1];
+                    double w1r = tw[outer + 2 * (j + q)];
+                    double w1i = -tw[outer + 2 * (j + q) + 1];
+                    xr = b2r * w0r - b2i * w0i;
+                    xi = b2r * w0i + b2i * w0r;
+                    re[p2] = b0r - xr;
+                    im[p2] = b0i - xi;
+                    re[p0] = b0r + xr;
+                    im[p0] = b0i + xi;
+                    xr = b3r * w1r - b3i * w1i;
+                    xi = b3r * w1i + b3i * w1r;
+                    re[p3] = b1r - xr;
+                    im[p3] = b1i - xi;
+                    re[p1] = b1r + xr;
+                    im[p1] = b1i + xi;
                 }
             }
         }
