@@ -74,6 +74,22 @@ public final class LinkEvaluator {
      */
     public static LinkEvaluation evaluate(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf,
             int covered) {
+        return evaluate(spec, interference, interferencePmf, covered, true);
+    }
+
+    /**
+     * As {@link #evaluate(LinkSpec, List, CountPmf, int)} with the same figures of merit, but the
+     * binary mutual-information curve is evaluated only where it can reach its maximum
+     * ({@link BinaryThresholdSearch#searchBest}; NaN elsewhere): for callers that read only the
+     * best values, e.g. the network planner and its what-if searches.
+     */
+    public static LinkEvaluation evaluateBest(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf,
+            int covered) {
+        return evaluate(spec, interference, interferencePmf, covered, false);
+    }
+
+    private static LinkEvaluation evaluate(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf,
+            int covered, boolean curves) {
         if (covered < 0 || covered > interference.size()) {
             throw new IllegalArgumentException("covered: must be in 0.." + interference.size() + ", got " + covered);
         }
@@ -108,7 +124,8 @@ public final class LinkEvaluator {
         double signalMean = (spec.molecules(m - 1) - spec.molecules(0)) * spec.tap(0);
 
         if (m == 2) {
-            BinaryDetection d = BinaryThresholdSearch.search(pmfs.get(0), pmfs.get(1), spec.priorOne());
+            BinaryDetection d = curves ? BinaryThresholdSearch.search(pmfs.get(0), pmfs.get(1), spec.priorOne())
+                    : BinaryThresholdSearch.searchBest(pmfs.get(0), pmfs.get(1), spec.priorOne());
             long minErrTau = d.minErrorThreshold();
             double log10Err = Math.log10(d.minErrorProbability());
             if (!(d.minErrorProbability() >= LOG_REFINE_BELOW) && spec.countModel() == dev.nanoplan.count.CountModelKind.EXACT) {
