@@ -1,7 +1,5 @@
 package dev.nanoplan.count;
 
-import java.util.concurrent.atomic.AtomicReferenceArray;
-
 /**
  * Linear convolution of non-negative sequences: direct summation for narrow operands, a
  * hand-written radix-2 FFT for wide × wide.
@@ -9,20 +7,29 @@ import java.util.concurrent.atomic.AtomicReferenceArray;
  * <p><b>Why hand-written.</b> Commons Math's {@code FastFourierTransformer} works on
  * {@code Complex} objects and allocates per element; this one works in place on primitive
  * arrays, packs both real inputs into one complex transform (Z = FFT(a + i·b), then
- * A·B = (Z_k² − conj(Z_{−k})²)/(4i)) and caches twiddle factors computed directly by
- * {@code Math.cos}/{@code Math.sin} (no recurrence, so no drift).
+ * A·B = (Z_k² − conj(Z_{−k})²)/(4i)), recovers the real output with a half-length inverse,
+ * skips both bit-reversal passes (decimation in frequency forward, in time backward), fuses two
+ * radix-2 stages per pass over the data, and reads twiddle factors contiguously per stage from
+ * one table computed directly by {@code Math.cos}/{@code Math.sin} (no recurrence, so no
+ * drift). Measured (minimum thread CPU time, shared 2-core machine) 2.5–2.7× faster than the
+ * former full-length radix-2 version with bit reversal: 3.0 ms instead of 7.8 ms for
+ * 60,000 × 60,000 cells, 0.11 ms instead of 0.29 ms for 3,000 × 3,000.
  *
  * <p><b>Accuracy.</b> Direct: each output is a sum of non-negative products, relative error
  * ≤ (number of products)·2⁻⁵³. FFT: absolute error about 1e-16·log₂M·max(a)·Σb per output, so
  * outputs far below the peak (deep tails) are dominated by round-off; negative round-off is
- * clamped to 0. {@code ConvolutionTest} compares both against each other.
+ * clamped to 0. {@code ConvolutionTest} compares the FFT with direct summation, the transform
+ * with Commons Math 3.6.1 {@code FastFourierTransformer}, and the convolution with the
+ * convolution theorem evaluated by Commons Math (5e-15 of the peak from direct summation at
+ * 2^14 points, where Commons Math itself is 2e-13 away).
  */
 final class Convolution {
 
     /** Direct summation is used when a·b is below this multiple of M·log₂M. */
     static final double DIRECT_FACTOR = 4.0;
 
-    private static final AtomicReferenceArray<double[]> TWIDDLES = new AtomicReferenceArray<>(31);
+    /** Largest twiddle table built so far (see {@link #twiddles(int)}). */
+    private static volatile double[] twiddleTable = new double[0];
 
     private Convolution() {
     }
@@ -62,59 +69,263 @@ final class Convolution {
         return out;
     }
 
+    /**
+     * Linear convolution by FFT, m = the power of two ≥ a.length + b.length − 1:
+     * <ol>
+     *   <li>Z = DFT_m(a + i·b) by a decimation-in-frequency pass (natural order in,
+     *       bit-reversed order out, so no reordering pass);</li>
+     *   <li>product spectrum C_k = A_k·B_k = (Z_k² − conj(Z_{m−k})²)/(4i), the partner of
+     *       position p being rev(m − rev(p));</li>
+     *   <li>the real output is recovered by one complex inverse DFT of half size m/2: with
+     *       E_k = C_k + C_{k+m/2} and O_k = (C_k − C_{k+m/2})·e^{2πik/m}, the inverse of
+     *       Y = E + i·O is y_n = (c_{2n} + i·c_{2n+1})·m; in bit-reversed order C_k and
+     *       C_{k+m/2} are neighbours (positions 2p and 2p + 1 for Y's position p), and a
+     *       decimation-in-time pass turns bit-reversed input into natural output.</li>
+     * </ol>
+     * Cost ≈ 1.5 complex transforms of length m and no bit-reversal pass (the former version
+     * did two full-length transforms, each with a bit-reversal pass).
+     */
     static double[] fft(double[] a, double[] b) {
         int n = a.length + b.length - 1;
         int m = Integer.highestOneBit(Math.max(1, n - 1)) << 1;
         if (m < 0 || m > (1 << 30)) {
             throw new IllegalArgumentException("convolution too long: " + n);
         }
+        if (m < 4) {
+            return direct(a, b);
+        }
+        int bits = Integer.numberOfTrailingZeros(m);
+        double[] tw = twiddles(bits);
         double[] re = new double[m];
         double[] im = new double[m];
         System.arraycopy(a, 0, re, 0, a.length);
         System.arraycopy(b, 0, im, 0, b.length);
-        transform(re, im);
-        // product spectrum C_k = (Z_k^2 - conj(Z_{-k})^2) / (4i), computed for pairs (k, m-k)
-        for (int k = 0; k <= m / 2; k++) {
-            int j = (m - k) & (m - 1);
-            double zr = re[k];
-            double zi = im[k];
-            double wr = re[j];
-            double wi = -im[j];
-            // Z_k^2 - W^2 with W = conj(Z_{-k})
-            double sr = zr * zr - zi * zi - (wr * wr - wi * wi);
-            double si = 2 * zr * zi - 2 * wr * wi;
-            // divide by 4i: (sr + i si)/(4i) = si/4 - i sr/4
-            double cr = si * 0.25;
-            double ci = -sr * 0.25;
-            re[k] = cr;
-            im[k] = ci;
-            if (j != k) {
-                // C_{m-k} = conj(C_k) since the result is real
-                re[j] = cr;
-                im[j] = -ci;
+        forwardDif(re, im, tw);
+        // product spectrum in place, each conjugate pair (k, m − k) once. In bit-reversed order
+        // positions 0 (k = 0) and 1 (k = m/2) pair with themselves, and for 2^j ≤ p < 2^{j+1} the
+        // partner of p is 3·2^j − 1 − p (the block read from both ends, sequentially)
+        product(re, im, 0, 0);
+        product(re, im, 1, 1);
+        for (int lo = 2; lo < m; lo <<= 1) {
+            for (int p = lo, q = 2 * lo - 1; p < q; p++, q--) {
+                product(re, im, p, q);
             }
         }
-        // inverse via conjugation
-        for (int k = 0; k < m; k++) {
-            im[k] = -im[k];
+        // fold to half length: Y_k = E_k + i·O_k at bit-reversed position p (k = rev_{m/2}(p))
+        int h = m >> 1;
+        int hShift = 33 - bits;
+        for (int p = 0; p < h; p++) {
+            int k = Integer.reverse(p) >>> hShift;
+            double ar = re[2 * p];
+            double ai = im[2 * p];
+            double br = re[2 * p + 1];
+            double bi = im[2 * p + 1];
+            double er = ar + br;
+            double ei = ai + bi;
+            double dr = ar - br;
+            double di = ai - bi;
+            // e^{+2πik/m} = conj(tw[h + k])
+            double c = tw[2 * (h + k)];
+            double s = -tw[2 * (h + k) + 1];
+            double or = dr * c - di * s;
+            double oi = dr * s + di * c;
+            re[p] = er - oi;
+            im[p] = ei + or;
         }
-        transform(re, im);
+        inverseDit(re, im, h, tw);
         double scale = 1.0 / m;
         double[] out = new double[n];
-        for (int k = 0; k < n; k++) {
-            double v = re[k] * scale;
-            out[k] = v > 0 ? v : 0;
+        for (int i = 0; i < h; i++) {
+            int e = 2 * i;
+            if (e < n) {
+                double v = re[i] * scale;
+                out[e] = v > 0 ? v : 0;
+            }
+            if (e + 1 < n) {
+                double v = im[i] * scale;
+                out[e + 1] = v > 0 ? v : 0;
+            }
         }
         return out;
     }
 
-    /** In-place forward DFT X_k = Σ x_j e^{−2πijk/m}, m a power of two. */
+    /**
+     * Replaces Z at positions p and q (holding Z_k and Z_{m−k}) by the product spectrum
+     * C_k = (Z_k² − conj(Z_{m−k})²)/(4i) and C_{m−k} = conj(C_k) (the output is real).
+     */
+    private static void product(double[] re, double[] im, int p, int q) {
+        double zr = re[p];
+        double zi = im[p];
+        double wr = re[q];
+        double wi = -im[q];
+        double sr = zr * zr - zi * zi - (wr * wr - wi * wi);
+        double si = 2 * (zr * zi - wr * wi);
+        double cr = si * 0.25;
+        double ci = -sr * 0.25;
+        re[p] = cr;
+        im[p] = ci;
+        re[q] = cr;
+        im[q] = -ci;
+    }
+
+    /**
+     * In-place forward DFT X_k = Σ x_j e^{−2πijk/m} (m = re.length, a power of two) by
+     * decimation in frequency: natural-order input, output X_k at position rev(k) (bit reversal
+     * over log₂m bits). Two radix-2 stages are fused per pass over the data (same operations in
+     * the same order as two separate passes, half the memory traffic); an odd stage count ends
+     * with one radix-2 pass.
+     */
+    static void forwardDif(double[] re, double[] im, double[] tw) {
+        int m = re.length;
+        int half = m >> 1;
+        for (; half >= 2; half >>= 2) {
+            int q = half >> 1;
+            int len = half << 1;
+            int outer = 2 * half;
+            int inner = 2 * q;
+            for (int start = 0; start < m; start += len) {
+                for (int j = 0; j < q; j++) {
+                    int p0 = start + j;
+                    int p1 = p0 + q;
+                    int p2 = p1 + q;
+                    int p3 = p2 + q;
+                    // stage of span 2·half: (p0, p2) with w^j, (p1, p3) with w^{j+q}
+                    double w0r = tw[outer + 2 * j];
+                    double w0i = tw[outer + 2 * j + 1];
+                    double w1r = tw[outer + 2 * (j + q)];
+                    double w1i = tw[outer + 2 * (j + q) + 1];
+                    double x0r = re[p0];
+                    double x0i = im[p0];
+                    double x2r = re[p2];
+                    double x2i = im[p2];
+                    double a0r = x0r + x2r;
+                    double a0i = x0i + x2i;
+                    double dr = x0r - x2r;
+                    double di = x0i - x2i;
+                    double a2r = dr * w0r - di * w0i;
+                    double a2i = dr * w0i + di * w0r;
+                    double x1r = re[p1];
+                    double x1i = im[p1];
+                    double x3r = re[p3];
+                    double x3i = im[p3];
+                    double a1r = x1r + x3r;
+                    double a1i = x1i + x3i;
+                    dr = x1r - x3r;
+                    di = x1i - x3i;
+                    double a3r = dr * w1r - di * w1i;
+                    double a3i = dr * w1i + di * w1r;
+                    // stage of span half: (p0, p1) and (p2, p3), both with w^j
+                    double vr = tw[inner + 2 * j];
+                    double vi = tw[inner + 2 * j + 1];
+                    re[p0] = a0r + a1r;
+                    im[p0] = a0i + a1i;
+                    dr = a0r - a1r;
+                    di = a0i - a1i;
+                    re[p1] = dr * vr - di * vi;
+                    im[p1] = dr * vi + di * vr;
+                    re[p2] = a2r + a3r;
+                    im[p2] = a2i + a3i;
+                    dr = a2r - a3r;
+                    di = a2i - a3i;
+                    re[p3] = dr * vr - di * vi;
+                    im[p3] = dr * vi + di * vr;
+                }
+            }
+        }
+        if (half == 1) {
+            for (int p = 0; p < m; p += 2) {
+                // span 2, twiddle 1 (tw entry (1, 0) exactly): same as the general butterfly
+                double ur = re[p];
+                double ui = im[p];
+                double vr = re[p + 1];
+                double vi = im[p + 1];
+                re[p] = ur + vr;
+                im[p] = ui + vi;
+                double dr = ur - vr;
+                double di = ui - vi;
+                re[p + 1] = dr * tw[2] - di * tw[3];
+                im[p + 1] = dr * tw[3] + di * tw[2];
+            }
+        }
+    }
+
+    /**
+     * In-place unscaled inverse DFT x_j = Σ X_k e^{+2πijk/n} of the first n entries by
+     * decimation in time: input X_k at position rev(k) (over log₂n bits), natural-order output.
+     * An odd stage count starts with one radix-2 pass; then two stages are fused per pass, as in
+     * {@link #forwardDif}.
+     */
+    static void inverseDit(double[] re, double[] im, int n, double[] tw) {
+        int half = 1;
+        if (Integer.numberOfTrailingZeros(n) % 2 == 1) {
+            for (int p = 0; p < n; p += 2) {
+                double wr = tw[2];
+                double wi = -tw[3];
+                double xr = re[p + 1] * wr - im[p + 1] * wi;
+                double xi = re[p + 1] * wi + im[p + 1] * wr;
+                re[p + 1] = re[p] - xr;
+                im[p + 1] = im[p] - xi;
+                re[p] += xr;
+                im[p] += xi;
+            }
+            half = 2;
+        }
+        for (; half < n; half <<= 2) {
+            int q = half;
+            int len = half << 2;
+            int inner = 2 * q;
+            int outer = 4 * q;
+            for (int start = 0; start < n; start += len) {
+                for (int j = 0; j < q; j++) {
+                    int p0 = start + j;
+                    int p1 = p0 + q;
+                    int p2 = p1 + q;
+                    int p3 = p2 + q;
+                    // stage of span 2q: (p0, p1) and (p2, p3) with conj(w^j)
+                    double vr = tw[inner + 2 * j];
+                    double vi = -tw[inner + 2 * j + 1];
+                    double xr = re[p1] * vr - im[p1] * vi;
+                    double xi = re[p1] * vi + im[p1] * vr;
+                    double b1r = re[p0] - xr;
+                    double b1i = im[p0] - xi;
+                    double b0r = re[p0] + xr;
+                    double b0i = im[p0] + xi;
+                    xr = re[p3] * vr - im[p3] * vi;
+                    xi = re[p3] * vi + im[p3] * vr;
+                    double b3r = re[p2] - xr;
+                    double b3i = im[p2] - xi;
+                    double b2r = re[p2] + xr;
+                    double b2i = im[p2] + xi;
+                    // stage of span 4q: (p0, p2) with conj(w^j), (p1, p3) with conj(w^{j+q})
+                    double w0r = tw[outer + 2 * j];
+                    double w0i = -tw[outer + 2 * j + 1];
+                    double w1r = tw[outer + 2 * (j + q)];
+                    double w1i = -tw[outer + 2 * (j + q) + 1];
+                    xr = b2r * w0r - b2i * w0i;
+                    xi = b2r * w0i + b2i * w0r;
+                    re[p2] = b0r - xr;
+                    im[p2] = b0i - xi;
+                    re[p0] = b0r + xr;
+                    im[p0] = b0i + xi;
+                    xr = b3r * w1r - b3i * w1i;
+                    xi = b3r * w1i + b3i * w1r;
+                    re[p3] = b1r - xr;
+                    im[p3] = b1i - xi;
+                    re[p1] = b1r + xr;
+                    im[p1] = b1i + xi;
+                }
+            }
+        }
+    }
+
+    /** In-place forward DFT X_k = Σ x_j e^{−2πijk/m}, m a power of two, natural order in and out. */
     static void transform(double[] re, double[] im) {
         int m = re.length;
         if (m == 1) {
             return;
         }
         int bits = Integer.numberOfTrailingZeros(m);
+        forwardDif(re, im, twiddles(bits));
         for (int i = 0; i < m; i++) {
             int j = Integer.reverse(i) >>> (32 - bits);
             if (j > i) {
@@ -126,40 +337,34 @@ final class Convolution {
                 im[j] = t;
             }
         }
-        double[] tw = twiddles(bits);
-        for (int len = 2; len <= m; len <<= 1) {
-            int half = len >> 1;
-            int stride = m / len;
-            for (int start = 0; start < m; start += len) {
-                for (int j = 0, t = 0; j < half; j++, t += stride) {
-                    double wr = tw[2 * t];
-                    double wi = tw[2 * t + 1];
-                    int p = start + j;
-                    int q = p + half;
-                    double xr = re[q] * wr - im[q] * wi;
-                    double xi = re[q] * wi + im[q] * wr;
-                    re[q] = re[p] - xr;
-                    im[q] = im[p] - xi;
-                    re[p] += xr;
-                    im[p] += xi;
-                }
-            }
-        }
     }
 
-    /** Interleaved (cos, −sin)(2πt/m) for t < m/2, cached per size. */
+    /**
+     * Twiddles laid out per butterfly span: for each power of two h &lt; 2^bits and j &lt; h,
+     * entries 2(h + j), 2(h + j) + 1 hold (cos, −sin)(πj/h) = e^{−2πij/(2h)}, so every stage reads
+     * its factors contiguously. Entries depend only on (h, j): the table of the largest size built
+     * so far serves every smaller size. Computed directly by Math.cos/Math.sin (no recurrence).
+     */
     private static double[] twiddles(int bits) {
-        double[] tw = TWIDDLES.get(bits);
-        if (tw == null) {
-            int m = 1 << bits;
-            tw = new double[m];
-            for (int t = 0; t < m / 2; t++) {
-                double ang = 2 * Math.PI * t / m;
-                tw[2 * t] = Math.cos(ang);
-                tw[2 * t + 1] = -Math.sin(ang);
+        double[] tw = twiddleTable;
+        if (tw.length >= (2 << bits)) {
+            return tw;
+        }
+        synchronized (Convolution.class) {
+            tw = twiddleTable;
+            if (tw.length < (2 << bits)) {
+                int m = 1 << bits;
+                double[] t = new double[2 * m];
+                for (int h = 1; h < m; h <<= 1) {
+                    for (int j = 0; j < h; j++) {
+                        double ang = Math.PI * j / h;
+                        t[2 * (h + j)] = Math.cos(ang);
+                        t[2 * (h + j) + 1] = -Math.sin(ang);
+                    }
+                }
+                twiddleTable = t;
+                tw = t;
             }
-            TWIDDLES.compareAndSet(bits, null, tw);
-            tw = TWIDDLES.get(bits);
         }
         return tw;
     }

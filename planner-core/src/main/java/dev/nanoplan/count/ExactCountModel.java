@@ -34,10 +34,10 @@ import java.util.PriorityQueue;
  * {@link LogTails} for tail probabilities below about 1e-13.
  *
  * <p><b>Cost.</b> O(Σ window lengths) to build the windows plus, per merge, min(a·b,
- * c·M·log M) with M the FFT length. Measured with JMH ({@code CountBench}, 2 shared cores under
- * load average ≈ 5, so upper bounds): Bin(10⁶, 0.3) + Poisson(20) ≈ 0.9 ms; the same with 50 ISI
- * mixtures (p_k = 0.15·(k+1)^{-3/2}, result ≈ 1.3e5 cells) ≈ 110 ms, dominated by the last
- * few FFT merges of length 2^17.
+ * c·M·log M) with M the FFT length. Measured ({@code CountBench}, 2 shared cores under
+ * load average ≈ 6, so upper bounds): Bin(10⁶, 0.3) + Poisson(20) ≈ 0.5 ms; the same with 50 ISI
+ * mixtures (p_k = 0.15·(k+1)^{-3/2}, result ≈ 1.3e5 cells) ≈ 32 ms thread CPU time (113 ms before
+ * the FFT rewrite of 2026-12), dominated by the last few FFT merges of length 2^17.
  * Windows longer than 2^25 cells are refused with an {@link IllegalArgumentException}.
  */
 public final class ExactCountModel implements CountModel {

@@ -84,11 +84,20 @@ public final class GaussianCountModel implements CountModel {
             throw new IllegalArgumentException("normal window too wide: " + (hi - lo + 1) + " cells");
         }
         double[] p = new double[(int) (hi - lo + 1)];
-        for (int i = 0; i < p.length; i++) {
-            double y = lo + i;
-            if (variant == Variant.CONTINUITY_CORRECTED) {
-                p[i] = cell((y - 0.5 - mu) / sigma, (y + 0.5 - mu) / sigma);
-            } else {
+        if (variant == Variant.CONTINUITY_CORRECTED) {
+            // consecutive cells share an edge ((y − 1) + ½ = y − ½ exactly): one tail per edge
+            double a = (lo - 0.5 - mu) / sigma;
+            double ta = tail(a);
+            for (int i = 0; i < p.length; i++) {
+                double b = (lo + i + 0.5 - mu) / sigma;
+                double tb = tail(b);
+                p[i] = cell(a, ta, b, tb);
+                a = b;
+                ta = tb;
+            }
+        } else {
+            for (int i = 0; i < p.length; i++) {
+                double y = lo + i;
                 p[i] = STANDARD.density((y - mu) / sigma) / sigma;
             }
         }
@@ -99,12 +108,22 @@ public final class GaussianCountModel implements CountModel {
 
     /** Φ(b) − Φ(a) for a &lt; b, without cancellation in either tail. */
     static double cell(double a, double b) {
+        return cell(a, tail(a), b, tail(b));
+    }
+
+    /** The smaller-side tail at x: 1 − Φ(x) for x &gt; 0, Φ(x) for x ≤ 0 (both ½ at 0). */
+    private static double tail(double x) {
+        return x > 0 ? STANDARD.survivalProbability(x) : STANDARD.cumulativeProbability(x);
+    }
+
+    /** {@link #cell(double, double)} from the edges' tails {@link #tail(double)}. */
+    private static double cell(double a, double ta, double b, double tb) {
         if (a >= 0) {
-            return STANDARD.survivalProbability(a) - STANDARD.survivalProbability(b);
+            return ta - tb;
         }
         if (b <= 0) {
-            return STANDARD.cumulativeProbability(b) - STANDARD.cumulativeProbability(a);
+            return tb - ta;
         }
-        return 1 - STANDARD.cumulativeProbability(a) - STANDARD.survivalProbability(b);
+        return 1 - ta - tb;
     }
 }

@@ -43,41 +43,94 @@ public final class LogTails {
      * ln P(Y ≥ τ): 0 when τ ≤ the smallest possible value, −∞ when τ exceeds the largest.
      */
     public static double logUpperTail(CountLaw law, long tau) {
-        if (tau <= minValue(law)) {
-            return 0;
-        }
-        if (tau > law.maxValue()) {
-            return Double.NEGATIVE_INFINITY;
-        }
-        if (tau >= law.mean()) {
-            return tilted(law, tau, true);
-        }
-        double lower = tilted(law, tau, false);
-        if (lower <= LN_HALF) {
-            return Math.log1p(-Math.exp(lower));
-        }
-        return tilted(law, tau, true);
+        return new Reuse(law).logUpperTail(tau);
     }
 
     /**
      * ln P(Y &lt; τ): −∞ when τ ≤ the smallest possible value, 0 when τ exceeds the largest.
      */
     public static double logLowerTail(CountLaw law, long tau) {
-        if (tau <= minValue(law)) {
-            return Double.NEGATIVE_INFINITY;
-        }
-        if (tau > law.maxValue()) {
-            return 0;
-        }
-        if (tau - 1 <= law.mean()) {
-            return tilted(law, tau, false);
-        }
-        double upper = tilted(law, tau, true);
-        if (upper <= LN_HALF) {
-            return Math.log1p(-Math.exp(upper));
-        }
-        return tilted(law, tau, false);
+        return new Reuse(law).logLowerTail(tau);
     }
+
+    /**
+     * Log tails of one law at many nearby thresholds. The identity of the class comment holds for
+     * every τ with the same θ, so a tilted pmf solved for one threshold τ₀ also gives the tail at
+     * another τ, accurately as long as τ lies in the bulk of the tilted law: a tilted pmf is
+     * reused when its weighted tail sum Σ e^{−θ(y−τ)} P_θ(y) at τ is at least
+     * {@value #REUSE_MIN_SUM} (at τ₀ itself it is about 1/2, so the round-off relative to the sum
+     * grows at most about tenfold, to about 1e-11 relative in P), otherwise a new tilted pmf is
+     * solved for τ. For a single threshold the result equals the static methods' (they call this
+     * class). Not thread-safe.
+     */
+    public static final class Reuse {
+
+        private final CountLaw law;
+        private final long min;
+        private final long max;
+        private final double mean;
+        private final List<TiltedTail> up = new ArrayList<>(4);
+        private final List<TiltedTail> down = new ArrayList<>(4);
+
+        public Reuse(CountLaw law) {
+            this.law = law;
+            this.min = minValue(law);
+            this.max = law.maxValue();
+            this.mean = law.mean();
+        }
+
+        /** As {@link LogTails#logUpperTail(CountLaw, long)}. */
+        public double logUpperTail(long tau) {
+            if (tau <= min) {
+                return 0;
+            }
+            if (tau > max) {
+                return Double.NEGATIVE_INFINITY;
+            }
+            if (tau >= mean) {
+                return tilted(tau, true);
+            }
+            double lower = tilted(tau, false);
+            if (lower <= LN_HALF) {
+                return Math.log1p(-Math.exp(lower));
+            }
+            return tilted(tau, true);
+        }
+
+        /** As {@link LogTails#logLowerTail(CountLaw, long)}. */
+        public double logLowerTail(long tau) {
+            if (tau <= min) {
+                return Double.NEGATIVE_INFINITY;
+            }
+            if (tau > max) {
+                return 0;
+            }
+            if (tau - 1 <= mean) {
+                return tilted(tau, false);
+            }
+            double upper = tilted(tau, true);
+            if (upper <= LN_HALF) {
+                return Math.log1p(-Math.exp(upper));
+            }
+            return tilted(tau, false);
+        }
+
+        private double tilted(long tau, boolean upper) {
+            List<TiltedTail> list = upper ? up : down;
+            for (TiltedTail t : list) {
+                double s = t.sum(tau);
+                if (t.tau == tau || s >= REUSE_MIN_SUM) {
+                    return t.exponent(tau) + Math.log(s);
+                }
+            }
+            TiltedTail t = TiltedTail.of(law, tau, upper);
+            list.add(t);
+            return t.exponent(tau) + Math.log(t.sum(tau));
+        }
+    }
+
+    /** Smallest weighted tail sum at which {@link Reuse} reads a tail from an existing tilted pmf. */
+    public static final double REUSE_MIN_SUM = 0.05;
 
     /** Smallest possible value of the law (saturating). */
     static long minValue(CountLaw law) {
@@ -106,46 +159,78 @@ public final class LogTails {
         return min;
     }
 
-    /** ln of the upper (θ ≥ 0) or lower (θ ≤ 0) tail at τ by tilting. */
-    private static double tilted(CountLaw law, long tau, boolean upper) {
-        double target;
-        if (upper) {
-            target = Math.min(tau, law.maxValue() - 0.5);
-        } else {
-            target = Math.max(tau - 1, minValue(law) + 0.5);
+    /**
+     * The tilted law solved for the upper (θ ≥ 0) or lower (θ ≤ 0) tail at τ: ln of a tail at
+     * any threshold t is {@link #exponent(long)} + ln {@link #sum(long)}.
+     */
+    private static final class TiltedTail {
+
+        final long tau;
+        final boolean upper;
+        final double theta;
+        /** Σ over terms of ln M_t(θ) − θ·μ_t(θ). */
+        final double rates;
+        /** Tilted mean Σ μ_t(θ). */
+        final double meanTheta;
+        final Window w;
+
+        private TiltedTail(long tau, boolean upper, double theta, double rates, double meanTheta, Window w) {
+            this.tau = tau;
+            this.upper = upper;
+            this.theta = theta;
+            this.rates = rates;
+            this.meanTheta = meanTheta;
+            this.w = w;
         }
-        double theta = solveTheta(law, target, upper);
-        List<CountTerm> tilted = new ArrayList<>(law.terms().size());
-        double exponent = 0;
-        double meanTheta = 0;
-        for (CountTerm t : law.terms()) {
-            Tilt tl = tilt(t, theta);
-            tilted.add(tl.term);
-            exponent += tl.rate;
-            meanTheta += tl.mean;
+
+        static TiltedTail of(CountLaw law, long tau, boolean upper) {
+            double target;
+            if (upper) {
+                target = Math.min(tau, law.maxValue() - 0.5);
+            } else {
+                target = Math.max(tau - 1, minValue(law) + 0.5);
+            }
+            double theta = solveTheta(law, target, upper);
+            List<CountTerm> tilted = new ArrayList<>(law.terms().size());
+            double exponent = 0;
+            double meanTheta = 0;
+            for (CountTerm t : law.terms()) {
+                Tilt tl = tilt(t, theta);
+                tilted.add(tl.term);
+                exponent += tl.rate;
+                meanTheta += tl.mean;
+            }
+            return new TiltedTail(tau, upper, theta, exponent, meanTheta, MODEL.window(new CountLaw(tilted)));
         }
-        exponent += theta * (meanTheta - tau);
-        Window w = MODEL.window(new CountLaw(tilted));
-        double s = 0;
-        long last = w.offset + w.length() - 1;
-        if (upper) {
-            long from = Math.max(tau, w.offset);
-            for (long y = from; y <= last; y++) {
-                s += Math.exp(-theta * (y - tau)) * w.p[(int) (y - w.offset)];
-            }
-            if (tau <= last + 1) {
-                s += w.above * Math.exp(-theta * (last + 1 - tau));
-            }
-        } else {
-            long to = Math.min(tau - 1, last);
-            for (long y = w.offset; y <= to; y++) {
-                s += Math.exp(-theta * (y - tau)) * w.p[(int) (y - w.offset)];
-            }
-            if (tau >= w.offset) {
-                s += w.below * Math.exp(-theta * (w.offset - 1 - tau));
-            }
+
+        /** ln M(θ) − θ·t. */
+        double exponent(long t) {
+            return rates + theta * (meanTheta - t);
         }
-        return exponent + Math.log(s);
+
+        /** Σ_{y ≥ t} (upper) or Σ_{y &lt; t} (lower) of e^{−θ(y−t)}·P_θ(y). */
+        double sum(long t) {
+            double s = 0;
+            long last = w.offset + w.length() - 1;
+            if (upper) {
+                long from = Math.max(t, w.offset);
+                for (long y = from; y <= last; y++) {
+                    s += Math.exp(-theta * (y - t)) * w.p[(int) (y - w.offset)];
+                }
+                if (t <= last + 1) {
+                    s += w.above * Math.exp(-theta * (last + 1 - t));
+                }
+            } else {
+                long to = Math.min(t - 1, last);
+                for (long y = w.offset; y <= to; y++) {
+                    s += Math.exp(-theta * (y - t)) * w.p[(int) (y - w.offset)];
+                }
+                if (t >= w.offset) {
+                    s += w.below * Math.exp(-theta * (w.offset - 1 - t));
+                }
+            }
+            return s;
+        }
     }
 
     /** θ with tilted mean = target, restricted to θ ≥ 0 (upper) or θ ≤ 0 (lower). */

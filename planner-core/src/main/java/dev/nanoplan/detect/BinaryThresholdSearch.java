@@ -45,6 +45,25 @@ public final class BinaryThresholdSearch {
      *     priorOne is outside [0, 1]
      */
     public static BinaryDetection search(CountPmf given0, CountPmf given1, double priorOne) {
+        return search(given0, given1, priorOne, true);
+    }
+
+    /**
+     * As {@link #search(CountPmf, CountPmf, double)} (same thresholds, same figures of merit, same
+     * error curve), but the mutual information is evaluated only where it can reach the maximum:
+     * at prior q a threshold whose rows are at total-variation distance Δ has mutual information
+     * at most Δ·h(q) (degraded binary erasure channel, Cover and Thomas 2006, Theorem 2.8.1, see
+     * the class comment), so once the mutual information at the largest Δ is known, only the
+     * thresholds with Δ·h(q) + 1e-12 at least that value are evaluated (the margin covers
+     * rounding). {@link BinaryDetection#miBitsByThreshold()} holds NaN at the thresholds not
+     * evaluated. For callers that read only the best values (the network planner); the logarithms
+     * over the whole union window are the cost this saves.
+     */
+    public static BinaryDetection searchBest(CountPmf given0, CountPmf given1, double priorOne) {
+        return search(given0, given1, priorOne, false);
+    }
+
+    private static BinaryDetection search(CountPmf given0, CountPmf given1, double priorOne, boolean curve) {
         if (!(priorOne >= 0 && priorOne <= 1)) {
             throw new IllegalArgumentException("priorOne must be in [0, 1], got " + priorOne);
         }
@@ -55,7 +74,7 @@ public final class BinaryThresholdSearch {
         double[] p1 = w.prefix[1];
         double[] s1 = w.suffix[1];
         double q = priorOne;
-        double[] mi = runCompressedMutualInformation(q, s0, p0, p1, s1);
+        double[] mi = curve ? runCompressedMutualInformation(q, s0, p0, p1, s1) : null;
         double[] err = new double[n];
         int bestMi = 0;
         int bestErr = 0;
@@ -67,7 +86,7 @@ public final class BinaryThresholdSearch {
             double e1 = p1[t];
             double c1 = s1[t];
             err[t] = Math.min(1, (1 - q) * e0 + q * e1);
-            if (mi[t] > mi[bestMi]) {
+            if (curve && mi[t] > mi[bestMi]) {
                 bestMi = t;
             }
             if (err[t] < err[bestErr]) {
@@ -77,6 +96,15 @@ public final class BinaryThresholdSearch {
             if (delta > maxDelta) {
                 maxDelta = delta;
                 bestDelta = t;
+            }
+        }
+        if (!curve) {
+            mi = boundedMutualInformation(q, s0, p0, p1, s1, bestDelta);
+            bestMi = -1;
+            for (int t = 0; t < n; t++) {
+                if (!Double.isNaN(mi[t]) && (bestMi < 0 || mi[t] > mi[bestMi])) {
+                    bestMi = t;
+                }
             }
         }
         int bestCap = bestDelta;
@@ -137,6 +165,46 @@ public final class BinaryThresholdSearch {
         double[] mi = new double[n];
         for (int t = 0; t < n; t++) {
             mi[t] = compressed[runOf[t]];
+        }
+        return mi;
+    }
+
+    /**
+     * The mutual-information curve at the thresholds that can reach its maximum, NaN elsewhere
+     * (see {@link #searchBest}); values are those of {@link #runCompressedMutualInformation}
+     * (the same batch evaluation, at the first threshold of each run of equal channels).
+     */
+    private static double[] boundedMutualInformation(double q, double[] s0, double[] p0, double[] p1, double[] s1,
+            int bestDelta) {
+        int n = s0.length;
+        double[] mi = new double[n];
+        java.util.Arrays.fill(mi, Double.NaN);
+        double atBest = BinaryChannel.mutualInformationBits(q, new double[] {s0[bestDelta]},
+                new double[] {p0[bestDelta]}, new double[] {p1[bestDelta]}, new double[] {s1[bestDelta]})[0];
+        double hq = dev.nanoplan.info.Entropy.binaryBits(q);
+        int[] at = new int[n];
+        int count = 0;
+        for (int t = 0; t < n; t++) {
+            if (t > 0 && s0[t] == s0[t - 1] && p0[t] == p0[t - 1] && p1[t] == p1[t - 1] && s1[t] == s1[t - 1]) {
+                continue;
+            }
+            if (delta(s0[t], p0[t], p1[t], s1[t]) * hq + 1e-12 >= atBest) {
+                at[count++] = t;
+            }
+        }
+        double[] a = new double[count];
+        double[] b = new double[count];
+        double[] c = new double[count];
+        double[] d = new double[count];
+        for (int i = 0; i < count; i++) {
+            a[i] = s0[at[i]];
+            b[i] = p0[at[i]];
+            c[i] = p1[at[i]];
+            d[i] = s1[at[i]];
+        }
+        double[] v = BinaryChannel.mutualInformationBits(q, a, b, c, d);
+        for (int i = 0; i < count; i++) {
+            mi[at[i]] = v[i];
         }
         return mi;
     }

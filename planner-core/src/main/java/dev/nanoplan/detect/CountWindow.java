@@ -29,7 +29,11 @@ final class CountWindow {
     final double[][] prefix;
     final double[][] suffix;
 
-    private CountWindow(long first, double[][] mass) {
+    /**
+     * @param from per level, the first index that may hold mass
+     * @param to   per level, one past the last index that may hold mass
+     */
+    private CountWindow(long first, double[][] mass, int[] from, int[] to) {
         this.first = first;
         this.mass = mass;
         this.size = mass[0].length;
@@ -40,12 +44,17 @@ final class CountWindow {
             double[] m = mass[i];
             double[] p = prefix[i];
             double[] s = suffix[i];
-            for (int k = 0; k < size; k++) {
+            // sums run over the level's own cells only; outside them they are constant (adding
+            // the zero masses there would not change a bit), which matters when the union
+            // window is much wider than one level's window
+            for (int k = from[i]; k < to[i]; k++) {
                 p[k + 1] = p[k] + m[k];
             }
-            for (int k = size - 1; k >= 0; k--) {
+            java.util.Arrays.fill(p, to[i] + 1, size + 1, p[to[i]]);
+            for (int k = to[i] - 1; k >= from[i]; k--) {
                 s[k] = s[k + 1] + m[k];
             }
+            java.util.Arrays.fill(s, 0, from[i], s[from[i]]);
         }
     }
 
@@ -69,6 +78,8 @@ final class CountWindow {
         }
         int size = (int) (hi - lo + 1);
         double[][] mass = new double[pmfs.size()][size];
+        int[] from = new int[pmfs.size()];
+        int[] to = new int[pmfs.size()];
         for (int i = 0; i < pmfs.size(); i++) {
             CountPmf p = pmfs.get(i);
             double[] m = mass[i];
@@ -83,20 +94,22 @@ final class CountWindow {
                 m[base + k] = v;
                 total += v;
             }
-            m[(int) (lowest(p) - lo)] += p.massBelow();
-            m[(int) (highest(p) - lo)] += p.massAbove();
+            from[i] = (int) (lowest(p) - lo);
+            to[i] = (int) (highest(p) - lo) + 1;
+            m[from[i]] += p.massBelow();
+            m[to[i] - 1] += p.massAbove();
             if (!(Math.abs(total - 1) <= 1e-6)) {
                 throw new IllegalArgumentException("count pmf " + i
                         + " (window plus truncated mass) must sum to 1, sums to " + total);
             }
             if (total != 1) {
                 double inv = 1 / total;
-                for (int k = 0; k < size; k++) {
+                for (int k = from[i]; k < to[i]; k++) {
                     m[k] *= inv;
                 }
             }
         }
-        return new CountWindow(lo, mass);
+        return new CountWindow(lo, mass, from, to);
     }
 
     private static long lowest(CountPmf p) {

@@ -74,6 +74,22 @@ public final class LinkEvaluator {
      */
     public static LinkEvaluation evaluate(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf,
             int covered) {
+        return evaluate(spec, interference, interferencePmf, covered, true);
+    }
+
+    /**
+     * As {@link #evaluate(LinkSpec, List, CountPmf, int)} with the same figures of merit, but the
+     * binary mutual-information curve is evaluated only where it can reach its maximum
+     * ({@link BinaryThresholdSearch#searchBest}; NaN elsewhere): for callers that read only the
+     * best values, e.g. the network planner and its what-if searches.
+     */
+    public static LinkEvaluation evaluateBest(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf,
+            int covered) {
+        return evaluate(spec, interference, interferencePmf, covered, false);
+    }
+
+    private static LinkEvaluation evaluate(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf,
+            int covered, boolean curves) {
         if (covered < 0 || covered > interference.size()) {
             throw new IllegalArgumentException("covered: must be in 0.." + interference.size() + ", got " + covered);
         }
@@ -108,7 +124,8 @@ public final class LinkEvaluator {
         double signalMean = (spec.molecules(m - 1) - spec.molecules(0)) * spec.tap(0);
 
         if (m == 2) {
-            BinaryDetection d = BinaryThresholdSearch.search(pmfs.get(0), pmfs.get(1), spec.priorOne());
+            BinaryDetection d = curves ? BinaryThresholdSearch.search(pmfs.get(0), pmfs.get(1), spec.priorOne())
+                    : BinaryThresholdSearch.searchBest(pmfs.get(0), pmfs.get(1), spec.priorOne());
             long minErrTau = d.minErrorThreshold();
             double log10Err = Math.log10(d.minErrorProbability());
             if (!(d.minErrorProbability() >= LOG_REFINE_BELOW) && spec.countModel() == dev.nanoplan.count.CountModelKind.EXACT) {
@@ -182,7 +199,7 @@ public final class LinkEvaluator {
         // window-based threshold {@code start} is usually next to the crossing, so the bracket is
         // first searched by doubling steps from it (each tail costs an exact tilted pmf); the
         // difference a − b is monotone, so this finds the same crossing as bisecting [lo, hi].
-        java.util.Map<Long, double[]> memo = new java.util.HashMap<>();
+        Tails memo = new Tails(law0, law1);
         if (start > lo && start < hi) {
             boolean above = tails(law0, law1, lnQ0, lnQ1, start, memo)[2] > 0;
             long step = 1;
@@ -229,14 +246,29 @@ public final class LinkEvaluator {
         return new long[] {bestTau, Double.doubleToLongBits(best)};
     }
 
-    /** {a, b, a − b} with a = ln q₀ + ln P(Y ≥ τ | 0), b = ln q₁ + ln P(Y &lt; τ | 1), memoised per τ. */
-    private static double[] tails(CountLaw law0, CountLaw law1, double lnQ0, double lnQ1, long tau,
-            java.util.Map<Long, double[]> memo) {
+    /**
+     * {a, b, a − b} with a = ln q₀ + ln P(Y ≥ τ | 0), b = ln q₁ + ln P(Y &lt; τ | 1), memoised per τ.
+     * The tails of nearby thresholds are read from the same tilted pmfs ({@link LogTails.Reuse}):
+     * the scan around the crossing then costs a few exact tilted pmfs instead of two per threshold.
+     */
+    private static double[] tails(CountLaw law0, CountLaw law1, double lnQ0, double lnQ1, long tau, Tails memo) {
         return memo.computeIfAbsent(tau, t -> {
-            double a = lnQ0 + LogTails.logUpperTail(law0, t);
-            double b = lnQ1 + LogTails.logLowerTail(law1, t);
+            double a = lnQ0 + memo.upper0.logUpperTail(t);
+            double b = lnQ1 + memo.lower1.logLowerTail(t);
             return new double[] {a, b, a > b ? 1 : -1};
         });
+    }
+
+    /** Memo of {@link #tails} with the reusable tilted pmfs of both laws. */
+    private static final class Tails extends java.util.HashMap<Long, double[]> {
+        private static final long serialVersionUID = 1L;
+        final transient LogTails.Reuse upper0;
+        final transient LogTails.Reuse lower1;
+
+        Tails(CountLaw law0, CountLaw law1) {
+            upper0 = new LogTails.Reuse(law0);
+            lower1 = new LogTails.Reuse(law1);
+        }
     }
 
     private static double lnError(double[] ab) {

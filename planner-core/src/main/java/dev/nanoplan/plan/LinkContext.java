@@ -136,7 +136,7 @@ final class LinkContext {
             List<Crosstalk.Interferer> others) {
         List<CountTerm> t = others == interferers ? terms : Crosstalk.terms(others, exactCount);
         LinkSpec spec = spec(taps, top, symbolTimeS, backgroundPerS, whatIfModel());
-        return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluate(spec, t);
+        return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluateBest(spec, t, null, t.size());
     }
 
     /**
@@ -152,10 +152,10 @@ final class LinkContext {
     private LinkEvaluation evaluateShared(LinkSpec spec) {
         ReceiverCrosstalk rc = shared;
         if (rc == null || spec.countModel() != CountModelKind.EXACT) {
-            return LinkEvaluator.evaluate(spec, terms);
+            return LinkEvaluator.evaluateBest(spec, terms, null, terms.size());
         }
         int covered = terms.size() - (rc.hasRemainder(rank) ? 1 : 0);
-        return LinkEvaluator.evaluate(spec, terms, rc.pmfWithout(rank), covered);
+        return LinkEvaluator.evaluateBest(spec, terms, rc.pmfWithout(rank), covered);
     }
 
     /** The link as laid out. */
@@ -168,13 +168,13 @@ final class LinkContext {
             List<Crosstalk.Interferer> others) {
         List<CountTerm> t = others == interferers ? terms : Crosstalk.terms(others, exactCount);
         LinkSpec spec = spec(taps, top, symbolTimeS, backgroundPerS);
-        return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluate(spec, t);
+        return others == interferers ? evaluateShared(spec) : LinkEvaluator.evaluateBest(spec, t, null, t.size());
     }
 
-    /** Gaussian estimate of the link as laid out ({@link dev.nanoplan.network.GaussianScreen}). */
-    double screenBits() {
-        return dev.nanoplan.network.GaussianScreen.estimateBits(spec(entry.taps(), emitter.moleculesPerSymbol(),
-                symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), terms);
+    /** Whether the Gaussian screen lets the link as laid out through to exact evaluation. */
+    boolean passesScreen(double floorBits) {
+        return dev.nanoplan.network.GaussianScreen.passes(spec(entry.taps(), emitter.moleculesPerSymbol(),
+                symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), terms, floorBits);
     }
 
     /** Capacity of the link as laid out, with the what-if model. */

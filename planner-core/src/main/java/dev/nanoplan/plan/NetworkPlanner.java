@@ -195,7 +195,7 @@ public final class NetworkPlanner {
             int rank = shared.prepared().rankOf(i);
             LinkContext ctx = new LinkContext(scenario, tx, rx, sp, e, others, options.exactInterferers(),
                     shared.termsWithout(rank), shared, rank);
-            if (ctx.screenBits() * dev.nanoplan.network.GaussianScreen.SAFETY_FACTOR < options.capacityFloorBits()) {
+            if (!ctx.passesScreen(options.capacityFloorBits())) {
                 continue;
             }
             LinkEvaluation ev = ctx.evaluate();

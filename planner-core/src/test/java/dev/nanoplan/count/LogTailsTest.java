@@ -42,6 +42,26 @@ class LogTailsTest {
         assertThat(LogTails.logLowerTail(law, tau)).isCloseTo(low, offset(1e-11 * Math.max(1, -low)));
     }
 
+    @ParameterizedTest
+    @CsvSource({"10000, 0.3, 3400", "1000000, 0.001, 1200", "1000000, 0.001, 850", "2000, 0.05, 160"})
+    void reusedTiltsAtNearbyThresholdsMatchLibraryLogProbabilities(int n, double p, int centre) {
+        BinomialDistribution d = BinomialDistribution.of(n, p);
+        double[] logPmf = new double[n + 1];
+        for (int y = 0; y <= n; y++) {
+            logPmf[y] = d.logProbability(y);
+        }
+        CountLaw law = CountLaw.of(new BinomialTerm(n, p));
+        LogTails.Reuse reuse = new LogTails.Reuse(law);
+        // centre first, then its neighbours: most of them are read from the centre's tilted pmf
+        for (int tau : new int[] {centre, centre - 9, centre + 9, centre - 3, centre + 1, centre + 4}) {
+            double up = Reference.logSum(logPmf, tau, n);
+            double low = Reference.logSum(logPmf, 0, tau - 1);
+            // log-sum-exp of Commons Statistics 1.2 BinomialDistribution.logProbability over the tail
+            assertThat(reuse.logUpperTail(tau)).isCloseTo(up, offset(1e-11 * Math.max(1, -up)));
+            assertThat(reuse.logLowerTail(tau)).isCloseTo(low, offset(1e-11 * Math.max(1, -low)));
+        }
+    }
+
     @Test
     void deepTailBelowTheSmallestDoubleIsFinite() {
         CountLaw law = CountLaw.of(new BinomialTerm(2000, 0.05));

@@ -116,6 +116,50 @@ class BinaryThresholdSearchTest {
         assertThat(errCurve[errCurve.length - 1]).isCloseTo(q, within(1e-12));
     }
 
+    @ParameterizedTest
+    @MethodSource("cases")
+    void searchWithoutCurveMatchesPerThresholdLibraryCdf(DiscreteDistribution d0, DiscreteDistribution d1,
+                                                         double q, boolean trim, int n1) {
+        BinaryDetection best = BinaryThresholdSearch.searchBest(pmf(d0, trim, n1), pmf(d1, trim, n1), q);
+        BinaryDetection full = BinaryThresholdSearch.search(pmf(d0, trim, n1), pmf(d1, trim, n1), q);
+        long bestMiT = Long.MIN_VALUE;
+        double bestMi = -1;
+        double[] mi = best.miBitsByThreshold();
+        double hq = -(xlogx(q) + xlogx(1 - q)) / Math.log(2);
+        int evaluated = 0;
+        for (long t = best.firstThreshold(); t <= best.lastThreshold(); t++) {
+            int k = (int) (t - 1);
+            double e0 = d0.survivalProbability(k);
+            double c0 = d0.cumulativeProbability(k);
+            double e1 = d1.cumulativeProbability(k);
+            double c1 = d1.survivalProbability(k);
+            double ref = plainMi(q, e0, c0, e1, c1);
+            int i = (int) (t - best.firstThreshold());
+            if (Double.isNaN(mi[i])) {
+                // skipped only where I <= Δ·h(q) < max I (degraded erasure channel; Cover & Thomas 2006,
+                // Theorem 2.8.1), on library (Commons Statistics 1.2) tail probabilities
+                assertThat(Math.abs(c0 - e1) * hq).isLessThan(full.mutualInformationBits() + 1e-9);
+            } else {
+                evaluated++;
+                // Cover & Thomas 2006, eq. (2.39) on library (Commons Statistics 1.2) tail probabilities
+                assertThat(mi[i]).isCloseTo(ref, within(1e-12));
+            }
+            if (ref > bestMi) {
+                bestMi = ref;
+                bestMiT = t;
+            }
+        }
+        assertThat(evaluated).isPositive();
+        assertThat(best.miThreshold()).isEqualTo(bestMiT).isEqualTo(full.miThreshold());
+        assertThat(best.mutualInformationBits()).isCloseTo(bestMi, within(1e-12))
+                .isEqualTo(full.mutualInformationBits());
+        assertThat(best.minErrorThreshold()).isEqualTo(full.minErrorThreshold());
+        assertThat(best.minErrorProbability()).isEqualTo(full.minErrorProbability());
+        assertThat(best.capacityThreshold()).isEqualTo(full.capacityThreshold());
+        assertThat(best.capacityBits()).isEqualTo(full.capacityBits());
+        assertThat(best.errorByThreshold()).isEqualTo(full.errorByThreshold());
+    }
+
     @Test
     void tinyTailErrorsKeepRelativePrecision() {
         BinomialDistribution d0 = BinomialDistribution.of(1000, 0.01);
