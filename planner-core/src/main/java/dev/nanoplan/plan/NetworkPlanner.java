@@ -245,7 +245,7 @@ public final class NetworkPlanner {
                     slots.own(e.species(), e.taps()), e.source(), e.modelCaveat());
             LinkContext ctx = new LinkContext(scenario, tx, rx, species.get(rx.species()), heard, others,
                     options.exactInterferers(), Crosstalk.terms(others, options.exactInterferers()), null, -1, slots, e);
-            if (ctx.screenBits() * dev.nanoplan.network.GaussianScreen.SAFETY_FACTOR < options.capacityFloorBits()) {
+            if (!ctx.passesScreen(options.capacityFloorBits())) {
                 continue;
             }
             LinkEvaluation ev = ctx.evaluate();
