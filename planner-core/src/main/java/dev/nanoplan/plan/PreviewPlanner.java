@@ -134,6 +134,16 @@ public final class PreviewPlanner {
     private record Moments(double mean, double variance, double isiMean, double isiVariance) {
     }
 
+    /**
+     * One per-slot term of an emitter at a receiver: the mixture over its levels of Bin(n_j, p_k).
+     *
+     * @param emitter    index of the emitter among the receiver's entries
+     * @param tap        k
+     * @param spreadVar  variance of the term's level means, p_k²·(B − A²): what makes it on/off
+     */
+    private record Term(int emitter, int tap, double spreadVar) {
+    }
+
     private static Moments moments(double[] taps, long[] levels, double[] w) {
         double a = 0;
         double b = 0;
@@ -160,6 +170,17 @@ public final class PreviewPlanner {
         return new Moments(mean, var, isiMean, isiVar);
     }
 
+    /** How many strong terms a mixture of M-level terms may hold within {@link NormalLinkApproximation#MAX_COMPONENTS}. */
+    static int strongTerms(int levels) {
+        int k = 0;
+        long n = levels;
+        while (n <= NormalLinkApproximation.MAX_COMPONENTS) {
+            k++;
+            n *= levels;
+        }
+        return k;
+    }
+
     private static List<Link> receiver(Scenario scenario, Map<String, Node> nodes, List<ChannelEntry> entries,
             PlanOptions options) {
         List<Link> out = new ArrayList<>();
@@ -170,16 +191,23 @@ public final class PreviewPlanner {
         double[] w = LinkContext.weights(sig);
         double background = scenario.medium().backgroundMoleculesPerS() * sig.symbolTimeS();
         int n = entries.size();
+        int m = sig.levels();
+        int strongMax = strongTerms(m);
         Moments[] mom = new Moments[n];
         long[][] levels = new long[n][];
+        double[][] taps = new double[n][];
         double totalMean = 0;
         double totalVar = 0;
         int top1 = -1;
         int top2 = -1;
+        // the strongest on/off terms at this receiver, strongest first (one more than a link may use,
+        // since a link's own current symbol is its signal, not a term)
+        List<Term> strongest = new ArrayList<>(strongMax + 2);
         for (int i = 0; i < n; i++) {
             ChannelEntry e = entries.get(i);
             levels[i] = NetworkPlanner.levelsOf(sig, nodes.get(e.emitter()).moleculesPerSymbol());
-            mom[i] = moments(e.taps(), levels[i], w);
+            taps[i] = e.taps();
+            mom[i] = moments(taps[i], levels[i], w);
             totalMean += mom[i].mean();
             totalVar += mom[i].variance();
             if (top1 < 0 || mom[i].mean() > mom[top1].mean()) {
@@ -188,9 +216,23 @@ public final class PreviewPlanner {
             } else if (top2 < 0 || mom[i].mean() > mom[top2].mean()) {
                 top2 = i;
             }
+            double spread = spreadOf(levels[i], w);
+            for (int k = 0; k < taps[i].length; k++) {
+                double sv = taps[i][k] * taps[i][k] * spread;
+                if (sv > 0 && (strongest.size() <= strongMax || sv > strongest.get(strongMax).spreadVar())) {
+                    int at = strongest.size();
+                    while (at > 0 && strongest.get(at - 1).spreadVar() < sv) {
+                        at--;
+                    }
+                    strongest.add(at, new Term(i, k, sv));
+                    if (strongest.size() > strongMax + 1) {
+                        strongest.remove(strongest.size() - 1);
+                    }
+                }
+            }
         }
-        int m = sig.levels();
         double maxBits = Math.log(m) / Math.log(2);
+        double q = sig.priorOne();
         for (int i = 0; i < n; i++) {
             ChannelEntry e = entries.get(i);
             long[] lv = levels[i];
@@ -204,26 +246,58 @@ public final class PreviewPlanner {
             Moments own = mom[i];
             double xtMean = Math.max(0, totalMean - own.mean());
             double xtVar = Math.max(0, totalVar - own.variance());
-            double sharedMean = own.isiMean() + xtMean + background;
             double sharedVar = own.isiVariance() + xtVar + background;
-            if (m == 2 && NormalLinkApproximation.capacityUpperBoundBits(lv[0] * p0 + sharedMean,
-                    lv[0] * p0 * (1 - p0) + sharedVar, lv[1] * p0 + sharedMean,
-                    lv[1] * p0 * (1 - p0) + sharedVar) < options.capacityFloorBits()) {
+            // base (normal) parts and strong terms, split into own leftovers (ISI) and crosstalk
+            double isiMean = own.isiMean();
+            double isiVar = own.isiVariance();
+            double xtBaseMean = xtMean;
+            double xtBaseVar = xtVar;
+            List<double[][]> isiTerms = new ArrayList<>();
+            List<double[][]> xtTerms = new ArrayList<>();
+            for (Term t : strongest) {
+                if ((t.emitter() == i && t.tap() == 0) || isiTerms.size() + xtTerms.size() == strongMax
+                        || t.spreadVar() < STRONG_FRACTION * sharedVar) {
+                    continue;
+                }
+                double[][] c = components(levels[t.emitter()], taps[t.emitter()][t.tap()], w);
+                if (t.emitter() == i) {
+                    isiTerms.add(c);
+                    isiMean -= c[3][0];
+                    isiVar -= c[3][1];
+                } else {
+                    xtTerms.add(c);
+                    xtBaseMean -= c[3][0];
+                    xtBaseVar -= c[3][1];
+                }
+            }
+            isiMean = Math.max(0, isiMean);
+            isiVar = Math.max(0, isiVar);
+            xtBaseMean = Math.max(0, xtBaseMean);
+            xtBaseVar = Math.max(0, xtBaseVar);
+            NormalLinkApproximation.Mixture all = mixture(isiTerms, xtTerms);
+            double baseMean = isiMean + xtBaseMean + background;
+            double baseVar = isiVar + xtBaseVar + background;
+            if (m == 2 && NormalLinkApproximation.capacityUpperBoundBits(lv[0] * p0 + baseMean,
+                    lv[0] * p0 * (1 - p0) + baseVar, lv[1] * p0 + baseMean,
+                    lv[1] * p0 * (1 - p0) + baseVar, all) < options.capacityFloorBits()) {
                 continue;
             }
-            NormalLinkApproximation.Result r = evaluate(lv, p0, sharedMean, sharedVar, sig.priorOne());
+            NormalLinkApproximation.Result r = NormalLinkApproximation.evaluate(levelMeans(lv, p0, baseMean),
+                    levelVariances(lv, p0, baseVar), all, q);
             double c = r.capacityBits();
             if (c < options.capacityFloorBits()) {
                 continue;
             }
-            double gIsi = own.isiMean() > 0
-                    ? capacity(lv, p0, xtMean + background, xtVar + background, sig.priorOne()) - c : 0;
-            double gXt = n > 1
-                    ? capacity(lv, p0, own.isiMean() + background, own.isiVariance() + background, sig.priorOne())
-                            - c : 0;
-            double gNoise = background > 0
-                    ? capacity(lv, p0, own.isiMean() + xtMean, own.isiVariance() + xtVar, sig.priorOne()) - c
+            // the what-ifs use the plain normal law (no mixture) and compare with its own baseline, as
+            // the exact plan's what-ifs use the Gaussian count model: a search, not the reported value
+            NormalLinkApproximation.Mixture none = NormalLinkApproximation.Mixture.NONE;
+            double cw = capacity(lv, p0, own.isiMean() + xtMean + background, sharedVar, none, q);
+            double gIsi = own.isiMean() > 0 ? capacity(lv, p0, xtMean + background, xtVar + background, none, q) - cw
                     : 0;
+            double gXt = n > 1 ? capacity(lv, p0, own.isiMean() + background, own.isiVariance() + background, none, q)
+                    - cw : 0;
+            double gNoise = background > 0 ? capacity(lv, p0, own.isiMean() + xtMean, own.isiVariance() + xtVar, none,
+                    q) - cw : 0;
             Impairment limited = Impairment.SIGNAL;
             double best = NetworkPlanner.HELPS_FRACTION * (maxBits - c);
             if (gIsi > best) {
@@ -241,7 +315,7 @@ public final class PreviewPlanner {
             String topId = top >= 0 && mom[top].mean() > 0 ? entries.get(top).emitter() : null;
             double share = topId != null && xtMean > 0 ? Math.min(1, mom[top].mean() / xtMean) : 0;
             String caveat = e.source().equals(ChannelMatrix.SIMULATED) ? "simulated" : e.modelCaveat();
-            LinkReport report = new LinkReport(e.emitter(), e.receiver(), e.species(), p0, e.taps(), swing * p0, xtMean,
+            LinkReport report = new LinkReport(e.emitter(), e.receiver(), e.species(), p0, taps[i], swing * p0, xtMean,
                     own.isiMean(), background, r.threshold(), r.minErrorProbability(), r.log10ErrorProbability(), c,
                     c / sig.symbolTimeS(), r.crossoverZero(), r.crossoverOne(), limited, topId, share, caveat);
             out.add(new Link(report, new LinkEdge(e.emitter(), e.receiver(), c, r.channel())));
@@ -249,29 +323,70 @@ public final class PreviewPlanner {
         return out;
     }
 
-    /** Normal capacity of a link whose levels' counts share mean {@code sharedMean} and variance. */
-    private static double capacity(long[] levels, double p0, double sharedMean, double sharedVar, double priorOne) {
-        int m = levels.length;
-        double[] means = new double[m];
-        double[] vars = new double[m];
-        for (int j = 0; j < m; j++) {
-            means[j] = levels[j] * p0 + sharedMean;
-            vars[j] = levels[j] * p0 * (1 - p0) + sharedVar;
+    /** A term is kept apart as a mixture when its spread variance is at least this share of the link's shared variance. */
+    static final double STRONG_FRACTION = 0.01;
+
+    private static double spreadOf(long[] levels, double[] w) {
+        double a = 0;
+        double b = 0;
+        for (int j = 0; j < levels.length; j++) {
+            a += w[j] * levels[j];
+            b += w[j] * (double) levels[j] * levels[j];
         }
-        return NormalLinkApproximation.capacityBits(means, vars, priorOne);
+        return Math.max(0, b - a * a);
     }
 
-    /** The link whose count given level j is Bin(n_j, p0) plus a shared part of the given moments. */
-    private static NormalLinkApproximation.Result evaluate(long[] levels, double p0, double sharedMean,
-            double sharedVar, double priorOne) {
+    /**
+     * Components of the term Σ_j w_j·Bin(n_j, p): {weights, means n_j·p, variances n_j·p(1 − p),
+     * {term mean, term variance}}.
+     */
+    private static double[][] components(long[] levels, double p, double[] w) {
         int m = levels.length;
-        double[] means = new double[m];
-        double[] vars = new double[m];
+        double[] mean = new double[m];
+        double[] var = new double[m];
+        double a = 0;
+        double b = 0;
         for (int j = 0; j < m; j++) {
+            mean[j] = levels[j] * p;
+            var[j] = levels[j] * p * (1 - p);
+            a += w[j] * mean[j];
+            b += w[j] * (var[j] + mean[j] * mean[j]);
+        }
+        return new double[][] {w, mean, var, {a, Math.max(0, b - a * a)}};
+    }
+
+    private static NormalLinkApproximation.Mixture mixture(List<double[][]> first, List<double[][]> second) {
+        NormalLinkApproximation.Mixture mix = NormalLinkApproximation.Mixture.NONE;
+        for (double[][] c : first) {
+            mix = mix.plus(c[0], c[1], c[2]);
+        }
+        for (double[][] c : second) {
+            mix = mix.plus(c[0], c[1], c[2]);
+        }
+        return mix;
+    }
+
+    private static double[] levelMeans(long[] levels, double p0, double sharedMean) {
+        double[] means = new double[levels.length];
+        for (int j = 0; j < levels.length; j++) {
             means[j] = levels[j] * p0 + sharedMean;
+        }
+        return means;
+    }
+
+    private static double[] levelVariances(long[] levels, double p0, double sharedVar) {
+        double[] vars = new double[levels.length];
+        for (int j = 0; j < levels.length; j++) {
             vars[j] = levels[j] * p0 * (1 - p0) + sharedVar;
         }
-        return NormalLinkApproximation.evaluate(means, vars, priorOne);
+        return vars;
+    }
+
+    /** Capacity of a link whose count given level j is Bin(n_j, p0) + N(shared) + the mixture. */
+    private static double capacity(long[] levels, double p0, double sharedMean, double sharedVar,
+            NormalLinkApproximation.Mixture mix, double priorOne) {
+        return NormalLinkApproximation.capacityBits(levelMeans(levels, p0, sharedMean),
+                levelVariances(levels, p0, sharedVar), mix, priorOne);
     }
 
     private static RouteReport route(Demand d, LinkGraph graph, Map<String, Link> byPair, Map<String, Node> nodes,
