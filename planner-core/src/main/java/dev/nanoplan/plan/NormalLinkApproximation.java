@@ -344,6 +344,17 @@ public final class NormalLinkApproximation {
         long hi = Math.max(lo + 1, (long) Math.ceil(Math.max(m0 + mm + 8 * s0, m1 + mm + 8 * s1)) + 1);
         Search s = new Search(m0, v0, m1, v1, mix, q, errorToo);
         long first = hi - lo <= DENSE ? 1 : Math.max(1, (hi - lo) / GRID);
+        // seeds: per component, the point between the two levels' modes where both are the same number
+        // of their standard deviations away; a mixture's best threshold can sit in a narrow gap next to
+        // one of them that a coarse grid steps over
+        for (int c = 0; first > 1 && c < mix.size(); c++) {
+            double a0 = sigma(v0 + mix.variances[c]);
+            double a1 = sigma(v1 + mix.variances[c]);
+            long seed = Math.round(m0 + mix.means[c] + a0 * (m1 - m0) / (a0 + a1) + 0.5);
+            if (seed >= lo && seed <= hi) {
+                s.scan(seed, seed, 1);
+            }
+        }
         s.scan(lo, hi, first);
         long stride = first;
         while (stride > 1) {

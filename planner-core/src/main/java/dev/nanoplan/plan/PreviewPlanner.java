@@ -33,25 +33,41 @@ import java.util.stream.IntStream;
  * cheap: an emitter sending level j with probability w_j contributes per slot k a mixture of
  * Bin(n_j, p_k) with mean p_k·A and variance p_k(1 − p_k)·A + p_k²·(B − A²), A = Σ w_j n_j,
  * B = Σ w_j n_j² (law of total variance), so each receiver sums its emitters once (O(m·L)) and a
- * link's crosstalk is that sum minus its own emitter (O(1)). Where the counts are far from normal
- * — small counts, far tails (error probabilities below about 1e-6), one strong on/off interferer
- * making the law bimodal — the capacity can be off by much more than the normal tolerance
- * ({@code PreviewPlannerTest} measures it against the exact plan).
+ * link's crosstalk is that sum minus its own emitter (O(1)).
+ *
+ * <p><b>Strong on/off terms.</b> A neighbour whose current symbol lands with a large tap makes the
+ * count bimodal; one normal law then underestimates the capacity badly (the exact capacity was seen
+ * up to 6× above it, see {@link dev.nanoplan.network.GaussianScreen}). Per receiver the preview
+ * ranks all per-slot terms by the variance of their level means, p_k²(B − A²), and per link keeps
+ * the strongest few (at most {@link #strongTerms(int)}, 4 for binary signalling, 16 components; each
+ * at least {@value #STRONG_FRACTION} of the link's shared variance; never the link's own current
+ * symbol) as a mixture of normal components, the rest as one normal law. Where more terms than that
+ * dominate the count (e.g. the culture-tank demo: a few relays and sensors, Lyapunov ratio of the
+ * rest ≈ 2) the preview is still off by up to 0.3 bit ({@code PreviewPlannerTest} measures it);
+ * elsewhere within 0.1 bit and typically 0.001 bit.
  *
  * <p><b>limited_by</b> is found as in the exact plan (remove ISI, crosstalk or background and see
- * which raises capacity most, SIGNAL when no removal closes 10 % of the gap), with the same normal
- * approximation for the what-ifs: three more evaluations of the closed form per link, cheap.
- * The reported threshold is the capacity-achieving one (the exact plan reports the one maximising
- * the mutual information at the scenario's prior; they coincide at prior ½ up to rounding).
+ * which raises capacity most, SIGNAL when no removal closes 10 % of the gap), with the plain normal
+ * law for the what-ifs compared with the plain normal baseline — as the exact plan's what-ifs use
+ * the Gaussian count model — three closed-form evaluations per link. The reported threshold is the
+ * capacity-achieving one (the exact plan reports the one maximising the mutual information at the
+ * scenario's prior; they coincide at prior ½ up to rounding).
+ *
+ * <p><b>Skipped pairs.</b> As in the exact plan, a pair is skipped when 1 − (1 − p_0)^swing is below
+ * the floor; then also when an upper bound on the approximate capacity (total variation and
+ * Kullback–Leibler bounds, {@link NormalLinkApproximation#capacityUpperBoundBits(double, double,
+ * double, double, NormalLinkApproximation.Mixture)}) is below it, which leaves out no link the full
+ * evaluation would keep.
  *
  * <p><b>What is left out.</b> Molecule budgets (empty list) and the bottleneck advice (routes say
  * "advice follows with the exact plan"): both search over dozens of re-evaluations per hop. The
  * first warning is always {@link #WARNING}, so any reader can tell a preview from an exact plan
  * ({@link #isPreview(Plan)}); the plan is meant for display only, never for the CLI's outputs.
  *
- * <p>Cost: the channel build plus O(Σ_receivers m·L) for the moments plus, per candidate link, four
- * threshold searches of O({@value NormalLinkApproximation#DENSE}) closed-form evaluations, plus the
- * routes. Receivers are evaluated in parallel when there are more than {@value #PARALLEL_ABOVE}.
+ * <p>Cost: the channel build plus O(Σ_receivers m·(L + 1)) for the moments and the strong terms plus,
+ * per link that passes the bounds, one mixture evaluation and four plain ones
+ * ({@link NormalLinkApproximation}, about 0.1 ms together), plus the routes. Receivers are evaluated
+ * in parallel when there are more than {@value #PARALLEL_ABOVE}.
  */
 public final class PreviewPlanner {
 
