@@ -29,7 +29,7 @@ import org.openjdk.jmh.annotations.Warmup;
  * The preview planner alone on generated swarms (SwarmGenerator, seed 42). JMH:
  * {@code java -cp target/test-classes:target/classes:<deps> org.openjdk.jmh.Main PreviewBench};
  * or {@code java -cp ... dev.nanoplan.bench.PreviewBench [nodes...]} for a plain timing loop (median of
- * 20 after 10 warm-up runs) plus, with {@code --compare}, the link capacities of the preview against the
+ * 200 runs after 200 warm-up runs up to 200 nodes, else 20 and 20; wall time, so read it with the load) plus, with {@code --compare}, the link capacities of the preview against the
  * exact plan (max, median and 95th percentile of the absolute difference in bits, over the links both
  * plans report, and the links only one of them reports).
  */
@@ -70,19 +70,21 @@ public class PreviewBench {
         for (int n : sizes) {
             Scenario s = SwarmGenerator.generate(n, 42);
             Plan p = null;
-            for (int i = 0; i < 10; i++) {
+            int reps = n <= 200 ? 200 : 20;
+            for (int i = 0; i < reps; i++) {
                 p = PreviewPlanner.plan(s, PlanOptions.DEFAULT);
             }
-            long[] t = new long[20];
+            long[] t = new long[reps];
             for (int i = 0; i < t.length; i++) {
                 long t0 = System.nanoTime();
                 p = PreviewPlanner.plan(s, PlanOptions.DEFAULT);
                 t[i] = System.nanoTime() - t0;
             }
             Arrays.sort(t);
-            System.out.printf("preview nodes=%d links=%d routes reachable=%d median %.2f ms min %.2f ms max %.2f ms%n",
-                    n, p.links().size(), p.routes().stream().filter(r -> r.reachable()).count(), t[t.length / 2] / 1e6,
-                    t[0] / 1e6, t[t.length - 1] / 1e6);
+            System.out.printf("preview nodes=%d links=%d routes reachable=%d median %.2f ms min %.2f ms max %.2f ms"
+                    + " (load %.2f)%n", n, p.links().size(), p.routes().stream().filter(r -> r.reachable()).count(),
+                    t[t.length / 2] / 1e6, t[0] / 1e6, t[t.length - 1] / 1e6,
+                    java.lang.management.ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage());
             if (compare) {
                 long t0 = System.nanoTime();
                 Plan exact = NetworkPlanner.plan(s, PlanOptions.DEFAULT);
