@@ -474,6 +474,9 @@ public final class PlannerViewModel {
 
     private void setScenario(Scenario s) {
         maxCapacity.set(Math.log(s.signalling().levels()) / Math.log(2));
+        // planning starts before the listeners of the new layout (the 3D scene) rebuild, so the preview
+        // is computed while the UI thread redraws; its result is applied through uiThread afterwards
+        schedulePlan(s);
         scenario.set(s);
         settings.load(s);
         String sel = selectedNodeId.get();
@@ -482,7 +485,6 @@ public final class PlannerViewModel {
         } else if (sel != null) {
             inspector.load(nodeById(sel));
         }
-        schedulePlan(s);
     }
 
     private void schedulePlan(Scenario s) {

@@ -53,6 +53,16 @@ public final class DragUpdateBench {
         vm.planned().get(600, TimeUnit.SECONDS);
         Node mover = s.nodes().stream().filter(x -> x.role().emits() && !x.id().equals("gw")).skip(3).findFirst()
                 .orElseThrow();
+        // latency of one FX-thread turn with nothing planned: the floor of any "applied" time here
+        long[] idle = new long[10];
+        for (int i = 0; i < idle.length; i++) {
+            Thread.sleep(100);
+            long t0 = System.nanoTime();
+            CompletableFuture<Long> turn = new CompletableFuture<>();
+            Platform.runLater(() -> turn.complete(System.nanoTime()));
+            idle[i] = turn.get(60, TimeUnit.SECONDS) - t0;
+        }
+        Arrays.sort(idle);
         long[] total = new long[repeats];
         long[] planOnly = new long[repeats];
         long[] previewTotal = new long[repeats];
@@ -127,6 +137,8 @@ public final class DragUpdateBench {
         System.out.printf("of which planning (background): median %.1f ms%n", planOnly[repeats / 2] / 1e6);
         System.out.printf("of which the edit on the FX thread (validation, undo, scene rebuild): median %.1f ms%n",
                 editSync[repeats / 2] / 1e6);
+        System.out.printf("one FX-thread turn while idle (rendering included): median %.1f ms, max %.1f ms%n",
+                idle[idle.length / 2] / 1e6, idle[idle.length - 1] / 1e6);
         System.out.printf("load average at the end: %.2f (2 cores)%n",
                 java.lang.management.ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage());
         Platform.exit();
