@@ -60,7 +60,8 @@ import java.util.stream.IntStream;
  * evaluation would keep.
  *
  * <p><b>What is left out.</b> Molecule budgets (empty list) and the bottleneck advice (routes say
- * "advice follows with the exact plan"): both search over dozens of re-evaluations per hop. The
+ * "advice follows with the exact plan"): both search over dozens of re-evaluations per hop. A direct
+ * link below the floor shows as no direct link (the exact plan reports its evaluated capacity). The
  * first warning is always {@link #WARNING}, so any reader can tell a preview from an exact plan
  * ({@link #isPreview(Plan)}); the plan is meant for display only, never for the CLI's outputs.
  *
@@ -136,6 +137,10 @@ public final class PreviewPlanner {
         if (caveats > 0) {
             warnings.add(caveats + " link(s) rest on open-medium closed forms near walls or in flow "
                     + "(model_caveat); check them with the particle simulation");
+        }
+        if (sig.levels() > 2) {
+            warnings.add("levels > 2: crossovers are the probabilities of deciding any other level for the lowest "
+                    + "and highest level; earlier symbols are taken as uniform over the levels");
         }
         LinkGraph graph = LinkGraph.of(nodes.keySet(), edges, options.capacityFloorBits());
         List<RouteReport> routes = new ArrayList<>();
