@@ -602,7 +602,21 @@ public final class MainView {
             return s == null ? "" : s.nodes().size() + " nodes · " + vm.links().size() + " links · "
                     + vm.routes().size() + " routes";
         }, vm.scenarioProperty(), vm.links(), vm.routes()));
-        HBox bar = new HBox(12, msg, grow, counts, caution);
+        // a preview (normal approximation) is on screen until the exact plan replaces it
+        Label preview = new Label("preview — exact plan running");
+        preview.setId("preview-badge");
+        preview.getStyleClass().add("preview-badge");
+        preview.setTooltip(new Tooltip("Links and routes from the normal approximation of the counts; "
+                + "budgets and advice are those of the last exact plan until it arrives"));
+        preview.visibleProperty().bind(vm.previewShownProperty());
+        preview.managedProperty().bind(vm.previewShownProperty());
+        javafx.css.PseudoClass previewing = javafx.css.PseudoClass.getPseudoClass("preview");
+        vm.previewShownProperty().addListener((o, a, b) -> {
+            linkTable.pseudoClassStateChanged(previewing, b);
+            routeTable.pseudoClassStateChanged(previewing, b);
+            budgetTable.pseudoClassStateChanged(previewing, b);
+        });
+        HBox bar = new HBox(12, msg, preview, grow, counts, caution);
         bar.getStyleClass().add("status-bar");
         bar.setPadding(new Insets(4, 10, 4, 10));
         return bar;

@@ -17,6 +17,17 @@ public interface PlanService {
      */
     Plan plan(Scenario scenario);
 
+    /**
+     * A fast approximate plan shown while {@link #plan} runs, or null when the service has none
+     * (the default). Called on a background thread; must take milliseconds, not seconds. The view
+     * model shows it as a preview until the plan of the same layout replaces it.
+     *
+     * @throws RuntimeException when the core fails; the preview is then skipped
+     */
+    default Plan preview(Scenario scenario) {
+        return null;
+    }
+
     /** The real planner of planner-core with its default options. */
     static PlanService core() {
         return CorePlanService.INSTANCE;

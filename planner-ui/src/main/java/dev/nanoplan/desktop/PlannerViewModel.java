@@ -56,12 +56,21 @@ import javafx.collections.ObservableList;
  * (Platform.runLater in the application, a direct executor in tests) and dropped when a newer
  * edit has been made. Never touches a control, so it is tested without a window.
  *
+ * <p>Progressive update: after each edit the service's {@link PlanService#preview fast preview} is
+ * computed first (on the preview executor, after a much shorter debounce) and applied with
+ * {@link #previewShownProperty()} true, so the view can mark it ("preview — exact plan running");
+ * the exact plan then replaces it and clears the flag. A preview never replaces the exact plan of
+ * the same layout (it is dropped when it comes late), the budgets table keeps the last exact
+ * budgets while a preview is shown (a preview has none), and a newer edit drops and cancels both.
+ *
  * <p>Threading: all methods except {@link #planned()} are called on the UI thread.
  */
 public final class PlannerViewModel {
 
     /** Default debounce between the last edit and the start of planning. */
     public static final long DEFAULT_DEBOUNCE_MS = 150;
+    /** Default debounce before the preview: none (edits come from drops and typed values, not every mouse move). */
+    public static final long DEFAULT_PREVIEW_DEBOUNCE_MS = 0;
 
     private final PlanService service;
     private final Executor uiThread;
@@ -74,6 +83,7 @@ public final class PlannerViewModel {
     private final javafx.beans.property.ReadOnlyDoubleWrapper maxCapacity =
             new javafx.beans.property.ReadOnlyDoubleWrapper(1.0);
     private final ReadOnlyBooleanWrapper busy = new ReadOnlyBooleanWrapper(false);
+    private final ReadOnlyBooleanWrapper previewShown = new ReadOnlyBooleanWrapper(false);
     private final ReadOnlyBooleanWrapper dirty = new ReadOnlyBooleanWrapper(false);
     private final ReadOnlyStringWrapper message = new ReadOnlyStringWrapper("");
     private final ReadOnlyObjectWrapper<Path> file = new ReadOnlyObjectWrapper<>();
@@ -96,9 +106,14 @@ public final class PlannerViewModel {
 
     private final AtomicLong generation = new AtomicLong();
     private ScheduledFuture<?> pending;
+    private ScheduledFuture<?> pendingPreview;
     private volatile CompletableFuture<Plan> planned = new CompletableFuture<>();
+    private volatile CompletableFuture<Plan> previewed = new CompletableFuture<>();
     private final Object planLock = new Object();
     private volatile long lastPlanNanos = -1;
+    private volatile long lastPreviewNanos = -1;
+    private final ScheduledExecutorService previewBackground;
+    private final long previewDebounceMs;
 
     /**
      * @param service    the planner
@@ -109,6 +124,26 @@ public final class PlannerViewModel {
      */
     public PlannerViewModel(PlanService service, Executor uiThread, ScheduledExecutorService background,
             long debounceMs, RecentFiles recent) {
+        this(service, uiThread, background, debounceMs, background, 0, recent);
+    }
+
+    /**
+     * @param service           the planner
+     * @param uiThread          where results are applied (the FX thread in the application)
+     * @param background        where exact plans are computed
+     * @param debounceMs        delay after the last edit before exact planning starts, ≥ 0
+     * @param previewBackground where previews are computed (may be {@code background}; a separate
+     *                          thread keeps previews live while an exact plan runs)
+     * @param previewDebounceMs delay after the last edit before the preview starts, ≥ 0
+     * @param recent            recent-files store
+     */
+    public PlannerViewModel(PlanService service, Executor uiThread, ScheduledExecutorService background,
+            long debounceMs, ScheduledExecutorService previewBackground, long previewDebounceMs, RecentFiles recent) {
+        this.previewBackground = Objects.requireNonNull(previewBackground, "previewBackground");
+        if (previewDebounceMs < 0) {
+            throw new IllegalArgumentException("previewDebounceMs must be >= 0, got " + previewDebounceMs);
+        }
+        this.previewDebounceMs = previewDebounceMs;
         this.service = Objects.requireNonNull(service, "service");
         this.uiThread = Objects.requireNonNull(uiThread, "uiThread");
         this.background = Objects.requireNonNull(background, "background");
@@ -123,16 +158,24 @@ public final class PlannerViewModel {
         scenario.addListener((o, a, b) -> refreshTitle());
     }
 
-    /** The application's view model: real planner, FX thread for results, 150 ms debounce. */
+    /**
+     * The application's view model: real planner, FX thread for results, 150 ms debounce for the
+     * exact plan, previews at once on their own thread.
+     */
     public static PlannerViewModel forApplication() {
         return new PlannerViewModel(PlanService.core(), Platform::runLater, daemonScheduler(), DEFAULT_DEBOUNCE_MS,
-                RecentFiles.inUserHome());
+                daemonScheduler("nanoplan-preview"), DEFAULT_PREVIEW_DEBOUNCE_MS, RecentFiles.inUserHome());
     }
 
     /** A single daemon thread for planning, so a pending plan never keeps the JVM alive. */
     public static ScheduledExecutorService daemonScheduler() {
+        return daemonScheduler("nanoplan-planner");
+    }
+
+    /** A single daemon thread of the given name. */
+    public static ScheduledExecutorService daemonScheduler(String name) {
         return Executors.newSingleThreadScheduledExecutor(r -> {
-            Thread t = new Thread(r, "nanoplan-planner");
+            Thread t = new Thread(r, name);
             t.setDaemon(true);
             return t;
         });
@@ -179,8 +222,8 @@ public final class PlannerViewModel {
      */
     public boolean exportHtml(Path path) {
         dev.nanoplan.plan.Plan p = plan.get();
-        if (p == null) {
-            message.set("no plan to export yet");
+        if (p == null || previewShown.get()) {
+            message.set(p == null ? "no plan to export yet" : "the exact plan is still running: export when it is shown");
             return false;
         }
         try {
@@ -453,6 +496,9 @@ public final class PlannerViewModel {
         if (pending != null) {
             pending.cancel(true);
         }
+        if (pendingPreview != null) {
+            pendingPreview.cancel(true);
+        }
         busy.set(false);
         message.set("planning cancelled");
     }
@@ -470,6 +516,19 @@ public final class PlannerViewModel {
         return lastPlanNanos;
     }
 
+    /**
+     * Completes with the preview of the latest requested layout once it has been applied; stays
+     * incomplete when the service has no preview or the exact plan came first. Safe from any thread.
+     */
+    public CompletableFuture<Plan> previewed() {
+        return previewed;
+    }
+
+    /** Wall time of the last preview computation in nanoseconds (−1 before the first). */
+    public long lastPreviewNanos() {
+        return lastPreviewNanos;
+    }
+
     /** Keeps the current plan for side-by-side comparison. */
     public void keepForComparison() {
         baseline.set(plan.get());
@@ -479,6 +538,9 @@ public final class PlannerViewModel {
 
     private void setScenario(Scenario s) {
         maxCapacity.set(Math.log(s.signalling().levels()) / Math.log(2));
+        // planning starts before the listeners of the new layout (the 3D scene) rebuild, so the preview
+        // is computed while the UI thread redraws; its result is applied through uiThread afterwards
+        schedulePlan(s);
         scenario.set(s);
         settings.load(s, unusedSpecies);
         speciesNames.setAll(declaredSpecies(s).stream().map(Species::name).toList());
@@ -488,7 +550,6 @@ public final class PlannerViewModel {
         } else if (sel != null) {
             inspector.load(nodeById(sel));
         }
-        schedulePlan(s);
     }
 
     private void schedulePlan(Scenario s) {
@@ -496,17 +557,50 @@ public final class PlannerViewModel {
         CompletableFuture<Plan> target;
         // the generation and the future move together, and results are published under the same
         // lock, so a plan of an older layout can never complete the future of a newer one
+        CompletableFuture<Plan> previewTarget;
         synchronized (planLock) {
             gen = generation.incrementAndGet();
             if (planned.isDone()) {
                 planned = new CompletableFuture<>();
             }
             target = planned;
+            if (previewed.isDone()) {
+                previewed = new CompletableFuture<>();
+            }
+            previewTarget = previewed;
         }
         if (pending != null) {
             pending.cancel(true);
         }
+        if (pendingPreview != null) {
+            pendingPreview.cancel(true);
+        }
         busy.set(true);
+        pendingPreview = previewBackground.schedule(() -> {
+            if (Thread.currentThread().isInterrupted() || gen != generation.get()) {
+                return;
+            }
+            Plan p;
+            long t0 = System.nanoTime();
+            try {
+                p = service.preview(s);
+            } catch (RuntimeException e) {
+                return; // the exact plan reports failures
+            }
+            long dt = System.nanoTime() - t0;
+            if (p == null) {
+                return;
+            }
+            uiThread.execute(() -> {
+                synchronized (planLock) {
+                    if (gen == generation.get() && !target.isDone()) {
+                        lastPreviewNanos = dt;
+                        applyPlan(p, true);
+                        previewTarget.complete(p);
+                    }
+                }
+            });
+        }, previewDebounceMs, TimeUnit.MILLISECONDS);
         pending = background.schedule(() -> {
             if (Thread.currentThread().isInterrupted() || gen != generation.get()) {
                 return;
@@ -519,7 +613,7 @@ public final class PlannerViewModel {
                     synchronized (planLock) {
                         if (gen == generation.get()) {
                             lastPlanNanos = dt;
-                            applyPlan(p);
+                            applyPlan(p, false);
                             busy.set(false);
                             target.complete(p);
                         }
@@ -539,13 +633,16 @@ public final class PlannerViewModel {
         }, debounceMs, TimeUnit.MILLISECONDS);
     }
 
-    private void applyPlan(Plan p) {
+    private void applyPlan(Plan p, boolean preview) {
         LinkReport oldLink = selectedLink.get();
         RouteReport oldRoute = selectedRoute.get();
+        previewShown.set(preview);
         plan.set(p);
         links.setAll(p.links());
         routes.setAll(p.routes());
-        budgets.setAll(p.budgets());
+        if (!preview) {
+            budgets.setAll(p.budgets());
+        }
         warnings.setAll(p.warnings());
         selectedLink.set(oldLink == null ? null : findLink(oldLink.from(), oldLink.to()));
         selectedRoute.set(oldRoute == null ? null
@@ -769,6 +866,11 @@ public final class PlannerViewModel {
 
     public ReadOnlyBooleanProperty busyProperty() {
         return busy.getReadOnlyProperty();
+    }
+
+    /** True while the plan shown is a fast preview and the exact plan is still to come. */
+    public ReadOnlyBooleanProperty previewShownProperty() {
+        return previewShown.getReadOnlyProperty();
     }
 
     public ReadOnlyBooleanProperty dirtyProperty() {
