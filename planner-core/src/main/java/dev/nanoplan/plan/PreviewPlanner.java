@@ -92,12 +92,25 @@ public final class PreviewPlanner {
     }
 
     /**
+     * Whether the preview models this layout: all-active signalling only (a round-robin schedule
+     * decimates every link's taps per slot, which the preview does not do; callers show no preview).
+     */
+    public static boolean supports(Scenario scenario) {
+        return scenario.signalling().schedule() == dev.nanoplan.scenario.Schedule.ALL_ACTIVE;
+    }
+
+    /**
      * Plans the scenario approximately (floor, cutoff and channel of {@code options}; the progress
      * callback is told 0 and 1 only).
      *
-     * @throws IllegalArgumentException if {@code options.channel()} names nodes not in the scenario
+     * @throws IllegalArgumentException if {@code options.channel()} names nodes not in the scenario, or the
+     *     schedule is not all-active ({@link #supports})
      */
     public static Plan plan(Scenario scenario, PlanOptions options) {
+        if (!supports(scenario)) {
+            throw new IllegalArgumentException("signalling.schedule: the preview covers all-active only, got "
+                    + scenario.signalling().schedule().id());
+        }
         options.progress().accept(0);
         ChannelMatrix channel = options.channel() != null ? options.channel()
                 : AnalyticChannel.build(scenario, options.cutoffMolecules());

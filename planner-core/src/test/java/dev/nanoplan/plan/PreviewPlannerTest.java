@@ -1,6 +1,7 @@
 package dev.nanoplan.plan;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import dev.nanoplan.network.AnalyticChannel;
 import dev.nanoplan.network.ChannelEntry;
@@ -46,7 +47,10 @@ class PreviewPlannerTest {
     static Stream<Scenario> layouts() throws Exception {
         List<Scenario> out = new ArrayList<>();
         for (Path p : bundled().toList()) {
-            out.add(ScenarioReader.strict().read(p));
+            Scenario s = ScenarioReader.strict().read(p);
+            if (PreviewPlanner.supports(s)) {
+                out.add(s);
+            }
         }
         out.add(SwarmGenerator.generate(100, 42));
         out.add(SwarmGenerator.generate(160, 7));
@@ -118,6 +122,16 @@ class PreviewPlannerTest {
                 assertThat(p.capacityBits()).as("%s->%s", p.from(), p.to()).isLessThan(0.1);
             }
         }
+    }
+
+    @Test
+    void roundRobinLayoutsGetNoPreview() throws Exception {
+        Path rr = bundled().filter(p -> p.getFileName().toString().equals("culture-tank-round-robin.json"))
+                .findFirst().orElseThrow();
+        Scenario s = ScenarioReader.strict().read(rr);
+        assertThat(PreviewPlanner.supports(s)).isFalse();
+        assertThatThrownBy(() -> PreviewPlanner.plan(s, PlanOptions.DEFAULT))
+                .isInstanceOf(IllegalArgumentException.class).hasMessageStartingWith("signalling.schedule:");
     }
 
     @Test

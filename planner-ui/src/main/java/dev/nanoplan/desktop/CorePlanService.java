@@ -35,6 +35,9 @@ final class CorePlanService implements PlanService {
 
     @Override
     public Plan preview(Scenario scenario) {
+        if (!PreviewPlanner.supports(scenario)) {
+            return null;
+        }
         return PreviewPlanner.plan(scenario, PlanOptions.DEFAULT);
     }
 }
