@@ -6,6 +6,11 @@ import dev.nanoplan.plan.PlanOptions;
 import dev.nanoplan.plan.PreviewPlanner;
 import dev.nanoplan.scenario.Scenario;
 import java.util.concurrent.CancellationException;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ForkJoinPool;
+import java.util.concurrent.ForkJoinTask;
+import java.util.concurrent.ForkJoinWorkerThread;
+import java.util.concurrent.atomic.AtomicBoolean;
 
 /**
  * {@link PlanService} backed by planner-core's {@link NetworkPlanner} with {@link PlanOptions#DEFAULT},
@@ -23,14 +28,50 @@ final class CorePlanService implements PlanService {
     private CorePlanService() {
     }
 
+    /**
+     * Worker threads of the exact plan: one fewer than the processors (at least one), so the UI
+     * thread and the renderer keep a core while a plan runs. The core planner's parallel stream runs
+     * in the pool it is started from.
+     */
+    private static final ForkJoinPool POOL = new ForkJoinPool(
+            Math.max(1, Runtime.getRuntime().availableProcessors() - 1), pool -> {
+                ForkJoinWorkerThread t = ForkJoinPool.defaultForkJoinWorkerThreadFactory.newThread(pool);
+                t.setDaemon(true);
+                t.setName("nanoplan-plan-" + t.getPoolIndex());
+                return t;
+            }, null, false);
+
+    /** Parallelism of the exact plan's pool. */
+    static int planThreads() {
+        return POOL.getParallelism();
+    }
+
     @Override
     public Plan plan(Scenario scenario) {
         Thread caller = Thread.currentThread();
-        return NetworkPlanner.plan(scenario, PlanOptions.DEFAULT.withProgress(f -> {
-            if (caller.isInterrupted()) {
-                throw new CancellationException("superseded by a newer edit");
+        AtomicBoolean abandoned = new AtomicBoolean();
+        ForkJoinTask<Plan> task = POOL.submit(() -> NetworkPlanner.plan(scenario,
+                PlanOptions.DEFAULT.withProgress(f -> {
+                    if (abandoned.get() || caller.isInterrupted()) {
+                        throw new CancellationException("superseded by a newer edit");
+                    }
+                })));
+        try {
+            return task.get();
+        } catch (InterruptedException e) {
+            abandoned.set(true);
+            Thread.currentThread().interrupt();
+            throw new CancellationException("superseded by a newer edit");
+        } catch (ExecutionException e) {
+            Throwable c = e.getCause();
+            if (c instanceof RuntimeException r) {
+                throw r;
             }
-        }));
+            if (c instanceof Error err) {
+                throw err;
+            }
+            throw new IllegalStateException(c);
+        }
     }
 
     @Override

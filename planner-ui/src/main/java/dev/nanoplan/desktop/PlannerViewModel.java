@@ -207,6 +207,7 @@ public final class PlannerViewModel {
         // the message comes before the plan is scheduled, so a fast planning failure is not overwritten
         message.set(from == null ? "new layout" : "opened " + from.getFileName());
         unusedSpecies.clear();
+        settingsKey = null; // another layout: the settings editor always starts from the file
         setScenario(s);
         dirty.set(false);
     }
@@ -536,14 +537,24 @@ public final class PlannerViewModel {
         message.set(plan.get() == null ? "nothing to keep yet" : "kept the current design for comparison");
     }
 
+    /** The settings-relevant parts of the layout last loaded into the settings editor. */
+    private List<Object> settingsKey;
+
     private void setScenario(Scenario s) {
         maxCapacity.set(Math.log(s.signalling().levels()) / Math.log(2));
         // planning starts before the listeners of the new layout (the 3D scene) rebuild, so the preview
         // is computed while the UI thread redraws; its result is applied through uiThread afterwards
         schedulePlan(s);
         scenario.set(s);
-        settings.load(s, unusedSpecies);
-        speciesNames.setAll(declaredSpecies(s).stream().map(Species::name).toList());
+        // what the settings editor shows; a move leaves it alone, so the editor (and any unapplied
+        // typing in it) is not rebuilt on every drag
+        List<Object> key = List.of(s.medium(), s.signalling(), s.species(), List.copyOf(unusedSpecies),
+                s.nodes().stream().map(n -> n.id() + '\u0000' + n.species() + '\u0000' + n.emitsSpecies()).toList());
+        if (!key.equals(settingsKey)) {
+            settingsKey = key;
+            settings.load(s, unusedSpecies);
+            speciesNames.setAll(declaredSpecies(s).stream().map(Species::name).toList());
+        }
         String sel = selectedNodeId.get();
         if (sel != null && nodeById(sel) == null) {
             selectedNodeId.set(null);

@@ -99,17 +99,21 @@ public final class SceneView {
         installControls();
         vm.scenarioProperty().addListener((o, a, b) -> {
             boolean first = a == null || a.volume() != b.volume();
-            rebuildNodesAndVolume();
+            if (first || !moveSpheres(a, b)) {
+                rebuildNodesAndVolume();
+            }
             rebuildLinks();
             if (first) {
                 preset(Preset.PERSPECTIVE);
             }
         });
-        vm.planProperty().addListener((o, a, b) -> rebuildLinks());
+        // a new plan is drawn after the UI event that applied it (which may also re-select the link
+        // and route: then that selection's immediate rebuild draws it and the deferred one is skipped)
+        vm.planProperty().addListener((o, a, b) -> requestLinks());
         vm.selectedLinkProperty().addListener((o, a, b) -> rebuildLinks());
         vm.selectedRouteProperty().addListener((o, a, b) -> rebuildLinks());
         vm.showRoutesOnlyProperty().addListener((o, a, b) -> rebuildLinks());
-        vm.selectedNodeIdProperty().addListener((o, a, b) -> rebuildNodesAndVolume());
+        vm.selectedNodeIdProperty().addListener((o, a, b) -> updateHalo());
         if (vm.scenarioProperty().get() != null) {
             rebuildNodesAndVolume();
             rebuildLinks();
@@ -185,6 +189,41 @@ public final class SceneView {
 
     // ------------------------------------------------------------------ building
 
+    /**
+     * The cheap update after a move: when the new layout has the same nodes (ids, order, roles, radii)
+     * in the same volume and the view's frame (centre and extent) does not change, the existing
+     * spheres are moved instead of rebuilding the scene, which keeps a drag's redraw small.
+     *
+     * @return false when a rebuild is needed
+     */
+    private boolean moveSpheres(Scenario before, Scenario after) {
+        if (after == null || before == null || !before.volume().equals(after.volume())
+                || before.nodes().size() != after.nodes().size() || spheres.size() != after.nodes().size()) {
+            return false;
+        }
+        for (int i = 0; i < after.nodes().size(); i++) {
+            Node x = before.nodes().get(i);
+            Node y = after.nodes().get(i);
+            if (!x.id().equals(y.id()) || x.role() != y.role() || x.radiusUm() != y.radiusUm()) {
+                return false;
+            }
+        }
+        Point3D oldCentre = centre;
+        double oldExtent = extent;
+        measure(after);
+        if (!centre.equals(oldCentre) || extent != oldExtent) {
+            return false; // rebuildNodesAndVolume measures again
+        }
+        for (Node n : after.nodes()) {
+            Sphere sp = spheres.get(n.id());
+            Point3D p = fx(n.positionUm());
+            sp.setTranslateX(p.getX());
+            sp.setTranslateY(p.getY());
+            sp.setTranslateZ(p.getZ());
+        }
+        return true;
+    }
+
     private void rebuildNodesAndVolume() {
         Scenario s = vm.scenarioProperty().get();
         volumeGroup.getChildren().clear();
@@ -244,7 +283,6 @@ public final class SceneView {
                     segment(o, new Vec3(o.x(), o.y(), o.z() + l), line, new PhongMaterial(Color.web("#4f7dc0"))));
         }
         double minR = extent * 0.007;
-        String sel = vm.selectedNodeIdProperty().get();
         for (Node n : s.nodes()) {
             Sphere sp = new Sphere(Math.max(n.radiusUm(), minR), 24);
             Color c = CapacityColours.role(n.role());
@@ -262,20 +300,53 @@ public final class SceneView {
             sp.setOnMouseReleased(e -> onNodeReleased(e, n, sp));
             spheres.put(n.id(), sp);
             nodeGroup.getChildren().add(sp);
-            if (n.id().equals(sel)) {
-                Sphere halo = new Sphere(sp.getRadius() * 1.8, 16);
-                halo.setDrawMode(DrawMode.LINE);
-                halo.setMaterial(new PhongMaterial(Color.WHITE));
-                halo.setMouseTransparent(true);
-                halo.translateXProperty().bind(sp.translateXProperty());
-                halo.translateYProperty().bind(sp.translateYProperty());
-                halo.translateZProperty().bind(sp.translateZProperty());
-                nodeGroup.getChildren().add(halo);
-            }
+        }
+        halo = null;
+        updateHalo();
+    }
+
+    /** The wire sphere around the selected node, following it when it is dragged. */
+    private Sphere halo;
+
+    /**
+     * Puts the selection halo around the selected node's sphere (or removes it); the node spheres
+     * stay, so a press that selects a node keeps the sphere under the mouse for the drag.
+     */
+    private void updateHalo() {
+        if (halo != null) {
+            nodeGroup.getChildren().remove(halo);
+            halo = null;
+        }
+        Sphere sp = spheres.get(vm.selectedNodeIdProperty().get());
+        if (sp == null) {
+            return;
+        }
+        halo = new Sphere(sp.getRadius() * 1.8, 16);
+        halo.setDrawMode(DrawMode.LINE);
+        halo.setMaterial(new PhongMaterial(Color.WHITE));
+        halo.setMouseTransparent(true);
+        halo.translateXProperty().bind(sp.translateXProperty());
+        halo.translateYProperty().bind(sp.translateYProperty());
+        halo.translateZProperty().bind(sp.translateZProperty());
+        nodeGroup.getChildren().add(halo);
+    }
+
+    private boolean linksRequested;
+
+    /** Rebuilds the links once, after the current UI event has made all its changes. */
+    private void requestLinks() {
+        if (!linksRequested) {
+            linksRequested = true;
+            javafx.application.Platform.runLater(() -> {
+                if (linksRequested) {
+                    rebuildLinks();
+                }
+            });
         }
     }
 
     private void rebuildLinks() {
+        linksRequested = false;
         linkGroup.getChildren().clear();
         routeGroup.getChildren().clear();
         linkShapes.clear();
@@ -474,7 +545,9 @@ public final class SceneView {
         vm.selectedNodeIdProperty().set(n.id());
         if (e.isShiftDown() && e.getButton() == MouseButton.PRIMARY) {
             draggedNode = n.id();
-            dragStart = fx(n.positionUm());
+            // the sphere may have been moved since it was built (moveSpheres): start from the layout's position
+            Node now = vm.nodeById(n.id());
+            dragStart = fx((now == null ? n : now).positionUm());
             dragMoved = false;
             pressX = e.getSceneX();
             pressY = e.getSceneY();

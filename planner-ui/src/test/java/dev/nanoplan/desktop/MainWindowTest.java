@@ -154,11 +154,20 @@ class MainWindowTest {
         Window w = open("culture-tank");
         List<LinkReport> before = onFx(() -> List.copyOf(w.view().linkTable().getItems()));
         var beforePos = w.vm().nodeById("s09").positionUm();
-        onFx(() -> {
+        double[] translateBefore = onFx(() -> {
             Sphere s = w.view().sceneView().spheres().get("s09");
-            s.fireEvent(mouse(MouseEvent.MOUSE_PRESSED, 300, 300));
-            s.fireEvent(mouse(MouseEvent.MOUSE_DRAGGED, 330, 300));
-            s.fireEvent(mouse(MouseEvent.MOUSE_RELEASED, 330, 300));
+            return new double[] {s.getTranslateX(), s.getTranslateY(), s.getTranslateZ()};
+        });
+        // pressing selects the node (a halo appears) and keeps the sphere under the mouse; the drop moves it in place
+        Sphere sphereBefore = onFx(() -> w.view().sceneView().spheres().get("s09"));
+        onFx(() -> {
+            sphereBefore.fireEvent(mouse(MouseEvent.MOUSE_PRESSED, 300, 300));
+            assertThat(w.view().sceneView().spheres().get("s09")).isSameAs(sphereBefore);
+            return null;
+        });
+        onFx(() -> {
+            sphereBefore.fireEvent(mouse(MouseEvent.MOUSE_DRAGGED, 330, 300));
+            sphereBefore.fireEvent(mouse(MouseEvent.MOUSE_RELEASED, 330, 300));
             return null;
         });
         assertThat(w.vm().nodeById("s09").positionUm()).isNotEqualTo(beforePos);
@@ -166,6 +175,13 @@ class MainWindowTest {
         WaitForAsyncUtils.waitForFxEvents();
         List<LinkReport> after = onFx(() -> List.copyOf(w.view().linkTable().getItems()));
         assertThat(after).isNotEqualTo(before);
+        // a move keeps the scene: the same sphere stands at the new place (no rebuild of the 100-node scene)
+        assertThat(onFx(() -> w.view().sceneView().spheres().get("s09"))).isSameAs(sphereBefore);
+        double[] translateAfter = onFx(() -> new double[] {sphereBefore.getTranslateX(), sphereBefore.getTranslateY(),
+            sphereBefore.getTranslateZ()});
+        assertThat(translateAfter).isNotEqualTo(translateBefore);
+        assertThat(onFx(() -> w.view().sceneView().spheres().size())).isEqualTo(w.vm().scenarioProperty().get()
+                .nodes().size());
     }
 
     @Test

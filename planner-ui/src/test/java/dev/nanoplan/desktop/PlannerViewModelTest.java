@@ -79,6 +79,23 @@ class PlannerViewModelTest {
     }
 
     @Test
+    void movingANodeKeepsUnappliedTypingInTheSettingsEditor() throws Exception {
+        opened();
+        vm.settings().temperatureKProperty().set("300");
+        assertThat(vm.moveNode("s01", new Vec3(60, 60, 60))).isTrue();
+        awaitPlan();
+        // a move does not touch medium, signalling or species, so the editor is not reloaded
+        assertThat(vm.settings().temperatureKProperty().get()).isEqualTo("300");
+        // applying it changes the medium: the editor shows the layout's (parsed) value again
+        assertThat(vm.applySettings()).isTrue();
+        awaitPlan();
+        assertThat(vm.scenarioProperty().get().medium().temperatureK()).isEqualTo(300.0);
+        assertThat(vm.undo()).isTrue();
+        awaitPlan();
+        assertThat(vm.settings().temperatureKProperty().get()).isNotEqualTo("300");
+    }
+
+    @Test
     void movingANodeReplansAndChangesItsLinks() throws Exception {
         opened();
         double before = vm.findLink("s01", "gw").capacityBits();
