@@ -123,22 +123,13 @@ public final class NetworkPlanner {
         }
         Map<String, Evaluated> byPair = new HashMap<>();
         List<LinkEdge> edges = new ArrayList<>();
-        int caveats = 0;
+        List<LinkReport> linkReports = new ArrayList<>(links.size());
         for (Evaluated e : links) {
             byPair.put(key(e.report().from(), e.report().to()), e);
             edges.add(e.edge());
-            if (e.report().modelCaveat() != null && !e.report().modelCaveat().equals("simulated")) {
-                caveats++;
-            }
+            linkReports.add(e.report());
         }
-        if (caveats > 0) {
-            warnings.add(caveats + " link(s) rest on open-medium closed forms near walls or in flow "
-                    + "(model_caveat); check them with the particle simulation");
-        }
-        if (sig.levels() > 2) {
-            warnings.add("levels > 2: crossovers are the probabilities of deciding any other level for the lowest "
-                    + "and highest level; earlier symbols are taken as uniform over the levels");
-        }
+        addLinkWarnings(linkReports, sig, warnings);
         LinkGraph graph = LinkGraph.of(nodes.keySet(), edges, options.capacityFloorBits());
 
         List<RouteReport> routes = new ArrayList<>();
@@ -152,9 +143,21 @@ public final class NetworkPlanner {
         List<BudgetReport> budgets = MoleculeBudgets.compute(scenario, routeHops,
                 f -> progress.accept(0.9 + 0.1 * f));
         progress.accept(1.0);
-        List<LinkReport> reports = new ArrayList<>(links.size());
-        links.forEach(e -> reports.add(e.report()));
-        return new Plan(scenario, channel.source(), reports, routes, budgets, warnings);
+        return new Plan(scenario, channel.source(), linkReports, routes, budgets, warnings);
+    }
+
+    /** The plan-wide notes about its links: closed forms used near walls or in flow, and levels > 2. */
+    static void addLinkWarnings(List<LinkReport> links, Signalling sig, List<String> warnings) {
+        long caveats = links.stream()
+                .filter(l -> l.modelCaveat() != null && !l.modelCaveat().equals("simulated")).count();
+        if (caveats > 0) {
+            warnings.add(caveats + " link(s) rest on open-medium closed forms near walls or in flow "
+                    + "(model_caveat); check them with the particle simulation");
+        }
+        if (sig.levels() > 2) {
+            warnings.add("levels > 2: crossovers are the probabilities of deciding any other level for the lowest "
+                    + "and highest level; earlier symbols are taken as uniform over the levels");
+        }
     }
 
     static String key(String from, String to) {

@@ -136,25 +136,14 @@ public final class PreviewPlanner {
         List<LinkReport> reports = new ArrayList<>();
         List<LinkEdge> edges = new ArrayList<>();
         Map<String, Link> byPair = new HashMap<>();
-        int caveats = 0;
         for (List<Link> l : per) {
             for (Link k : l) {
                 reports.add(k.report());
                 edges.add(k.edge());
                 byPair.put(NetworkPlanner.key(k.report().from(), k.report().to()), k);
-                if (k.report().modelCaveat() != null && !k.report().modelCaveat().equals("simulated")) {
-                    caveats++;
-                }
             }
         }
-        if (caveats > 0) {
-            warnings.add(caveats + " link(s) rest on open-medium closed forms near walls or in flow "
-                    + "(model_caveat); check them with the particle simulation");
-        }
-        if (sig.levels() > 2) {
-            warnings.add("levels > 2: crossovers are the probabilities of deciding any other level for the lowest "
-                    + "and highest level; earlier symbols are taken as uniform over the levels");
-        }
+        NetworkPlanner.addLinkWarnings(reports, sig, warnings);
         LinkGraph graph = LinkGraph.of(nodes.keySet(), edges, options.capacityFloorBits());
         List<RouteReport> routes = new ArrayList<>();
         for (Demand d : scenario.demands()) {

@@ -8,9 +8,6 @@ import java.awt.image.BufferedImage;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.concurrent.Callable;
-import java.util.concurrent.CompletableFuture;
-import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 import javafx.application.Platform;
 import javafx.scene.Node;
@@ -23,9 +20,6 @@ import javafx.scene.shape.Cylinder;
 import javafx.scene.shape.Sphere;
 import javafx.stage.Stage;
 import javax.imageio.ImageIO;
-import org.junit.jupiter.api.AfterEach;
-import org.junit.jupiter.api.Assumptions;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
@@ -38,46 +32,9 @@ import org.testfx.util.WaitForAsyncUtils;
  * DISPLAY is unset). Every test has a timeout because JavaFX can hang without a display.
  */
 @Timeout(value = 180, unit = TimeUnit.SECONDS)
-class MainWindowTest {
+class MainWindowTest extends FxWindowTestBase {
 
     static final Path SCENARIOS = Path.of("..", "scenarios");
-
-    ScheduledExecutorService bg;
-    Stage stage;
-
-    @BeforeAll
-    static void startFx() throws Exception {
-        String display = System.getenv("DISPLAY");
-        boolean ci = "true".equalsIgnoreCase(System.getenv("CI"));
-        Assumptions.assumeTrue(ci || (display != null && !display.isBlank()),
-                "no display: run the UI tests under xvfb-run (CI does)");
-        DesktopLauncher.startPlatform();
-    }
-
-    @AfterEach
-    void close() throws Exception {
-        if (stage != null) {
-            onFx(() -> {
-                stage.close();
-                return null;
-            });
-        }
-        if (bg != null) {
-            bg.shutdownNow();
-        }
-    }
-
-    static <T> T onFx(Callable<T> c) throws Exception {
-        CompletableFuture<T> f = new CompletableFuture<>();
-        Platform.runLater(() -> {
-            try {
-                f.complete(c.call());
-            } catch (Throwable t) {
-                f.completeExceptionally(t);
-            }
-        });
-        return f.get(60, TimeUnit.SECONDS);
-    }
 
     record Window(PlannerViewModel vm, MainView view) {
     }

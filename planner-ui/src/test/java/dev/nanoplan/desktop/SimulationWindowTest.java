@@ -1,12 +1,10 @@
 package dev.nanoplan.desktop;
 
-import static dev.nanoplan.desktop.MainWindowTest.onFx;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
 import java.nio.file.Path;
-import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 import javafx.application.Platform;
 import javafx.scene.Scene;
@@ -23,9 +21,6 @@ import javafx.scene.paint.LinearGradient;
 import javafx.scene.paint.Paint;
 import javafx.scene.text.Text;
 import javafx.stage.Stage;
-import org.junit.jupiter.api.AfterEach;
-import org.junit.jupiter.api.Assumptions;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
@@ -36,34 +31,10 @@ import org.testfx.util.WaitForAsyncUtils;
  * simulation of a bundled layout from its Run button and fills its table.
  */
 @Timeout(value = 180, unit = TimeUnit.SECONDS)
-class SimulationWindowTest {
+class SimulationWindowTest extends FxWindowTestBase {
 
-    ScheduledExecutorService bg;
-    Stage stage;
     @TempDir
     Path cacheDir;
-
-    @BeforeAll
-    static void startFx() throws Exception {
-        String display = System.getenv("DISPLAY");
-        boolean ci = "true".equalsIgnoreCase(System.getenv("CI"));
-        Assumptions.assumeTrue(ci || (display != null && !display.isBlank()),
-                "no display: run the UI tests under xvfb-run (CI does)");
-        DesktopLauncher.startPlatform();
-    }
-
-    @AfterEach
-    void close() throws Exception {
-        if (stage != null) {
-            onFx(() -> {
-                stage.close();
-                return null;
-            });
-        }
-        if (bg != null) {
-            bg.shutdownNow();
-        }
-    }
 
     @Test
     void simulationTabRunsTheLayoutAndFillsTheTable() throws Exception {

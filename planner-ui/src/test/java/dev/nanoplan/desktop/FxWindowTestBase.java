@@ -1,0 +1,57 @@
+package dev.nanoplan.desktop;
+
+import java.util.concurrent.Callable;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.ScheduledExecutorService;
+import java.util.concurrent.TimeUnit;
+import javafx.application.Platform;
+import javafx.stage.Stage;
+import org.junit.jupiter.api.AfterEach;
+import org.junit.jupiter.api.Assumptions;
+import org.junit.jupiter.api.BeforeAll;
+
+/**
+ * What the real-window tests share: JavaFX started once (skipped without a display unless on CI,
+ * where it runs under xvfb-run), the window and the planner's background threads closed after
+ * each test, and {@link #onFx} to run a check on the FX thread.
+ */
+abstract class FxWindowTestBase {
+
+    ScheduledExecutorService bg;
+    Stage stage;
+
+    @BeforeAll
+    static void startFx() throws Exception {
+        String display = System.getenv("DISPLAY");
+        boolean ci = "true".equalsIgnoreCase(System.getenv("CI"));
+        Assumptions.assumeTrue(ci || (display != null && !display.isBlank()),
+                "no display: run the UI tests under xvfb-run (CI does)");
+        DesktopLauncher.startPlatform();
+    }
+
+    @AfterEach
+    void close() throws Exception {
+        if (stage != null) {
+            onFx(() -> {
+                stage.close();
+                return null;
+            });
+        }
+        if (bg != null) {
+            bg.shutdownNow();
+        }
+    }
+
+    /** Runs {@code c} on the FX thread and returns its result (60 s at most). */
+    static <T> T onFx(Callable<T> c) throws Exception {
+        CompletableFuture<T> f = new CompletableFuture<>();
+        Platform.runLater(() -> {
+            try {
+                f.complete(c.call());
+            } catch (Throwable t) {
+                f.completeExceptionally(t);
+            }
+        });
+        return f.get(60, TimeUnit.SECONDS);
+    }
+}
