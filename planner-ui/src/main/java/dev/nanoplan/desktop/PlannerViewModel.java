@@ -532,6 +532,21 @@ public final class PlannerViewModel {
 
     /** Keeps the current plan for side-by-side comparison. */
     public void keepForComparison() {
+        if (previewShown.get()) {
+            // a preview is not a design's result: keep this layout's exact plan when it arrives
+            Scenario kept = scenario.get();
+            message.set("will keep the current design when its exact plan is ready");
+            planned().thenAccept(p -> {
+                if (p.scenario().equals(kept)) {
+                    baseline.set(p);
+                    refreshComparison();
+                    message.set("kept the current design for comparison");
+                } else {
+                    message.set("the layout changed before its exact plan was ready: nothing kept");
+                }
+            });
+            return;
+        }
         baseline.set(plan.get());
         refreshComparison();
         message.set(plan.get() == null ? "nothing to keep yet" : "kept the current design for comparison");

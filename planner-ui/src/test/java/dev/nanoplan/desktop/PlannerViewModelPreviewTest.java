@@ -99,6 +99,43 @@ class PlannerViewModelPreviewTest {
     }
 
     @Test
+    void keepingADesignDuringAPreviewKeepsItsExactPlan() throws Exception {
+        assertThat(vm.open(TANK)).isTrue();
+        Plan preview = vm.previewed().get(10, TimeUnit.SECONDS);
+        vm.keepForComparison();
+        assertThat(vm.baselineProperty().get()).isNull();
+        service.exactPermits.release();
+        Plan exact = vm.planned().get(10, TimeUnit.SECONDS);
+        // the keeping runs as the exact plan's future completes, beside this thread's wake-up: wait for it
+        waitFor(() -> vm.messageProperty().get().startsWith("kept"));
+        assertThat(vm.baselineProperty().get()).isSameAs(exact).isNotSameAs(preview);
+        assertThat(vm.messageProperty().get()).isEqualTo("kept the current design for comparison");
+    }
+
+    @Test
+    void aDesignEditedBeforeItsExactPlanIsNotKept() throws Exception {
+        assertThat(vm.open(TANK)).isTrue();
+        vm.previewed().get(10, TimeUnit.SECONDS);
+        vm.keepForComparison();
+        assertThat(vm.moveNode("s01", new Vec3(60, 60, 60))).isTrue();
+        vm.previewed().get(10, TimeUnit.SECONDS);
+        service.exactPermits.release(2);
+        Plan exact = vm.planned().get(10, TimeUnit.SECONDS);
+        assertThat(exact.scenario().nodesById().get("s01").positionUm()).isEqualTo(new Vec3(60, 60, 60));
+        waitFor(() -> vm.messageProperty().get().contains("nothing kept"));
+        assertThat(vm.baselineProperty().get()).isNull();
+    }
+
+    /** Polls (10 s at most) for a state another thread sets; fails when it never comes. */
+    static void waitFor(java.util.function.BooleanSupplier condition) throws InterruptedException {
+        long end = System.nanoTime() + TimeUnit.SECONDS.toNanos(10);
+        while (!condition.getAsBoolean()) {
+            assertThat(System.nanoTime()).as("waited 10 s for the view model").isLessThan(end);
+            Thread.sleep(5);
+        }
+    }
+
+    @Test
     void aNewerEditSupersedesBothThePreviewAndTheExactPlanOfTheOlderLayout() throws Exception {
         assertThat(vm.open(TANK)).isTrue();
         service.exactPermits.release();
