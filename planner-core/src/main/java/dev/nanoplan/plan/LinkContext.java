@@ -1,6 +1,7 @@
 package dev.nanoplan.plan;
 
 import dev.nanoplan.count.CountModelKind;
+import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.count.CountTerm;
 import dev.nanoplan.network.AnalyticChannel;
 import dev.nanoplan.network.ChannelEntry;
@@ -155,7 +156,9 @@ final class LinkContext {
             return LinkEvaluator.evaluateBest(spec, terms, null, terms.size());
         }
         int covered = terms.size() - (rc.hasRemainder(rank) ? 1 : 0);
-        return LinkEvaluator.evaluateBest(spec, terms, rc.pmfWithout(rank), covered);
+        CountPmf[] parts = rc.partsWithout(rank);
+        return parts.length == 2 ? LinkEvaluator.evaluateBest(spec, terms, parts[0], parts[1], covered)
+                : LinkEvaluator.evaluateBest(spec, terms, parts[0], covered);
     }
 
     /** The link as laid out. */
