@@ -25,8 +25,13 @@ package dev.nanoplan.count;
  */
 final class Convolution {
 
-    /** Direct summation is used when a·b is below this multiple of M·log₂M. */
-    static final double DIRECT_FACTOR = 4.0;
+    /**
+     * Direct summation is used when a·b is below this multiple of M·log₂M. Measured crossover
+     * (minimum of 300 runs, this machine, 2026-12-02): at a·b = 2.44·M·log₂M direct 51 µs against
+     * FFT 59 µs (40 × 3000) and 510 µs against 564 µs (60 × 20000); at 6.7·M·log₂M the FFT is 2.4×
+     * faster; equal near 2.7–2.8.
+     */
+    static final double DIRECT_FACTOR = 2.75;
 
     /** Largest twiddle table built so far (see {@link #twiddles(int)}). */
     private static volatile double[] twiddleTable = new double[0];
