@@ -119,6 +119,22 @@ public final class ExactCountModel implements CountModel {
         Window s = part.window(shared);
         Window g = windowOf(given);
         List<CountPmf> out = new ArrayList<>(own.size());
+        if (s.length() >= FUSE_MIN_CELLS && g.length() >= FUSE_MIN_CELLS) {
+            // both wide: each level's own window convolved with s and g in one pass
+            // (Convolution.convolveEach), instead of own ⊗ s and then (own ⊗ s) ⊗ g
+            Window[] w = new Window[own.size()];
+            double[][] cells = new double[own.size()][];
+            for (int i = 0; i < w.length; i++) {
+                w[i] = part.window(own.get(i));
+                cells[i] = w[i].p;
+            }
+            double[][] sums = Convolution.convolveEach(s.p, g.p, cells);
+            Window sg = accounted(s, g, null);
+            for (int i = 0; i < w.length; i++) {
+                out.add(accounted(w[i], sg, sums[i]).trimMore(third / 4).toPmf());
+            }
+            return out;
+        }
         for (CountLaw o : own) {
             Window w = merge(part.window(o), s).trimMore(third / 4);
             out.add(merge(w, g).trimMore(third / 4).toPmf());
