@@ -47,14 +47,23 @@ final class CountWindow {
             // sums run over the level's own cells only; outside them they are constant (adding
             // the zero masses there would not change a bit), which matters when the union
             // window is much wider than one level's window
-            for (int k = from[i]; k < to[i]; k++) {
-                p[k + 1] = p[k] + m[k];
+            // the prefix (forward) and suffix (backward) sums are two independent chains of
+            // additions: one loop runs both, so the processor overlaps their latencies; each chain
+            // adds the same terms in the same order as a loop of its own (same bits)
+            int lo = from[i];
+            int hi = to[i];
+            double up = p[lo];
+            double down = s[hi];
+            for (int j = 0, n = hi - lo; j < n; j++) {
+                int k = lo + j;
+                up += m[k];
+                p[k + 1] = up;
+                int r = hi - 1 - j;
+                down += m[r];
+                s[r] = down;
             }
-            java.util.Arrays.fill(p, to[i] + 1, size + 1, p[to[i]]);
-            for (int k = to[i] - 1; k >= from[i]; k--) {
-                s[k] = s[k + 1] + m[k];
-            }
-            java.util.Arrays.fill(s, 0, from[i], s[from[i]]);
+            java.util.Arrays.fill(p, hi + 1, size + 1, p[hi]);
+            java.util.Arrays.fill(s, 0, lo, s[lo]);
         }
     }
 

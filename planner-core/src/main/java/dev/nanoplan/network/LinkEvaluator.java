@@ -88,8 +88,27 @@ public final class LinkEvaluator {
         return evaluate(spec, interference, interferencePmf, covered, false);
     }
 
+    /**
+     * As {@link #evaluateBest(LinkSpec, List, CountPmf, int)} with the exact pmf of the first
+     * {@code covered} interference terms given as two independent parts, {@code interferencePmfA}
+     * + {@code interferencePmfB} (e.g. a receiver's prefix and suffix crosstalk products): the
+     * exact model convolves each level's own terms with both in one pass
+     * ({@link ExactCountModel#pmfs(CountPmf, CountPmf, CountLaw, List)}), which equals convolving
+     * the two first up to truncation (below 1e-15) and FFT rounding. With another count model the
+     * pmfs are ignored (may be null).
+     */
+    public static LinkEvaluation evaluateBest(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmfA,
+            CountPmf interferencePmfB, int covered) {
+        return evaluate(spec, interference, interferencePmfA, interferencePmfB, covered, false);
+    }
+
     private static LinkEvaluation evaluate(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf,
             int covered, boolean curves) {
+        return evaluate(spec, interference, interferencePmf, null, covered, curves);
+    }
+
+    private static LinkEvaluation evaluate(LinkSpec spec, List<CountTerm> interference, CountPmf interferencePmf,
+            CountPmf interferencePmfB, int covered, boolean curves) {
         if (covered < 0 || covered > interference.size()) {
             throw new IllegalArgumentException("covered: must be in 0.." + interference.size() + ", got " + covered);
         }
@@ -103,9 +122,14 @@ public final class LinkEvaluator {
         for (int i = 0; i < m; i++) {
             own.add(CountLaw.of(new BinomialTerm(spec.molecules(i), spec.tap(0))));
         }
-        List<CountPmf> pmfs = interferencePmf != null && model instanceof ExactCountModel exact
-                ? exact.pmfs(interferencePmf, sharedLaw(spec, interference.subList(covered, interference.size())), own)
-                : model.pmfs(sharedLaw(spec, interference), own);
+        List<CountPmf> pmfs;
+        if (interferencePmf != null && model instanceof ExactCountModel exact) {
+            CountLaw rest = sharedLaw(spec, interference.subList(covered, interference.size()));
+            pmfs = interferencePmfB != null ? exact.pmfs(interferencePmf, interferencePmfB, rest, own)
+                    : exact.pmfs(interferencePmf, rest, own);
+        } else {
+            pmfs = model.pmfs(sharedLaw(spec, interference), own);
+        }
         double truncated = 0;
         for (CountPmf p : pmfs) {
             truncated = Math.max(truncated, p.truncatedMass());

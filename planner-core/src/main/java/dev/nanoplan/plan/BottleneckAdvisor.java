@@ -101,7 +101,7 @@ final class BottleneckAdvisor {
     static Long moleculesFor(LinkContext ctx, double targetBits) {
         long lo = ctx.emitter.moleculesPerSymbol();
         long hi = lo;
-        while (ctx.withMolecules(hi).capacityBits() < targetBits) {
+        while (ctx.withMoleculesBits(hi) < targetBits) {
             lo = hi;
             hi *= 2;
             if (hi > MAX_MOLECULES) {
@@ -110,7 +110,7 @@ final class BottleneckAdvisor {
         }
         while (hi - lo > Math.max(1, lo / 100)) {
             long mid = lo + (hi - lo) / 2;
-            if (ctx.withMolecules(mid).capacityBits() >= targetBits) {
+            if (ctx.withMoleculesBits(mid) >= targetBits) {
                 hi = mid;
             } else {
                 lo = mid;

@@ -1,6 +1,7 @@
 package dev.nanoplan.plan;
 
 import dev.nanoplan.count.CountModelKind;
+import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.count.CountTerm;
 import dev.nanoplan.network.AnalyticChannel;
 import dev.nanoplan.network.ChannelEntry;
@@ -45,6 +46,8 @@ final class LinkContext {
     final List<CountTerm> terms;
     /** The receiver's shared crosstalk, or null (then built per evaluation). */
     private volatile ReceiverCrosstalk shared;
+    /** {@link #whatIfBaselineBits()} once computed, else NaN. */
+    private volatile double baselineBits = Double.NaN;
     /** Rank of this link's emitter among the emitters heard at the receiver ({@link Crosstalk.Prepared}). */
     private final int rank;
 
@@ -155,7 +158,9 @@ final class LinkContext {
             return LinkEvaluator.evaluateBest(spec, terms, null, terms.size());
         }
         int covered = terms.size() - (rc.hasRemainder(rank) ? 1 : 0);
-        return LinkEvaluator.evaluateBest(spec, terms, rc.pmfWithout(rank), covered);
+        CountPmf[] parts = rc.partsWithout(rank);
+        return parts.length == 2 ? LinkEvaluator.evaluateBest(spec, terms, parts[0], parts[1], covered)
+                : LinkEvaluator.evaluateBest(spec, terms, parts[0], covered);
     }
 
     /** The link as laid out. */
@@ -177,10 +182,24 @@ final class LinkContext {
                 symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), terms, floorBits);
     }
 
-    /** Capacity of the link as laid out, with the what-if model. */
+    /**
+     * Capacity of the link as laid out, with the what-if model; computed once (the limited_by
+     * what-ifs and the molecule advice both start from it; the evaluation is deterministic, so the
+     * cached value is the one a new evaluation would give).
+     */
     double whatIfBaselineBits() {
-        return whatIf(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(),
-                scenario.medium().backgroundMoleculesPerS(), interferers).capacityBits();
+        double c = baselineBits;
+        if (Double.isNaN(c)) {
+            c = whatIf(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(),
+                    scenario.medium().backgroundMoleculesPerS(), interferers).capacityBits();
+            baselineBits = c;
+        }
+        return c;
+    }
+
+    /** {@code withMolecules(top).capacityBits()}, from {@link #whatIfBaselineBits()} when {@code top} is as laid out. */
+    double withMoleculesBits(long top) {
+        return top == emitter.moleculesPerSymbol() ? whatIfBaselineBits() : withMolecules(top).capacityBits();
     }
 
     /** Capacity without ISI (earlier symbols leave nothing). */

@@ -72,6 +72,23 @@ final class ReceiverCrosstalk {
         return base;
     }
 
+    /**
+     * {@link #pmfWithout(int)} as two independent parts whose sum it is, {P_e, S_{e+1}}, when the
+     * emitter of rank {@code rank} is among the top K + 1 and both parts are non-trivial (then the
+     * caller convolves the link's own terms with both in one pass instead of building their sum
+     * first); otherwise the one-element array {pmfWithout(rank)}.
+     */
+    synchronized CountPmf[] partsWithout(int rank) {
+        if (rank >= 0 && rank < top) {
+            CountPmf before = prefix(rank);
+            CountPmf after = suffix(rank + 1);
+            if (before != POINT && after != POINT) {
+                return new CountPmf[] {before, after};
+            }
+        }
+        return new CountPmf[] {pmfWithout(rank)};
+    }
+
     /** Whether {@link #termsWithout(int)} ends with a moment-matched remainder term. */
     boolean hasRemainder(int rank) {
         return prepared.remainderWithout(rank, exactCount) != null;

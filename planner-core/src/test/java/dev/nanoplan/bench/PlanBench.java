@@ -42,10 +42,26 @@ public class PlanBench {
         return NetworkPlanner.plan(scenario, PlanOptions.DEFAULT);
     }
 
-    /** Single run: args[0] = nodes (default 10,000); prints wall time, links, routes and heap used. */
+    /**
+     * Single run: args[0] = nodes (default 10,000); prints wall time, links, routes and heap used.
+     * Optional args[1] = number of earlier plans of the same swarm in the same JVM, each printed
+     * with its wall and process CPU time (to tell JIT warm-up from the planner's own work; the
+     * figures on the last line are those of the last plan).
+     */
     public static void main(String[] args) {
         int n = args.length > 0 ? Integer.parseInt(args[0]) : 10_000;
+        int warmups = args.length > 1 ? Integer.parseInt(args[1]) : 0;
         Scenario s = SwarmGenerator.generate(n, 1);
+        com.sun.management.OperatingSystemMXBean os = java.lang.management.ManagementFactory
+                .getPlatformMXBean(com.sun.management.OperatingSystemMXBean.class);
+        for (int i = 0; i < warmups; i++) {
+            long c0 = os.getProcessCpuTime();
+            long w0 = System.nanoTime();
+            NetworkPlanner.plan(s, PlanOptions.DEFAULT);
+            System.out.printf("earlier plan %d: time=%.2f s processCpu=%.1f s%n", i + 1, (System.nanoTime() - w0) / 1e9,
+                    (os.getProcessCpuTime() - c0) / 1e9);
+        }
+        long cpu0 = warmups > 0 ? os.getProcessCpuTime() : 0;
         long t0 = System.nanoTime();
         double[] last = {0};
         Plan p = NetworkPlanner.plan(s, PlanOptions.DEFAULT.withProgress(f -> {
@@ -66,8 +82,7 @@ public class PlanBench {
                 peak += pool.getPeakUsage().getUsed();
             }
         }
-        double cpuS = java.lang.management.ManagementFactory.getPlatformMXBean(com.sun.management.OperatingSystemMXBean.class)
-                .getProcessCpuTime() / 1e9;
+        double cpuS = (os.getProcessCpuTime() - cpu0) / 1e9;
         System.out.printf("nodes=%d time=%.2f s processCpu=%.1f s links=%d routes=%d reachable=%d budgets=%d heapUsed=%d MB"
                 + " peakHeapPools=%d MB max=%d MB load=%.2f%n",
                 n, (t1 - t0) / 1e9, cpuS, p.links().size(), p.routes().size(), reachable, p.budgets().size(),

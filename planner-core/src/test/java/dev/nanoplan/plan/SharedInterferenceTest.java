@@ -21,7 +21,8 @@ import org.junit.jupiter.params.provider.MethodSource;
 /**
  * The shared crosstalk of a receiver ({@link ReceiverCrosstalk}, {@link Crosstalk.Prepared}) against the
  * per-link path ({@link Crosstalk#terms(List, int)} and a full convolution per link) on random small
- * receivers: same terms bit for bit, same capacity within 1e-9 bit.
+ * receivers: same terms bit for bit, same capacity within 1e-9 bit, also when the exactly treated
+ * crosstalk is passed as its prefix and suffix parts ({@link ReceiverCrosstalk#partsWithout(int)}).
  */
 class SharedInterferenceTest {
 
@@ -80,6 +81,16 @@ class SharedInterferenceTest {
             assertThat(viaShared.capacityBits()).as("seed %d link %d", seed, i)
                     .isCloseTo(perLink.capacityBits(), within(1e-9));
             assertThat(viaShared.minErrorProbability()).as("seed %d link %d", seed, i)
+                    .isCloseTo(perLink.minErrorProbability(), within(1e-9 + 1e-6 * perLink.minErrorProbability()));
+            // the same crosstalk as two parts (prefix and suffix products), convolved with the levels in one pass
+            dev.nanoplan.count.CountPmf[] parts = shared.partsWithout(rank);
+            LinkEvaluation viaParts = parts.length == 2
+                    ? LinkEvaluator.evaluateBest(spec, reference, parts[0], parts[1], covered)
+                    : LinkEvaluator.evaluateBest(spec, reference, parts[0], covered);
+            // Feller 1968 §XI.2 as above: convolution is associative
+            assertThat(viaParts.capacityBits()).as("seed %d link %d, parts", seed, i)
+                    .isCloseTo(perLink.capacityBits(), within(1e-9));
+            assertThat(viaParts.minErrorProbability()).as("seed %d link %d, parts", seed, i)
                     .isCloseTo(perLink.minErrorProbability(), within(1e-9 + 1e-6 * perLink.minErrorProbability()));
             if (i % 3 == 0) {
                 shared.release();
