@@ -91,6 +91,38 @@ public final class SharedRates {
     }
 
     /**
+     * One warning per emitter whose shared stream leaves some demand through it below the scenario's
+     * {@code targets.min_rate_bits_per_s} although the demand alone would meet it, with what to do.
+     * Empty when the target is 0.
+     */
+    public static List<String> warnings(Plan plan) {
+        double target = plan.scenario().targets().minRateBitsPerS();
+        List<String> out = new ArrayList<>();
+        if (!(target > 0)) {
+            return out;
+        }
+        List<Share> shares = of(plan);
+        Map<String, List<String>> starved = new LinkedHashMap<>();
+        Map<String, Share> byEmitter = new HashMap<>();
+        for (int i = 0; i < shares.size(); i++) {
+            Share sh = shares.get(i);
+            RouteReport r = plan.routes().get(i);
+            if (sh.limitedAt() != null && sh.rateBitsPerS() < target && r.rateBitsPerS() >= target) {
+                starved.computeIfAbsent(sh.limitedAt(), k -> new ArrayList<>()).add(r.from() + " -> " + r.to());
+                byEmitter.put(sh.limitedAt(), sh);
+            }
+        }
+        starved.forEach((emitter, demands) -> {
+            Share sh = byEmitter.get(emitter);
+            out.add(String.format(java.util.Locale.ROOT, "%s's stream carries %d demands: %s get %.3g bit/s each when "
+                    + "they share it, below the target %.3g bit/s they would meet alone; spread them over more relays "
+                    + "or species", emitter, sh.sharedWith(), String.join(", ", demands),
+                    sh.rateBitsPerS(), target));
+        });
+        return out;
+    }
+
+    /**
      * Progressive filling.
      *
      * @param flowCap     each flow's own ceiling, ≥ 0 (0 = the flow gets nothing)

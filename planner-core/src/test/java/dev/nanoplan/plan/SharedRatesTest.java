@@ -83,6 +83,16 @@ class SharedRatesTest {
         }
         load.forEach((e, l) -> assertThat(l).as("load on %s", e).isLessThanOrEqualTo(stream.get(e) * (1 + 1e-9)));
         assertThat(anyShared).isTrue();
+        // the file asks 0.3 bit/s per demand: every demand through a relay that meets it alone but not shared is
+        // named in one warning per relay
+        for (int i = 0; i < shares.size(); i++) {
+            SharedRates.Share sh = shares.get(i);
+            RouteReport r = plan.routes().get(i);
+            boolean starved = sh.limitedAt() != null && sh.rateBitsPerS() < 0.3 && r.rateBitsPerS() >= 0.3;
+            String demand = r.from() + " -> " + r.to();
+            assertThat(plan.warnings().stream().anyMatch(w -> w.startsWith(sh.limitedAt() + "'s stream carries")
+                    && w.contains(demand + ",") || w.contains(demand + " get"))).as(demand).isEqualTo(starved);
+        }
     }
 
     static LongStream seeds() {
