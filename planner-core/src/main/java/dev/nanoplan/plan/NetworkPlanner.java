@@ -166,6 +166,28 @@ public final class NetworkPlanner {
         }
     }
 
+    /**
+     * The impairment whose removal raises capacity most (gains in bits), or SIGNAL when even the best
+     * gain closes less than {@link #HELPS_FRACTION} of the gap to log2 M ({@code gapBits}).
+     */
+    static Impairment limitedBy(double gainNoIsiBits, double gainNoCrosstalkBits, double gainNoNoiseBits,
+            double gapBits) {
+        Impairment limited = Impairment.SIGNAL;
+        double best = HELPS_FRACTION * gapBits;
+        if (gainNoIsiBits > best) {
+            limited = Impairment.ISI;
+            best = gainNoIsiBits;
+        }
+        if (gainNoCrosstalkBits > best) {
+            limited = Impairment.CROSSTALK;
+            best = gainNoCrosstalkBits;
+        }
+        if (gainNoNoiseBits > best) {
+            limited = Impairment.NOISE;
+        }
+        return limited;
+    }
+
     static String key(String from, String to) {
         return from + '\u0000' + to;
     }
@@ -279,19 +301,7 @@ public final class NetworkPlanner {
         double gIsi = ev.isiMeanMolecules() > 0 ? ctx.capacityWithoutIsi() - cw : 0;
         double gXt = others.isEmpty() ? 0 : ctx.capacityWithoutCrosstalk() - cw;
         double gNoise = ev.backgroundMeanMolecules() > 0 ? ctx.capacityWithoutNoise() - cw : 0;
-        Impairment limited = Impairment.SIGNAL;
-        double best = HELPS_FRACTION * (maxBits - c);
-        if (gIsi > best) {
-            limited = Impairment.ISI;
-            best = gIsi;
-        }
-        if (gXt > best) {
-            limited = Impairment.CROSSTALK;
-            best = gXt;
-        }
-        if (gNoise > best) {
-            limited = Impairment.NOISE;
-        }
+        Impairment limited = limitedBy(gIsi, gXt, gNoise, maxBits - c);
         String top = null;
         double topMean = 0;
         double sum = 0;

@@ -321,19 +321,7 @@ public final class PreviewPlanner {
                     - cw : 0;
             double gNoise = background > 0 ? capacity(lv, p0, own.isiMean() + xtMean, own.isiVariance() + xtVar, none,
                     q) - cw : 0;
-            Impairment limited = Impairment.SIGNAL;
-            double best = NetworkPlanner.HELPS_FRACTION * (maxBits - c);
-            if (gIsi > best) {
-                limited = Impairment.ISI;
-                best = gIsi;
-            }
-            if (gXt > best) {
-                limited = Impairment.CROSSTALK;
-                best = gXt;
-            }
-            if (gNoise > best) {
-                limited = Impairment.NOISE;
-            }
+            Impairment limited = NetworkPlanner.limitedBy(gIsi, gXt, gNoise, maxBits - c);
             int top = top1 == i ? top2 : top1;
             String topId = top >= 0 && mom[top].mean() > 0 ? entries.get(top).emitter() : null;
             double share = topId != null && xtMean > 0 ? Math.min(1, mom[top].mean() / xtMean) : 0;
