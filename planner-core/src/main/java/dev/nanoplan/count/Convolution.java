@@ -105,17 +105,7 @@ final class Convolution {
         double[] im = new double[m];
         System.arraycopy(a, 0, re, 0, a.length);
         System.arraycopy(b, 0, im, 0, b.length);
-        forwardDif(re, im, tw);
-        // product spectrum in place, each conjugate pair (k, m − k) once. In bit-reversed order
-        // positions 0 (k = 0) and 1 (k = m/2) pair with themselves, and for 2^j ≤ p < 2^{j+1} the
-        // partner of p is 3·2^j − 1 − p (the block read from both ends, sequentially)
-        product(re, im, 0, 0);
-        product(re, im, 1, 1);
-        for (int lo = 2; lo < m; lo <<= 1) {
-            for (int p = lo, q = 2 * lo - 1; p < q; p++, q--) {
-                product(re, im, p, q);
-            }
-        }
+        productSpectrum(re, im, tw);
         // fold to half length: Y_k = E_k + i·O_k at bit-reversed position p (k = rev_{m/2}(p))
         int h = m >> 1;
         int hShift = 33 - bits;
@@ -201,14 +191,7 @@ final class Convolution {
         double[] gi = new double[m];
         System.arraycopy(p, 0, gr, 0, p.length);
         System.arraycopy(s, 0, gi, 0, s.length);
-        forwardDif(gr, gi, tw);
-        product(gr, gi, 0, 0);
-        product(gr, gi, 1, 1);
-        for (int lo = 2; lo < m; lo <<= 1) {
-            for (int a = lo, b = 2 * lo - 1; a < b; a++, b--) {
-                product(gr, gi, a, b);
-            }
-        }
+        productSpectrum(gr, gi, tw);
         double scale = 1.0 / m;
         double[] re = new double[m];
         double[] im = new double[m];
@@ -270,6 +253,24 @@ final class Convolution {
      * Replaces Z at positions p and q (holding Z_k and Z_{m−k}) by the product spectrum
      * C_k = (Z_k² − conj(Z_{m−k})²)/(4i) and C_{m−k} = conj(C_k) (the output is real).
      */
+    /**
+     * Transforms the packed pair re + i·im (bit-reversed output) and replaces it in place by the
+     * spectrum of the product of the two real sequences, each conjugate pair (k, m − k) once. In
+     * bit-reversed order positions 0 (k = 0) and 1 (k = m/2) pair with themselves, and for
+     * 2^j ≤ p &lt; 2^{j+1} the partner of p is 3·2^j − 1 − p (the block read from both ends, sequentially).
+     */
+    private static void productSpectrum(double[] re, double[] im, double[] tw) {
+        forwardDif(re, im, tw);
+        int m = re.length;
+        product(re, im, 0, 0);
+        product(re, im, 1, 1);
+        for (int lo = 2; lo < m; lo <<= 1) {
+            for (int p = lo, q = 2 * lo - 1; p < q; p++, q--) {
+                product(re, im, p, q);
+            }
+        }
+    }
+
     private static void product(double[] re, double[] im, int p, int q) {
         double zr = re[p];
         double zi = im[p];

@@ -272,6 +272,12 @@ public final class Crosstalk {
      * under-dispersed, the same variance; null when their mean is 0.
      */
     public static CountTerm momentMatched(List<Interferer> rest) {
+        double[] mv = meanAndVariance(rest);
+        return momentMatched(mv[0], mv[1]);
+    }
+
+    /** Total mean and variance of the interferers' terms. */
+    private static double[] meanAndVariance(List<Interferer> rest) {
         double mean = 0;
         double var = 0;
         for (Interferer i : rest) {
@@ -280,7 +286,7 @@ public final class Crosstalk {
                 var += t.variance();
             }
         }
-        return momentMatched(mean, var);
+        return new double[] {mean, var};
     }
 
     /** The moment-matched term for a total mean and variance (see {@link #momentMatched(List)}). */
@@ -304,14 +310,7 @@ public final class Crosstalk {
      * applies).
      */
     public static double remainderVarianceDeficit(List<Interferer> rest) {
-        double mean = 0;
-        double var = 0;
-        for (Interferer i : rest) {
-            for (CountTerm t : i.terms()) {
-                mean += t.mean();
-                var += t.variance();
-            }
-        }
-        return Math.max(0, var - mean);
+        double[] mv = meanAndVariance(rest);
+        return Math.max(0, mv[1] - mv[0]);
     }
 }

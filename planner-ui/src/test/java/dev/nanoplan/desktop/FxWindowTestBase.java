@@ -1,10 +1,12 @@
 package dev.nanoplan.desktop;
 
+import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 import javafx.application.Platform;
+import javafx.scene.Scene;
 import javafx.stage.Stage;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Assumptions;
@@ -40,6 +42,24 @@ abstract class FxWindowTestBase {
         if (bg != null) {
             bg.shutdownNow();
         }
+    }
+
+    /** The planner's view model and the main window's view. */
+    record Window(PlannerViewModel vm, MainView view) {
+    }
+
+    /**
+     * Opens an empty main window (1200 × 760) on the core planner; call on the FX thread after
+     * setting {@link #bg}. {@code simulationCacheDir} null = the application's default.
+     */
+    Window showMainWindow(Path simulationCacheDir) {
+        PlannerViewModel vm = new PlannerViewModel(PlanService.core(), Platform::runLater, bg, 0,
+                new RecentFiles(null));
+        MainView view = simulationCacheDir == null ? new MainView(vm, null) : new MainView(vm, null, simulationCacheDir);
+        stage = new Stage();
+        stage.setScene(new Scene(view.root(), 1200, 760));
+        stage.show();
+        return new Window(vm, view);
     }
 
     /** Runs {@code c} on the FX thread and returns its result (60 s at most). */

@@ -9,16 +9,13 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.TimeUnit;
-import javafx.application.Platform;
 import javafx.scene.Node;
 import javafx.scene.Parent;
-import javafx.scene.Scene;
 import javafx.scene.SnapshotParameters;
 import javafx.scene.input.MouseButton;
 import javafx.scene.input.MouseEvent;
 import javafx.scene.shape.Cylinder;
 import javafx.scene.shape.Sphere;
-import javafx.stage.Stage;
 import javax.imageio.ImageIO;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
@@ -36,20 +33,12 @@ class MainWindowTest extends FxWindowTestBase {
 
     static final Path SCENARIOS = Path.of("..", "scenarios");
 
-    record Window(PlannerViewModel vm, MainView view) {
-    }
-
     Window open(String name) throws Exception {
         bg = PlannerViewModel.daemonScheduler();
         Window w = onFx(() -> {
-            PlannerViewModel vm = new PlannerViewModel(PlanService.core(), Platform::runLater, bg, 0,
-                    new RecentFiles(null));
-            MainView view = new MainView(vm, null);
-            stage = new Stage();
-            stage.setScene(new Scene(view.root(), 1200, 760));
-            stage.show();
-            assertThat(vm.open(SCENARIOS.resolve(name + ".json"))).isTrue();
-            return new Window(vm, view);
+            Window shown = showMainWindow(null);
+            assertThat(shown.vm().open(SCENARIOS.resolve(name + ".json"))).isTrue();
+            return shown;
         });
         w.vm().planned().get(150, TimeUnit.SECONDS);
         WaitForAsyncUtils.waitForFxEvents();

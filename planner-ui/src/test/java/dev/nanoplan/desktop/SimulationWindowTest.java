@@ -6,8 +6,6 @@ import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
 import java.nio.file.Path;
 import java.util.concurrent.TimeUnit;
-import javafx.application.Platform;
-import javafx.scene.Scene;
 import javafx.geometry.Bounds;
 import javafx.scene.control.Button;
 import javafx.scene.control.CheckBox;
@@ -20,7 +18,6 @@ import javafx.scene.paint.Color;
 import javafx.scene.paint.LinearGradient;
 import javafx.scene.paint.Paint;
 import javafx.scene.text.Text;
-import javafx.stage.Stage;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
@@ -40,15 +37,10 @@ class SimulationWindowTest extends FxWindowTestBase {
     void simulationTabRunsTheLayoutAndFillsTheTable() throws Exception {
         bg = PlannerViewModel.daemonScheduler();
         PlannerViewModel vm = onFx(() -> {
-            PlannerViewModel v = new PlannerViewModel(PlanService.core(), Platform::runLater, bg, 0,
-                    new RecentFiles(null));
-            MainView view = new MainView(v, null, cacheDir);
-            stage = new Stage();
-            stage.setScene(new Scene(view.root(), 1200, 760));
-            stage.show();
-            assertThat(v.open(MainWindowTest.SCENARIOS.resolve("relay-chain-direct.json"))).isTrue();
-            assertThat(view.showTab("Simulation")).isTrue();
-            return v;
+            Window w = showMainWindow(cacheDir);
+            assertThat(w.vm().open(MainWindowTest.SCENARIOS.resolve("relay-chain-direct.json"))).isTrue();
+            assertThat(w.view().showTab("Simulation")).isTrue();
+            return w.vm();
         });
         vm.planned().get(150, TimeUnit.SECONDS);
         WaitForAsyncUtils.waitForFxEvents();
@@ -107,12 +99,7 @@ class SimulationWindowTest extends FxWindowTestBase {
     void theTimeStepPromptIsReadableAndItsHintBesideTheField() throws Exception {
         bg = PlannerViewModel.daemonScheduler();
         SimulationView sv = onFx(() -> {
-            PlannerViewModel v = new PlannerViewModel(PlanService.core(), Platform::runLater, bg, 0,
-                    new RecentFiles(null));
-            MainView view = new MainView(v, null, cacheDir);
-            stage = new Stage();
-            stage.setScene(new Scene(view.root(), 1200, 760));
-            stage.show();
+            MainView view = showMainWindow(cacheDir).view();
             assertThat(view.showTab("Simulation")).isTrue();
             return (SimulationView) view.tabs().getSelectionModel().getSelectedItem().getContent().getUserData();
         });
