@@ -1,5 +1,7 @@
 package dev.nanoplan.count;
 
+import java.util.Arrays;
+
 /**
  * Linear convolution of non-negative sequences: direct summation for narrow operands, a
  * hand-written radix-2 FFT for wide × wide.
@@ -197,8 +199,8 @@ final class Convolution {
         double[] im = new double[m];
         for (int i = 0; i < each.length; i += 2) {
             if (i > 0) {
-                java.util.Arrays.fill(re, 0);
-                java.util.Arrays.fill(im, 0);
+                Arrays.fill(re, 0);
+                Arrays.fill(im, 0);
             }
             // the two outputs share the transform's round-off: bring both inputs to a sum in [1, 2)
             // (exact power-of-two scaling, undone below; none for pmfs) so neither swamps the other

@@ -2,6 +2,7 @@ package dev.nanoplan.plan;
 
 import dev.nanoplan.info.BinaryChannel;
 import dev.nanoplan.info.BlahutArimoto;
+import java.util.Arrays;
 import org.apache.commons.numbers.gamma.Erfc;
 import org.apache.commons.numbers.gamma.Erfcx;
 
@@ -458,7 +459,7 @@ public final class NormalLinkApproximation {
                 order[i] = i;
                 tv[i] = Math.abs(1 - e0[i] - e1[i]);
             }
-            java.util.Arrays.sort(order, (x, y) -> Double.compare(tv[y], tv[x]));
+            Arrays.sort(order, (x, y) -> Double.compare(tv[y], tv[x]));
             for (int i : order) {
                 if (tv[i] <= best) {
                     break;

@@ -1,10 +1,13 @@
 package dev.nanoplan.plan;
 
+import dev.nanoplan.scenario.Schedule;
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Set;
 
 /**
  * Side-by-side comparison of two plans, demand by demand (matched by from/to).
@@ -54,7 +57,7 @@ public record PlanComparison(String nameA, String nameB, List<Row> rows) {
         Map<String, RouteReport> inB = new HashMap<>();
         b.routes().forEach(r -> inB.put(NetworkPlanner.key(r.from(), r.to()), r));
         List<Row> rows = new ArrayList<>();
-        java.util.Set<String> seen = new java.util.HashSet<>();
+        Set<String> seen = new HashSet<>();
         for (RouteReport r : a.routes()) {
             String k = NetworkPlanner.key(r.from(), r.to());
             if (seen.add(k)) {
@@ -73,7 +76,7 @@ public record PlanComparison(String nameA, String nameB, List<Row> rows) {
     /** The scenario's name, followed by its schedule when that is not all-active (rates differ in kind). */
     static String label(Plan p) {
         var schedule = p.scenario().signalling().schedule();
-        return schedule == dev.nanoplan.scenario.Schedule.ALL_ACTIVE ? p.scenario().name()
+        return schedule == Schedule.ALL_ACTIVE ? p.scenario().name()
                 : p.scenario().name() + " [schedule " + schedule.id() + "]";
     }
 

@@ -4,9 +4,11 @@ import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.PriorityQueue;
+import java.util.Set;
 import org.jgrapht.Graph;
 
 /**
@@ -122,7 +124,7 @@ public final class WidestPathFinder<V, E> {
                 new PriorityQueue<>((a, b) -> Double.compare(b.getValue(), a.getValue()));
         label.put(source, Double.POSITIVE_INFINITY);
         heap.add(Map.entry(source, Double.POSITIVE_INFINITY));
-        java.util.Set<V> settled = new java.util.HashSet<>();
+        Set<V> settled = new HashSet<>();
         while (!heap.isEmpty()) {
             Map.Entry<V, Double> top = heap.poll();
             V u = top.getKey();

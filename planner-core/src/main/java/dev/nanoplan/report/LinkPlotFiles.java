@@ -4,7 +4,9 @@ import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.detect.BinaryDetection;
 import dev.nanoplan.detect.FirstThresholdSweep;
 import dev.nanoplan.detect.MultiLevelResult;
+import dev.nanoplan.io.AtomicFiles;
 import dev.nanoplan.network.LinkEvaluation;
+import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
@@ -73,7 +75,7 @@ public final class LinkPlotFiles {
         } else {
             RasterCanvas c = new RasterCanvas(WIDTH, HEIGHT);
             draw(e, c);
-            java.io.ByteArrayOutputStream buf = new java.io.ByteArrayOutputStream();
+            ByteArrayOutputStream buf = new ByteArrayOutputStream();
             c.writePng(buf);
             AtomicFiles.write(file, buf.toByteArray());
         }

@@ -6,6 +6,7 @@ import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.HashSet;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 
@@ -272,7 +273,7 @@ public final class ScenarioValidator {
         if (v == Math.rint(v) && Math.abs(v) < 1e15) {
             return Long.toString((long) v);
         }
-        String s = String.format(java.util.Locale.ROOT, "%.6g", v);
+        String s = String.format(Locale.ROOT, "%.6g", v);
         if (s.contains("e") || s.contains("E")) {
             return s;
         }

@@ -7,6 +7,7 @@ import com.fasterxml.jackson.core.util.DefaultIndenter;
 import com.fasterxml.jackson.core.util.DefaultPrettyPrinter;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.geometry.Volume;
+import dev.nanoplan.io.AtomicFiles;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
@@ -40,7 +41,7 @@ public final class ScenarioWriter {
      * @throws IOException if the temporary file cannot be written or moved (the target is untouched)
      */
     public static void write(Scenario scenario, Path file) throws IOException {
-        dev.nanoplan.report.AtomicFiles.write(file, out -> write(scenario, out));
+        AtomicFiles.write(file, out -> write(scenario, out));
     }
 
     /** The file text (UTF-8 JSON, ending with a newline). */

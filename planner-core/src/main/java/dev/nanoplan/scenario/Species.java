@@ -1,5 +1,6 @@
 package dev.nanoplan.scenario;
 
+import dev.nanoplan.physics.StokesEinstein;
 import java.util.OptionalDouble;
 
 /**
@@ -49,7 +50,7 @@ public record Species(String name, double diffusionUm2PerS, OptionalDouble hydro
      */
     public static Species ofHydrodynamicRadius(String name, double hydrodynamicRadiusNm, double halfLifeS,
             Medium medium) {
-        double d = dev.nanoplan.physics.StokesEinstein.diffusionUm2PerS(
+        double d = StokesEinstein.diffusionUm2PerS(
                 medium.temperatureK(), medium.viscosityMPaS(), hydrodynamicRadiusNm);
         return new Species(name, d, OptionalDouble.of(hydrodynamicRadiusNm), halfLifeS);
     }

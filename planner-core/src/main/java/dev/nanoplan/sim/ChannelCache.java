@@ -6,7 +6,7 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.geometry.Volume;
-import dev.nanoplan.report.AtomicFiles;
+import dev.nanoplan.io.AtomicFiles;
 import dev.nanoplan.scenario.Flow;
 import dev.nanoplan.scenario.Medium;
 import dev.nanoplan.scenario.Node;

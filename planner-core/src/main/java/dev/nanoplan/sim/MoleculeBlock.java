@@ -1,5 +1,6 @@
 package dev.nanoplan.sim;
 
+import java.util.Arrays;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.sampling.distribution.ZigguratSampler;
 
@@ -50,9 +51,9 @@ final class MoleculeBlock {
         if (n > capacity()) {
             throw new IllegalArgumentException("n: at most " + capacity() + " molecules per block, got " + n);
         }
-        java.util.Arrays.fill(x, 0, n, px);
-        java.util.Arrays.fill(y, 0, n, py);
-        java.util.Arrays.fill(z, 0, n, pz);
+        Arrays.fill(x, 0, n, px);
+        Arrays.fill(y, 0, n, py);
+        Arrays.fill(z, 0, n, pz);
         if (decayRatePerS > 0) {
             ZigguratSampler.Exponential exp = ZigguratSampler.Exponential.of(rng);
             double scale = 1 / (decayRatePerS * timeStepS);
@@ -61,7 +62,7 @@ final class MoleculeBlock {
                 deathStep[i] = steps >= Integer.MAX_VALUE ? Integer.MAX_VALUE : (int) steps;
             }
         } else {
-            java.util.Arrays.fill(deathStep, 0, n, Integer.MAX_VALUE);
+            Arrays.fill(deathStep, 0, n, Integer.MAX_VALUE);
         }
         active = n;
         moleculeSteps = 0;

@@ -6,6 +6,7 @@ import com.tngtech.archunit.core.domain.JavaClasses;
 import com.tngtech.archunit.core.importer.ClassFileImporter;
 import com.tngtech.archunit.core.importer.ImportOption;
 import com.tngtech.archunit.library.GeneralCodingRules;
+import org.assertj.core.api.Assertions;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
@@ -48,6 +49,6 @@ class CoreArchitectureTest {
     @Test
     void coreIsNotEmpty() {
         // guards against the rules above passing vacuously on an empty import
-        org.assertj.core.api.Assertions.assertThat(core.size()).isGreaterThan(5);
+        Assertions.assertThat(core.size()).isGreaterThan(5);
     }
 }

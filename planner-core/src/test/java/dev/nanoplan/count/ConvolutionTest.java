@@ -2,6 +2,7 @@ package dev.nanoplan.count;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import java.util.Arrays;
 import org.apache.commons.math3.complex.Complex;
 import org.apache.commons.math3.transform.DftNormalization;
 import org.apache.commons.math3.transform.FastFourierTransformer;
@@ -95,8 +96,8 @@ class ConvolutionTest {
         int len = a.length + b.length - 1;
         int m = Integer.highestOneBit(len - 1) << 1;
         FastFourierTransformer t = new FastFourierTransformer(DftNormalization.STANDARD);
-        Complex[] fa = t.transform(java.util.Arrays.copyOf(a, m), TransformType.FORWARD);
-        Complex[] fb = t.transform(java.util.Arrays.copyOf(b, m), TransformType.FORWARD);
+        Complex[] fa = t.transform(Arrays.copyOf(a, m), TransformType.FORWARD);
+        Complex[] fb = t.transform(Arrays.copyOf(b, m), TransformType.FORWARD);
         Complex[] prod = new Complex[m];
         for (int k = 0; k < m; k++) {
             prod[k] = fa[k].multiply(fb[k]);
@@ -130,9 +131,9 @@ class ConvolutionTest {
         for (int i = 0; i < each.length; i++) {
             double[] direct = Convolution.direct(Convolution.direct(each[i], p), s);
             int m = Integer.highestOneBit(Math.max(1, direct.length - 1)) << 1;
-            Complex[] fp = t.transform(java.util.Arrays.copyOf(p, m), TransformType.FORWARD);
-            Complex[] fs = t.transform(java.util.Arrays.copyOf(s, m), TransformType.FORWARD);
-            Complex[] fw = t.transform(java.util.Arrays.copyOf(each[i], m), TransformType.FORWARD);
+            Complex[] fp = t.transform(Arrays.copyOf(p, m), TransformType.FORWARD);
+            Complex[] fs = t.transform(Arrays.copyOf(s, m), TransformType.FORWARD);
+            Complex[] fw = t.transform(Arrays.copyOf(each[i], m), TransformType.FORWARD);
             Complex[] prod = new Complex[m];
             for (int k = 0; k < m; k++) {
                 prod[k] = fw[k].multiply(fp[k]).multiply(fs[k]);

@@ -6,6 +6,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
+import org.assertj.core.data.Offset;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 
@@ -35,7 +36,7 @@ class SharedPartPmfsTest {
             // differ by the truncated mass (< 1e-15) and round-off
             for (long y = Math.min(full.offset(), f.offset()); y <= Math.max(full.last(), f.last()); y++) {
                 assertThat(f.probability(y)).isCloseTo(full.probability(y),
-                        org.assertj.core.data.Offset.offset(2e-15 + 1e-11 * full.probability(y)));
+                        Offset.offset(2e-15 + 1e-11 * full.probability(y)));
             }
             assertThat(f.truncatedMass()).isLessThan(1e-15);
         }

@@ -7,6 +7,7 @@ import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
 import org.apache.commons.statistics.distribution.BinomialDistribution;
 import org.apache.commons.statistics.distribution.PoissonDistribution;
+import org.assertj.core.data.Offset;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.CsvSource;
@@ -51,8 +52,8 @@ class TermWindowsTest {
         double below = w.offset == 0 ? 0 : d.cumulativeProbability((int) w.offset - 1);
         double above = d.survivalProbability((int) (w.offset + w.length() - 1));
         // Commons Statistics 1.2 BinomialDistribution cumulative / survival probability
-        assertThat(w.below).isCloseTo(below, org.assertj.core.data.Offset.offset(1e-12 * below + 1e-300));
-        assertThat(w.above).isCloseTo(above, org.assertj.core.data.Offset.offset(1e-12 * above + 1e-300));
+        assertThat(w.below).isCloseTo(below, Offset.offset(1e-12 * below + 1e-300));
+        assertThat(w.above).isCloseTo(above, Offset.offset(1e-12 * above + 1e-300));
         assertThat(w.below).isLessThan(EPS);
         assertThat(w.above).isLessThan(EPS);
     }
@@ -72,7 +73,7 @@ class TermWindowsTest {
         double below = w.offset == 0 ? 0 : d.cumulativeProbability((int) w.offset - 1);
         double above = d.survivalProbability((int) (w.offset + w.length() - 1));
         // Commons Statistics 1.2 PoissonDistribution cumulative / survival probability
-        assertThat(w.below).isCloseTo(below, org.assertj.core.data.Offset.offset(1e-12 * below + 1e-300));
-        assertThat(w.above).isCloseTo(above, org.assertj.core.data.Offset.offset(1e-12 * above + 1e-300));
+        assertThat(w.below).isCloseTo(below, Offset.offset(1e-12 * below + 1e-300));
+        assertThat(w.above).isCloseTo(above, Offset.offset(1e-12 * above + 1e-300));
     }
 }

@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.geometry.Volume;
+import dev.nanoplan.report.PlanText;
 import dev.nanoplan.scenario.Demand;
 import dev.nanoplan.scenario.Medium;
 import dev.nanoplan.scenario.Node;

@@ -13,6 +13,7 @@ import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.network.Crosstalk;
 import dev.nanoplan.network.LinkEvaluator;
 import dev.nanoplan.network.LinkSpec;
+import dev.nanoplan.report.PlanText;
 import dev.nanoplan.scenario.Demand;
 import dev.nanoplan.scenario.Flow;
 import dev.nanoplan.scenario.Medium;

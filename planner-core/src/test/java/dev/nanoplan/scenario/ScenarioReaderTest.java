@@ -9,6 +9,7 @@ import dev.nanoplan.geometry.Volume;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
+import org.assertj.core.data.Offset;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -92,7 +93,7 @@ class ScenarioReaderTest {
         Scenario s = reader.read(TestFiles.scenariosDir().resolve("vessel-segment.json"));
         Species sp = s.species().get(0);
         // First-order decay: lambda = ln 2 / half-life (definition of half-life).
-        assertThat(sp.decayRatePerS()).isCloseTo(Math.log(2) / sp.halfLifeS(), org.assertj.core.data.Offset.offset(1e-15));
+        assertThat(sp.decayRatePerS()).isCloseTo(Math.log(2) / sp.halfLifeS(), Offset.offset(1e-15));
     }
 
     @Test

@@ -88,12 +88,12 @@ class ScenarioWriterTest {
     @Test
     void failedWriteLeavesTheTargetUntouched(@TempDir Path dir) throws IOException {
         // the parent "folder" is a plain file: the temporary file cannot be created
-        Path blocker = java.nio.file.Files.writeString(dir.resolve("not-a-dir"), "x");
+        Path blocker = Files.writeString(dir.resolve("not-a-dir"), "x");
         Path target = blocker.resolve("layout.json");
 
         assertThrows(IOException.class, () -> ScenarioWriter.write(SwarmGenerator.generate(5, 1), target));
 
-        assertThat(java.nio.file.Files.isRegularFile(target)).isFalse();
-        assertThat(java.nio.file.Files.readString(blocker)).isEqualTo("x");
+        assertThat(Files.isRegularFile(target)).isFalse();
+        assertThat(Files.readString(blocker)).isEqualTo("x");
     }
 }

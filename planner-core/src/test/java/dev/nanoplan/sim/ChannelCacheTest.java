@@ -5,6 +5,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.geometry.Volume;
 import dev.nanoplan.scenario.Demand;
+import dev.nanoplan.scenario.Flow;
 import dev.nanoplan.scenario.Medium;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
@@ -23,7 +24,7 @@ class ChannelCacheTest {
 
     private static Scenario layout(String name, long molecules, double rxX, double rxRadius, String txId,
             Targets targets, double backgroundPerS) {
-        return new Scenario(name, new Volume.Open(), new Medium(310.15, 0.69, new dev.nanoplan.scenario.Flow.None(),
+        return new Scenario(name, new Volume.Open(), new Medium(310.15, 0.69, new Flow.None(),
                 backgroundPerS), List.of(Species.stable("A", 100)), Layouts.signalling(0.05, 2),
                 List.of(Node.transmitter(txId, Vec3.ZERO, 1, "A", molecules),
                         Node.receiver("rx", new Vec3(rxX, 0, 0), rxRadius, "A")),

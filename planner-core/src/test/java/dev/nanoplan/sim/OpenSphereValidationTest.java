@@ -2,8 +2,10 @@ package dev.nanoplan.sim;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import dev.nanoplan.geometry.Volume;
 import dev.nanoplan.physics.DecayingSphereHitting;
 import dev.nanoplan.physics.OpenSphereHitting;
+import dev.nanoplan.scenario.Flow;
 import dev.nanoplan.scenario.Scenario;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
@@ -53,7 +55,7 @@ class OpenSphereValidationTest {
         double diff = 100;
         double symbolTimeS = 0.1;
         int memory = 3;
-        Scenario s = Layouts.pair(new dev.nanoplan.geometry.Volume.Open(), new dev.nanoplan.scenario.Flow.None(),
+        Scenario s = Layouts.pair(new Volume.Open(), new Flow.None(),
                 d, r, diff, halfLifeS, symbolTimeS, memory);
         int m = 40_000;
         SimulatedChannel ch = ParticleSimulator.simulate(s, SimulationSettings.of(m, seed));

@@ -13,10 +13,12 @@ import dev.nanoplan.scenario.Species;
 import dev.nanoplan.scenario.Targets;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.OptionalDouble;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.concurrent.atomic.AtomicLong;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
+import org.assertj.core.data.Offset;
 import org.junit.jupiter.api.Test;
 
 class ParticleSimulatorTest {
@@ -42,11 +44,11 @@ class ParticleSimulatorTest {
     void sameSeedGivesIdenticalCountsWithOneOrTwoThreads() {
         Scenario s = boxWithNineReceivers();
         // 2.5 blocks: the last block is partial
-        SimulationSettings one = new SimulationSettings(10_000, 42, java.util.OptionalDouble.of(2e-3), 1);
+        SimulationSettings one = new SimulationSettings(10_000, 42, OptionalDouble.of(2e-3), 1);
         SimulatedChannel a = ParticleSimulator.simulate(s, one);
         SimulatedChannel b = ParticleSimulator.simulate(s, one.withThreads(2));
         SimulatedChannel c = ParticleSimulator.simulate(s, new SimulationSettings(10_000, 43,
-                java.util.OptionalDouble.of(2e-3), 2));
+                OptionalDouble.of(2e-3), 2));
         long differences = 0;
         for (String rx : a.receiverIds()) {
             long[] ca = a.taps("tx", rx).orElseThrow().absorbedPerSlot();
@@ -72,7 +74,7 @@ class ParticleSimulatorTest {
         double dt = new ParticleSimulator(auto).timeStepS(s);
         SimulatedTaps a = ParticleSimulator.simulate(s, auto).taps("tx", "rx").orElseThrow();
         SimulatedTaps b = ParticleSimulator.simulate(s, new SimulationSettings(m, 32,
-                java.util.OptionalDouble.of(dt / 2), 2)).taps("tx", "rx").orElseThrow();
+                OptionalDouble.of(dt / 2), 2)).taps("tx", "rx").orElseThrow();
         double[] ca = Layouts.cumulative(a);
         double[] cb = Layouts.cumulative(b);
         for (int k = 0; k < ca.length; k++) {
@@ -90,10 +92,10 @@ class ParticleSimulatorTest {
         int m = 40_000;
         SimulationSettings auto = SimulationSettings.of(m, 33);
         double dt = new ParticleSimulator(auto).timeStepS(s);
-        assertThat(Math.sqrt(6 * 100 * dt)).isCloseTo(TimeStepRule.STEP_FRACTION, org.assertj.core.data.Offset.offset(0.01));
+        assertThat(Math.sqrt(6 * 100 * dt)).isCloseTo(TimeStepRule.STEP_FRACTION, Offset.offset(0.01));
         SimulatedTaps a = ParticleSimulator.simulate(s, auto).taps("tx", "rx").orElseThrow();
         SimulatedTaps b = ParticleSimulator.simulate(s, new SimulationSettings(m, 34,
-                java.util.OptionalDouble.of(dt / 2), 2)).taps("tx", "rx").orElseThrow();
+                OptionalDouble.of(dt / 2), 2)).taps("tx", "rx").orElseThrow();
         double[] ca = Layouts.cumulative(a);
         double[] cb = Layouts.cumulative(b);
         for (int k = 0; k < ca.length; k++) {
@@ -196,7 +198,7 @@ class ParticleSimulatorTest {
         AtomicInteger calls = new AtomicInteger();
         AtomicLong last = new AtomicLong();
         SimulatedChannel ch = new ParticleSimulator(new SimulationSettings(100_000, 5,
-                java.util.OptionalDouble.of(2e-3), 2)).simulate(s, (done, total) -> {
+                OptionalDouble.of(2e-3), 2)).simulate(s, (done, total) -> {
                     calls.incrementAndGet();
                     last.accumulateAndGet(done, Math::max);
                     assertThat(total).isEqualTo(100_000);
@@ -220,23 +222,23 @@ class ParticleSimulatorTest {
         Scenario s = Layouts.openPair(3, 1, 100, 0.01, 0);
         double auto = TimeStepRule.automaticTimeStepS(s);
         // T/50 = 2e-4 s is below the geometric bound (0.4 µm)²/(6D) = 2.67e-4 s
-        assertThat(auto).isCloseTo(0.01 / 50, org.assertj.core.data.Offset.offset(1e-15));
+        assertThat(auto).isCloseTo(0.01 / 50, Offset.offset(1e-15));
         Scenario longer = Layouts.openPair(3, 1, 100, 0.05, 0);
         // √(6DΔt) = 0.4 × min(r, d − r) = 0.4 µm
         assertThat(Math.sqrt(6 * 100 * TimeStepRule.automaticTimeStepS(longer)))
-                .isCloseTo(0.4, org.assertj.core.data.Offset.offset(1e-12));
-        Scenario drifting = Layouts.pair(new Volume.Open(), new dev.nanoplan.scenario.Flow.Uniform(new Vec3(300, 0, 400)),
+                .isCloseTo(0.4, Offset.offset(1e-12));
+        Scenario drifting = Layouts.pair(new Volume.Open(), new Flow.Uniform(new Vec3(300, 0, 400)),
                 10, 2, 100, Double.POSITIVE_INFINITY, 1, 0);
         double dtDrift = TimeStepRule.automaticTimeStepS(drifting);
         // diffusive rms step plus drift step |v|Δt (|v| = 500 µm/s) = 0.4 × min(r, d − r) = 0.8 µm
-        assertThat(Math.sqrt(6 * 100 * dtDrift) + 500 * dtDrift).isCloseTo(0.8, org.assertj.core.data.Offset.offset(1e-12));
+        assertThat(Math.sqrt(6 * 100 * dtDrift) + 500 * dtDrift).isCloseTo(0.8, Offset.offset(1e-12));
         Scenario vessel = new Scenario("vessel", new Volume.Cylinder(5, 400), Medium.DEFAULT,
                 List.of(Species.stable("A", 100)), Layouts.signalling(1, 0),
                 List.of(Node.transmitter("tx", new Vec3(50, 0, 0), 0.5, "A", 1000),
                         Node.receiver("rx", new Vec3(150, 0, 0), 3, "A")), List.of(), Targets.DEFAULT);
         // per-axis step √(2DΔt) = 0.1 R = 0.5 µm in a cylinder of radius 5 µm
         assertThat(Math.sqrt(2 * 100 * TimeStepRule.automaticTimeStepS(vessel)))
-                .isCloseTo(0.5, org.assertj.core.data.Offset.offset(1e-12));
+                .isCloseTo(0.5, Offset.offset(1e-12));
         double used = new ParticleSimulator(SimulationSettings.of(1, 1)).timeStepS(s);
         assertThat(used).isLessThanOrEqualTo(auto);
         double ratio = 0.01 / used;

@@ -14,6 +14,7 @@ import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.Species;
 import dev.nanoplan.scenario.Targets;
 import java.util.List;
+import org.assertj.core.data.Offset;
 import org.junit.jupiter.api.Test;
 
 class SimulatedChannelMatrixTest {
@@ -40,7 +41,7 @@ class SimulatedChannelMatrixTest {
             assertThat(e.modelCaveat()).isNull();
             SimulatedTaps t = ch.taps(e.emitter(), e.receiver()).orElseThrow();
             assertThat(e.taps()).containsExactly(t.taps());
-            assertThat(e.tapSum()).isEqualTo((double) t.absorbedTotal() / 4_000, org.assertj.core.data.Offset.offset(1e-12));
+            assertThat(e.tapSum()).isEqualTo((double) t.absorbedTotal() / 4_000, Offset.offset(1e-12));
         }
         assertThat(m.notes()).anyMatch(n -> n.contains("4000 molecules per emitter") && n.contains("seed 5"));
     }

@@ -12,6 +12,7 @@ import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.Species;
 import dev.nanoplan.scenario.Targets;
 import java.util.List;
+import org.assertj.core.data.Offset;
 import org.junit.jupiter.api.Test;
 
 class SimulationComparisonTest {
@@ -29,7 +30,7 @@ class SimulationComparisonTest {
         assertThat(Math.abs(c.zScore())).isLessThan(4);
         assertThat(c.zScore() * Math.sqrt(c.analyticHitProbability() * (1 - c.analyticHitProbability()) / 20_000))
                 .isCloseTo(c.simulatedHitProbability() - c.analyticHitProbability(),
-                        org.assertj.core.data.Offset.offset(1e-12));
+                        Offset.offset(1e-12));
         assertThat(c.simulatedTaps()).hasSize(3);
         assertThat(c.reason()).contains("agrees");
     }

@@ -2,15 +2,15 @@ package dev.nanoplan.cli;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
+import dev.nanoplan.io.AtomicFiles;
 import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.plan.NetworkPlanner;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.PlanOptions;
-import dev.nanoplan.plan.PlanText;
-import dev.nanoplan.report.AtomicFiles;
 import dev.nanoplan.report.PlanCsv;
 import dev.nanoplan.report.PlanHtml;
 import dev.nanoplan.report.PlanJson;
+import dev.nanoplan.report.PlanText;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioException;
 import dev.nanoplan.scenario.ScenarioProblem;

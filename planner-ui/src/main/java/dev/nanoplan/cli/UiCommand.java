@@ -4,13 +4,14 @@ import dev.nanoplan.desktop.DesktopLauncher;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Locale;
 import java.util.concurrent.Callable;
 import javafx.application.Platform;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code nanoplan ui [FILE] [--snapshot OUT.png]}: the desktop planner, or one rendered snapshot of it. */
 @Command(name = "ui", mixinStandardHelpOptions = true, sortOptions = false,
@@ -49,7 +50,7 @@ public final class UiCommand implements Callable<Integer> {
         if (file == null) {
             throw new BadInputException("--snapshot: needs a scenario FILE");
         }
-        if (!snapshot.getFileName().toString().toLowerCase(java.util.Locale.ROOT).endsWith(".png")) {
+        if (!snapshot.getFileName().toString().toLowerCase(Locale.ROOT).endsWith(".png")) {
             throw new BadInputException("--snapshot: file name must end in .png, got " + snapshot);
         }
         if (width < 200 || width > 8000 || height < 150 || height > 8000) {

@@ -228,7 +228,7 @@ public final class PlannerViewModel {
             return false;
         }
         try {
-            dev.nanoplan.report.AtomicFiles.write(path,
+            dev.nanoplan.io.AtomicFiles.write(path,
                     dev.nanoplan.report.PlanHtml.render(p).getBytes(java.nio.charset.StandardCharsets.UTF_8));
         } catch (IOException e) {
             message.set("cannot export " + path + ": " + e.getMessage());

@@ -30,7 +30,7 @@ public final class Snapshots {
     /** Writes {@code img} to {@code file} as PNG. */
     public static void writePng(Image img, Path file) throws IOException {
         java.awt.image.BufferedImage buffered = toBuffered(img);
-        dev.nanoplan.report.AtomicFiles.write(file, out -> {
+        dev.nanoplan.io.AtomicFiles.write(file, out -> {
             if (!ImageIO.write(buffered, "png", out)) {
                 throw new IOException("no PNG writer available");
             }

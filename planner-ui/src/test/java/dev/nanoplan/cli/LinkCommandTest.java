@@ -6,6 +6,8 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Arrays;
+import org.assertj.core.data.Offset;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -32,18 +34,18 @@ class LinkCommandTest {
         }
         assertThat(j.get("taps").size()).isEqualTo(6);
         // F(∞) = r/d for an absorbing sphere in an open medium (Redner 2001, first passage to a sphere)
-        assertThat(j.get("eventual_hit_probability").asDouble()).isCloseTo(5.0 / 15.0, org.assertj.core.data.Offset.offset(1e-15));
+        assertThat(j.get("eventual_hit_probability").asDouble()).isCloseTo(5.0 / 15.0, Offset.offset(1e-15));
         double c = j.get("capacity_bits").asDouble();
         assertThat(c).isBetween(0.0, 1.0);
         assertThat(j.get("mutual_information_bits").asDouble()).isLessThanOrEqualTo(c + 1e-12);
-        assertThat(j.get("rate_bits_per_s").asDouble()).isCloseTo(c / 0.5, org.assertj.core.data.Offset.offset(1e-12));
+        assertThat(j.get("rate_bits_per_s").asDouble()).isCloseTo(c / 0.5, Offset.offset(1e-12));
         assertThat(r.err()).isEmpty();
     }
 
     @Test
     void multiLevelReportsThresholdsAndInputs() throws Exception {
         for (int levels : new int[] {3, 4}) {
-            String[] args = java.util.Arrays.copyOf(EXAMPLE, EXAMPLE.length + 2);
+            String[] args = Arrays.copyOf(EXAMPLE, EXAMPLE.length + 2);
             args[EXAMPLE.length] = "--levels";
             args[EXAMPLE.length + 1] = Integer.toString(levels);
             CliRun r = run(args);
@@ -59,7 +61,7 @@ class LinkCommandTest {
 
     @Test
     void textOutputEndsWithVerdictAndCaution() {
-        String[] args = java.util.Arrays.copyOf(EXAMPLE, EXAMPLE.length - 1);
+        String[] args = Arrays.copyOf(EXAMPLE, EXAMPLE.length - 1);
         CliRun r = run(args);
         assertThat(r.status()).isZero();
         assertThat(r.out()).contains("capacity").contains("link:").contains("not validated for clinical use");
@@ -78,7 +80,7 @@ class LinkCommandTest {
     void writesPlots(@TempDir Path dir) throws Exception {
         for (String name : new String[] {"p.svg", "p.png"}) {
             Path f = dir.resolve(name);
-            String[] args = java.util.Arrays.copyOf(EXAMPLE, EXAMPLE.length + 2);
+            String[] args = Arrays.copyOf(EXAMPLE, EXAMPLE.length + 2);
             args[EXAMPLE.length] = "--plot";
             args[EXAMPLE.length + 1] = f.toString();
             CliRun r = run(args);

@@ -6,6 +6,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
@@ -17,7 +18,7 @@ class PlanSimulatedChannelTest {
     private static final ObjectMapper MAPPER = new ObjectMapper();
 
     private static CliRun plan(Path scenario, Path cache, String... extra) {
-        List<String> args = new java.util.ArrayList<>(List.of("plan", scenario.toString(), "--json", "--channel",
+        List<String> args = new ArrayList<>(List.of("plan", scenario.toString(), "--json", "--channel",
                 "simulated", "--molecules-per-emitter", "2000", "--seed", "3", "--threads", "2", "--cache-dir",
                 cache.toString()));
         args.addAll(List.of(extra));

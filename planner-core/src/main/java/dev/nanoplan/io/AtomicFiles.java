@@ -1,4 +1,4 @@
-package dev.nanoplan.report;
+package dev.nanoplan.io;
 
 import java.io.IOException;
 import java.io.OutputStream;

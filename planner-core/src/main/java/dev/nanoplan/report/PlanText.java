@@ -1,6 +1,11 @@
-package dev.nanoplan.plan;
+package dev.nanoplan.report;
 
-import dev.nanoplan.report.Cautions;
+import dev.nanoplan.plan.BudgetReport;
+import dev.nanoplan.plan.LinkReport;
+import dev.nanoplan.plan.Plan;
+import dev.nanoplan.plan.RouteReport;
+import dev.nanoplan.plan.SharedRates;
+import dev.nanoplan.plan.SlotSchedule;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
