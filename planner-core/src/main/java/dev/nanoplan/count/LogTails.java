@@ -1,5 +1,6 @@
 package dev.nanoplan.count;
 
+import dev.nanoplan.math.LogSpace;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -327,24 +328,16 @@ public final class LogTails {
         int k = m.parts().size();
         Tilt[] parts = new Tilt[k];
         double[] logW = new double[k];
-        double max = Double.NEGATIVE_INFINITY;
         for (int i = 0; i < k; i++) {
             double w = m.weight(i);
             if (w > 0) {
                 parts[i] = tilt(m.parts().get(i), theta);
                 logW[i] = Math.log(w) + parts[i].logMgf;
-                max = Math.max(max, logW[i]);
             } else {
                 logW[i] = Double.NEGATIVE_INFINITY;
             }
         }
-        double sum = 0;
-        for (int i = 0; i < k; i++) {
-            if (parts[i] != null) {
-                sum += Math.exp(logW[i] - max);
-            }
-        }
-        double logM = max + Math.log(sum);
+        double logM = LogSpace.logSumExp(logW);
         double[] wt = new double[k];
         List<CountTerm> tp = new ArrayList<>(k);
         double mean = 0;

@@ -1,5 +1,6 @@
 package dev.nanoplan.physics;
 
+import dev.nanoplan.math.LogSpace;
 import org.apache.commons.numbers.gamma.Erfcx;
 
 /**
@@ -21,7 +22,7 @@ import org.apache.commons.numbers.gamma.Erfcx;
  *
  * <p>Numerics: the second term multiplies a huge e^{b} by a tiny erfc. Both terms are
  * evaluated as logarithms, ln e^{−b}erfc(x−y) = −b + ln erfc(x−y) and
- * ln e^{b}erfc(x+y) = b + ln erfc(x+y), with {@link LogErfc} (which uses the scaled function
+ * ln e^{b}erfc(x+y) = b + ln erfc(x+y), with {@link LogSpace#logErfc} (which uses the scaled function
  * erfcx of Commons Numbers), and combined by log-sum-exp; nothing overflows and no NaN arises.
  * Once y − x ≥ 2 (F_λ within 0.5 % of its limit) F_λ is computed as F_λ(∞) minus the tail
  * (r/d)·½·e^{−b−(y−x)²}·[erfcx(y−x) − erfcx(y+x)], whose rounding noise is below 1 % of an
@@ -115,8 +116,8 @@ public final class DecayingSphereHitting implements HittingModel {
         if (u >= TAIL_FORM_LIMIT) {
             return Math.max(0, eventual - eventual * tailFraction(u, y + x));
         }
-        double first = Math.exp(-exponentB + LogErfc.value(x - y));
-        double second = Math.exp(exponentB + LogErfc.value(x + y));
+        double first = Math.exp(-exponentB + LogSpace.logErfc(x - y));
+        double second = Math.exp(exponentB + LogSpace.logErfc(x + y));
         return Math.min(eventual, open.eventual() * 0.5 * (first + second));
     }
 
@@ -150,9 +151,9 @@ public final class DecayingSphereHitting implements HittingModel {
         if (y - x >= TAIL_FORM_LIMIT) {
             return logEventual + Math.log1p(-tailFraction(y - x, y + x));
         }
-        double logFirst = -exponentB + LogErfc.value(x - y);
-        double logSecond = exponentB + LogErfc.value(x + y);
-        return open.logEventual() - LN2 + logSumExp(logFirst, logSecond);
+        double logFirst = -exponentB + LogSpace.logErfc(x - y);
+        double logSecond = exponentB + LogSpace.logErfc(x + y);
+        return open.logEventual() - LN2 + LogSpace.logSumExp(logFirst, logSecond);
     }
 
     /**
@@ -163,14 +164,6 @@ public final class DecayingSphereHitting implements HittingModel {
     private static double tailFraction(double u, double v) {
         double fraction = 0.5 * Math.exp(-u * u) * (Erfcx.value(u) - Erfcx.value(v));
         return fraction > 0 ? fraction : 0;
-    }
-
-    private static double logSumExp(double u, double v) {
-        double max = Math.max(u, v);
-        if (max == Double.NEGATIVE_INFINITY) {
-            return max;
-        }
-        return max + Math.log1p(Math.exp(Math.min(u, v) - max));
     }
 
     @Override

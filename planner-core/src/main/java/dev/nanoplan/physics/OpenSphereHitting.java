@@ -1,5 +1,6 @@
 package dev.nanoplan.physics;
 
+import dev.nanoplan.math.LogSpace;
 import org.apache.commons.numbers.gamma.Erfc;
 
 /**
@@ -19,7 +20,7 @@ import org.apache.commons.numbers.gamma.Erfc;
  *
  * <p>Units: distances in µm, D in µm²/s, times in s. Accuracy: F and f to a few ulp times
  * max(1, x²) relative (Commons Numbers {@link Erfc} is accurate to a few ulp; the rounding of
- * x² in exp(−x²) dominates for large x); {@link #logCumulative} via {@link LogErfc} stays
+ * x² in exp(−x²) dominates for large x); {@link #logCumulative} via {@link LogSpace#logErfc} stays
  * finite where F underflows (x &gt; ~26.5, i.e. t &lt; a²/(2800·D)). Edge cases: t ≤ 0 → F = f = 0;
  * t = +∞ → F = r/d, f = 0; NaN → NaN; a gap as small as one ulp of d is accepted (F rises to
  * r/d almost at once). Each evaluation is O(1).
@@ -134,7 +135,7 @@ public final class OpenSphereHitting implements HittingModel {
         if (timeS == Double.POSITIVE_INFINITY) {
             return logEventual;
         }
-        return Math.max(logEventual + LogErfc.value(argument(timeS)), -Double.MAX_VALUE);
+        return Math.max(logEventual + LogSpace.logErfc(argument(timeS)), -Double.MAX_VALUE);
     }
 
     @Override

@@ -2,9 +2,9 @@ package dev.nanoplan.plan;
 
 import dev.nanoplan.info.BinaryChannel;
 import dev.nanoplan.info.BlahutArimoto;
+import dev.nanoplan.math.LogSpace;
 import java.util.Arrays;
 import org.apache.commons.numbers.gamma.Erfc;
-import org.apache.commons.numbers.gamma.Erfcx;
 
 /**
  * Detection and capacity of one link from the first two moments of its slot counts: the count
@@ -36,7 +36,7 @@ import org.apache.commons.numbers.gamma.Erfcx;
  * <p><b>Binary links.</b> Decide 1 iff Y ≥ τ; ε₀(τ) = Q((τ − ½ − μ₀)/σ₀), ε₁(τ) = Q((μ₁ − τ + ½)/σ₁).
  * The capacity is max over integer τ of the binary-asymmetric-channel capacity (closed form of
  * Silverman 1955, {@link BinaryChannel#capacity(double, double)}); the minimum error is
- * min over τ of (1 − q)ε₀ + qε₁, its logarithm computed from ln erfc(x) = −x² + ln erfcx(x), so
+ * min over τ of (1 − q)ε₀ + qε₁, its logarithm computed with {@link LogSpace#logErfc} (ln erfc(x) = −x² + ln erfcx(x)), so
  * it stays finite far below 1e-300. Thresholds: every integer of [μ_min − 8σ, μ_max + 8σ] when
  * there are at most {@value #DENSE} of them, else a grid of {@value #GRID} strides refined by finer
  * grids around the best point down to single integers (the objective is taken as having its maximum
@@ -219,12 +219,12 @@ public final class NormalLinkApproximation {
 
     /** ln P(Y ≥ τ) of {@link #upperTail}, finite far below 1e-300. */
     public static double logUpperTail(double mean, double variance, long tau) {
-        return LN_HALF + logErfc((tau - 0.5 - mean) / (sigma(variance) * SQRT2));
+        return LN_HALF + LogSpace.logErfc((tau - 0.5 - mean) / (sigma(variance) * SQRT2));
     }
 
     /** ln P(Y &lt; τ) of {@link #lowerTail}, finite far below 1e-300. */
     public static double logLowerTail(double mean, double variance, long tau) {
-        return LN_HALF + logErfc((mean - tau + 0.5) / (sigma(variance) * SQRT2));
+        return LN_HALF + LogSpace.logErfc((mean - tau + 0.5) / (sigma(variance) * SQRT2));
     }
 
     /** P(Y ≥ τ) for Y = N(μ, σ²) + the mixture: Σ_c w_c·Q((τ − ½ − μ − m_c)/√(σ² + s_c²)). */
@@ -513,18 +513,4 @@ public final class NormalLinkApproximation {
         return Math.max(Math.sqrt(Math.max(variance, 0)), MIN_SIGMA);
     }
 
-    /**
-     * ln erfc(x): direct for x &lt; 0.5, else −x² + ln erfcx(x) with the scaled function of Commons
-     * Numbers ({@link Erfcx}), which never underflows (the same identity as the physics package's
-     * log-erfc, which is not visible here).
-     */
-    static double logErfc(double x) {
-        if (x < 0.5) {
-            return Math.log(Erfc.value(x));
-        }
-        if (x == Double.POSITIVE_INFINITY) {
-            return Double.NEGATIVE_INFINITY;
-        }
-        return -x * x + Math.log(Erfcx.value(x));
-    }
 }

@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatIllegalArgumentException;
 import static org.assertj.core.api.Assertions.within;
 
+import dev.nanoplan.math.ErfReferenceTest;
 import java.util.function.DoubleUnaryOperator;
 import java.util.stream.Stream;
 

@@ -1,4 +1,4 @@
-package dev.nanoplan.physics;
+package dev.nanoplan.math;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
@@ -11,7 +11,7 @@ import org.junit.jupiter.params.provider.CsvFileSource;
 import org.junit.jupiter.params.provider.ValueSource;
 
 /** The error functions of Commons Numbers 1.2 that the hitting models rest on. */
-class ErfReferenceTest {
+public class ErfReferenceTest {
 
     /** Half a unit in the 10th decimal of the table, plus double rounding. */
     private static final double TABLE_TOLERANCE = 5.1e-11;
@@ -49,7 +49,7 @@ class ErfReferenceTest {
      * 1 + Σ_{m≥1} (−1)^m (1·3···(2m−1)) / (2x²)^m, stopped before the terms start to grow
      * (A&S 1964, eq. 7.1.23); its truncation error is below the first omitted term.
      */
-    static double asymptoticBracket(double x) {
+    public static double asymptoticBracket(double x) {
         double sum = 1;
         double term = 1;
         for (int m = 1; m < 200; m++) {
