@@ -16,34 +16,35 @@ public final class LinkText {
     public static String render(LinkEvaluation e, double eventualHitProbability) {
         LinkSpec s = e.spec();
         StringBuilder b = new StringBuilder();
-        row(b, "hit probability F(T)", g(s.tap(0)), "fraction of one release counted in its own slot");
+        row(b, "hit probability F(T)", Numbers.probability(s.tap(0)), "fraction of one release counted in its own slot");
         if (Double.isFinite(eventualHitProbability)) {
-            row(b, "eventual hit F(∞)", g(eventualHitProbability), "fraction ever counted");
+            row(b, "eventual hit F(∞)", Numbers.probability(eventualHitProbability), "fraction ever counted");
         }
         row(b, "taps p0..pL", tapsText(s.taps()), "per-slot hit probabilities (ISI memory " + s.isiMemory() + ")");
         row(b, "levels (molecules)", Arrays.toString(s.levelMolecules()), "count model " + s.countModel().id());
-        row(b, "mean counts", String.format(Locale.ROOT, "signal %s, ISI %s, background %s",
-                g(e.signalMeanMolecules()), g(e.isiMeanMolecules()), g(e.backgroundMeanMolecules())), "per slot");
+        row(b, "mean counts", "signal " + Numbers.quantity(e.signalMeanMolecules())
+                + ", ISI " + Numbers.quantity(e.isiMeanMolecules()) + ", background "
+                + Numbers.quantity(e.backgroundMeanMolecules()), "per slot");
         BinaryDetection d = e.binary();
         MultiLevelResult m = e.multiLevel();
         if (d != null) {
-            row(b, "threshold τ", Long.toString(d.miThreshold()), "decide 1 iff count ≥ τ (best MI at prior "
-                    + g(s.priorOne()) + ")");
-            row(b, "mutual information", bits(d.mutualInformationBits()), "bit/symbol at τ and the prior");
-            row(b, "min error probability", errText(e), "at τ = " + e.minErrorThreshold());
-            row(b, "capacity", bits(d.capacityBits()), String.format(Locale.ROOT, "bit/symbol (τ = %d, prior one %.3f)",
-                    d.capacityThreshold(), d.capacityPriorOne()));
+            row(b, "threshold τ", Numbers.threshold(d.miThreshold()), "decide 1 iff count ≥ τ (best MI at prior "
+                    + Numbers.probability(s.priorOne()) + ")");
+            row(b, "mutual information", Numbers.bits(d.mutualInformationBits()), "bit/symbol at τ and the prior");
+            row(b, "min error probability", errText(e), "at τ = " + Numbers.threshold(e.minErrorThreshold()));
+            row(b, "capacity", Numbers.bits(d.capacityBits()), "bit/symbol (τ = " + Numbers.threshold(d.capacityThreshold())
+                    + ", prior one " + Numbers.probability(d.capacityPriorOne()) + ")");
         } else {
             row(b, "thresholds", Arrays.toString(m.thresholds()), "capacity-achieving, decide level j in cell j");
             row(b, "input distribution", probs(m.inputDistribution()), "capacity-achieving");
-            row(b, "MI at uniform inputs", bits(m.uniformMutualInformationBits()), "best thresholds "
+            row(b, "MI at uniform inputs", Numbers.bits(m.uniformMutualInformationBits()), "best thresholds "
                     + Arrays.toString(m.uniformThresholds()));
             row(b, "symbol error (MAP)", errText(e), "uniform inputs");
-            row(b, "capacity", bits(m.capacityBits()), "bit/symbol (hard decisions)");
-            row(b, "soft capacity", bits(m.softCapacityBits()), "bit/symbol, unquantised counts (upper bound)");
+            row(b, "capacity", Numbers.bits(m.capacityBits()), "bit/symbol (hard decisions)");
+            row(b, "soft capacity", Numbers.bits(m.softCapacityBits()), "bit/symbol, unquantised counts (upper bound)");
         }
-        row(b, "rate", String.format(Locale.ROOT, "%.4g bit/s", e.rateBitsPerS()), "capacity / symbol time "
-                + g(s.symbolTimeS()) + " s");
+        row(b, "rate", Numbers.quantity(e.rateBitsPerS()) + " bit/s", "capacity / symbol time "
+                + Numbers.quantity(s.symbolTimeS()) + " s");
         b.append('\n').append(verdict(e)).append('\n');
         b.append("Note: ").append(Cautions.SHORT).append('\n');
         return b.toString();
@@ -81,23 +82,19 @@ public final class LinkText {
                 why = "; too few molecules arrive: release more or move the receiver closer";
             }
         }
-        return String.format(Locale.ROOT, "%s: %.3f of %.0f bit/symbol, %.4g bit/s, error %s%s.", word, c, max,
-                e.rateBitsPerS(), errText(e), why);
+        return String.format(Locale.ROOT, "%s: %s of %s bit/symbol, %s bit/s, error %s%s.", word, Numbers.bits(c),
+                Numbers.quantity(Math.rint(max)), Numbers.quantity(e.rateBitsPerS()), errText(e), why);
     }
 
     static String errText(LinkEvaluation e) {
-        double p = e.minErrorProbability();
-        if (p > 0 && p >= 1e-300) {
-            return String.format(Locale.ROOT, "%.3g", p);
-        }
-        return String.format(Locale.ROOT, "10^%.1f", e.log10ErrorProbability());
+        return Numbers.errorProbability(e.minErrorProbability(), e.log10ErrorProbability());
     }
 
     private static String tapsText(double[] t) {
         StringBuilder b = new StringBuilder();
         int n = Math.min(t.length, 6);
         for (int i = 0; i < n; i++) {
-            b.append(i == 0 ? "" : ", ").append(String.format(Locale.ROOT, "%.3g", t[i]));
+            b.append(i == 0 ? "" : ", ").append(Numbers.probability(t[i]));
         }
         if (t.length > n) {
             b.append(", … (").append(t.length).append(" taps)");
@@ -108,17 +105,9 @@ public final class LinkText {
     private static String probs(double[] p) {
         StringBuilder b = new StringBuilder("[");
         for (int i = 0; i < p.length; i++) {
-            b.append(i == 0 ? "" : ", ").append(String.format(Locale.ROOT, "%.3f", p[i]));
+            b.append(i == 0 ? "" : ", ").append(Numbers.probability(p[i]));
         }
         return b.append(']').toString();
-    }
-
-    private static String bits(double v) {
-        return String.format(Locale.ROOT, "%.4f", v);
-    }
-
-    private static String g(double v) {
-        return String.format(Locale.ROOT, "%.4g", v);
     }
 
     private static void row(StringBuilder b, String name, String value, String note) {

@@ -19,7 +19,6 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.EnumMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 
 /**
@@ -121,24 +120,25 @@ public final class PlanHtml {
         h.append("<table class=\"kv\">\n");
         kv(h, "Volume", volume(s.volume()));
         Medium m = s.medium();
-        kv(h, "Temperature", num(m.temperatureK()) + " K");
-        kv(h, "Viscosity", num(m.viscosityMPaS()) + " mPa·s");
+        kv(h, "Temperature", Numbers.quantity(m.temperatureK()) + " K");
+        kv(h, "Viscosity", Numbers.quantity(m.viscosityMPaS()) + " mPa·s");
         kv(h, "Flow", flow(m.flow()));
-        kv(h, "Background", num(m.backgroundMoleculesPerS()) + " molecules/s per receiver");
+        kv(h, "Background", Numbers.quantity(m.backgroundMoleculesPerS()) + " molecules/s per receiver");
         kv(h, "Channel", plan.channel());
         h.append("</table>\n");
         // signalling and targets
         Signalling g = s.signalling();
         Targets t = s.targets();
         h.append("<table class=\"kv\">\n");
-        kv(h, "Symbol time", num(g.symbolTimeS()) + " s");
+        kv(h, "Symbol time", Numbers.quantity(g.symbolTimeS()) + " s");
         kv(h, "ISI memory", g.isiMemorySymbols() + " symbols");
         kv(h, "Levels", g.levels() + (g.levels() == 2 ? " (on–off keying)" : ""));
-        kv(h, "P(send 1)", num(g.priorOne()));
+        kv(h, "P(send 1)", Numbers.probability(g.priorOne()));
         kv(h, "Count model", g.countModel().id());
         kv(h, "Schedule", g.schedule().id());
-        kv(h, "Targets", "error ≤ " + num(t.maxErrorProbability()) + ", rate ≥ " + num(t.minRateBitsPerS())
-                + " bit/s, mission " + num(t.missionDurationS()) + " s");
+        kv(h, "Targets", "error ≤ " + Numbers.probability(t.maxErrorProbability()) + ", rate ≥ "
+                + Numbers.quantity(t.minRateBitsPerS()) + " bit/s, mission " + Numbers.quantity(t.missionDurationS())
+                + " s");
         h.append("</table>\n");
         // species and nodes
         h.append("<table>\n<tr><th>Species</th><th class=\"n\">D (µm²/s)</th><th class=\"n\">half-life</th>"
@@ -147,9 +147,9 @@ public final class PlanHtml {
             long users = s.nodes().stream()
                     .filter(n -> n.species().equals(sp.name()) || n.emitsSpecies().equals(sp.name())).count();
             h.append("<tr><td>").append(esc(sp.name())).append("</td>");
-            cell(h, num(sp.diffusionUm2PerS()) + (sp.hydrodynamicRadiusNm().isPresent()
-                    ? " (R<sub>h</sub> " + esc(num(sp.hydrodynamicRadiusNm().getAsDouble())) + " nm)" : ""), true);
-            numCell(h, sp.isStable() ? "stable" : num(sp.halfLifeS()) + " s");
+            cell(h, Numbers.quantity(sp.diffusionUm2PerS()) + (sp.hydrodynamicRadiusNm().isPresent()
+                    ? " (R<sub>h</sub> " + esc(Numbers.quantity(sp.hydrodynamicRadiusNm().getAsDouble())) + " nm)" : ""), true);
+            numCell(h, sp.isStable() ? "stable" : Numbers.quantity(sp.halfLifeS()) + " s");
             numCell(h, Long.toString(users));
             h.append("</tr>\n");
         }
@@ -169,11 +169,11 @@ public final class PlanHtml {
     private static String volume(Volume v) {
         if (v instanceof Volume.Box b) {
             Vec3 size = b.sizeUm();
-            return "box " + num(size.x()) + " × " + num(size.y()) + " × " + num(size.z()) + " µm, from "
+            return "box " + Numbers.quantity(size.x()) + " × " + Numbers.quantity(size.y()) + " × " + Numbers.quantity(size.z()) + " µm, from "
                     + vec(b.minUm()) + " to " + vec(b.maxUm());
         }
         if (v instanceof Volume.Cylinder c) {
-            return "cylinder, radius " + num(c.radiusUm()) + " µm, length " + num(c.lengthUm()) + " µm along x";
+            return "cylinder, radius " + Numbers.quantity(c.radiusUm()) + " µm, length " + Numbers.quantity(c.lengthUm()) + " µm along x";
         }
         return "open medium (no walls)";
     }
@@ -183,13 +183,13 @@ public final class PlanHtml {
             return "uniform, velocity " + vec(u.velocityUmPerS()) + " µm/s";
         }
         if (f instanceof Flow.Poiseuille p) {
-            return "Poiseuille, mean speed " + num(p.meanSpeedUmPerS()) + " µm/s along x";
+            return "Poiseuille, mean speed " + Numbers.quantity(p.meanSpeedUmPerS()) + " µm/s along x";
         }
         return "none (still)";
     }
 
     private static String vec(Vec3 v) {
-        return "(" + num(v.x()) + ", " + num(v.y()) + ", " + num(v.z()) + ")";
+        return "(" + Numbers.quantity(v.x()) + ", " + Numbers.quantity(v.y()) + ", " + Numbers.quantity(v.z()) + ")";
     }
 
     private static void views(StringBuilder h, Plan plan) {
@@ -224,20 +224,20 @@ public final class PlanHtml {
                 h.append("<td class=\"hops\">").append(esc(String.join(" → ", r.hops()))).append("</td><td class=\"hops\">")
                         .append(esc(r.bottleneckFrom() + " → " + r.bottleneckTo())).append("</td>");
             }
-            numCell(h, r.reachable() ? bits(r.bottleneckCapacityBits()) : "–");
-            numCell(h, r.reachable() ? bits(r.endToEndCapacityBits()) : "–");
+            numCell(h, r.reachable() ? Numbers.bits(r.bottleneckCapacityBits()) : Numbers.MISSING);
+            numCell(h, r.reachable() ? Numbers.bits(r.endToEndCapacityBits()) : Numbers.MISSING);
             boolean slow = r.reachable() && r.rateBitsPerS() < target;
             h.append("<td class=\"n").append(slow || !r.reachable() ? " bad" : "").append("\">")
-                    .append(r.reachable() ? esc(num(r.rateBitsPerS())) : "0").append("</td>");
+                    .append(r.reachable() ? esc(Numbers.quantity(r.rateBitsPerS())) : "0").append("</td>");
             boolean slowShared = r.reachable() && sh.rateBitsPerS() < target;
             h.append("<td class=\"n").append(slowShared ? " bad" : "").append("\"");
             if (sh.limitedAt() != null && sh.sharedWith() > 1) {
                 h.append(" title=\"").append(esc(sh.limitedAt() + "'s stream carries " + sh.sharedWith() + " demands"))
                         .append("\"");
             }
-            h.append(">").append(r.reachable() ? esc(num(sh.rateBitsPerS())) : "0").append("</td>");
-            numCell(h, r.reachable() ? num(r.latencyS()) : "–");
-            numCell(h, r.directCapacityBits() == null ? "none" : bits(r.directCapacityBits()));
+            h.append(">").append(r.reachable() ? esc(Numbers.quantity(sh.rateBitsPerS())) : "0").append("</td>");
+            numCell(h, r.reachable() ? Numbers.quantity(r.latencyS()) : Numbers.MISSING);
+            numCell(h, r.directCapacityBits() == null ? "none" : Numbers.bits(r.directCapacityBits()));
             h.append("<td>").append(r.bottleneckLimitedBy() == null ? "" : esc(r.bottleneckLimitedBy().id()))
                     .append("</td><td class=\"advice\">").append(esc(r.advice() == null ? "" : r.advice()))
                     .append("</td></tr>\n");
@@ -247,7 +247,7 @@ public final class PlanHtml {
                 + "symbol stream is time-shared among them (max-min fair); the rate column is what a demand gets "
                 + "alone.</p>\n");
         if (target > 0) {
-            h.append("<p class=\"note\">Rates below the target of ").append(esc(num(target)))
+            h.append("<p class=\"note\">Rates below the target of ").append(esc(Numbers.quantity(target)))
                     .append(" bit/s are marked in red.</p>\n");
         }
         h.append("</section>\n");
@@ -264,10 +264,9 @@ public final class PlanHtml {
                 + "<th>Reason</th></tr>\n");
         for (BudgetReport b : plan.budgets()) {
             h.append("<tr><td>").append(esc(b.node())).append("</td>");
-            numCell(h, b.moleculesPerSymbolNeeded() < 0 ? "–" : String.format(Locale.ROOT, "%,d",
-                    b.moleculesPerSymbolNeeded()));
-            numCell(h, big(b.moleculesPerS()));
-            numCell(h, big(b.moleculesPerMission()));
+            numCell(h, b.moleculesPerSymbolNeeded() < 0 ? Numbers.MISSING : Numbers.count(b.moleculesPerSymbolNeeded()));
+            numCell(h, Numbers.molecules(b.moleculesPerS()));
+            numCell(h, Numbers.molecules(b.moleculesPerMission()));
             h.append(b.feasible() ? "<td class=\"ok\">yes</td>" : "<td class=\"bad\">no</td>");
             h.append("<td>").append(esc(b.reason() == null ? "" : b.reason())).append("</td></tr>\n");
         }
@@ -296,14 +295,14 @@ public final class PlanHtml {
         for (LinkReport l : sorted.subList(0, shown)) {
             h.append("<tr><td>").append(esc(l.from())).append("</td><td>").append(esc(l.to())).append("</td><td>")
                     .append(esc(l.species())).append("</td>");
-            numCell(h, sci(l.hitProbability()));
-            numCell(h, num(l.signalMean()));
-            numCell(h, num(l.isiMean()));
-            numCell(h, num(l.interferenceMean()));
+            numCell(h, Numbers.probability(l.hitProbability()));
+            numCell(h, Numbers.quantity(l.signalMean()));
+            numCell(h, Numbers.quantity(l.isiMean()));
+            numCell(h, Numbers.quantity(l.interferenceMean()));
             numCell(h, Long.toString(l.threshold()));
-            numCell(h, errorText(l.errorProbability(), l.log10ErrorProbability()));
-            numCell(h, bits(l.capacityBits()));
-            numCell(h, num(l.rateBitsPerS()));
+            numCell(h, Numbers.errorProbability(l.errorProbability(), l.log10ErrorProbability()));
+            numCell(h, Numbers.bits(l.capacityBits()));
+            numCell(h, Numbers.quantity(l.rateBitsPerS()));
             h.append("<td>").append(l.limitedBy() == null ? "" : esc(l.limitedBy().id())).append("</td><td>");
             if (l.topInterferer() != null) {
                 h.append(esc(l.topInterferer())).append(" (")
@@ -361,51 +360,5 @@ public final class PlanHtml {
             }
         }
         return b.toString();
-    }
-
-    /** Error probability: plain when representable, otherwise 10^log10. */
-    static String errorText(double p, double log10) {
-        if (p > 0 && Double.isFinite(p)) {
-            return sci(p);
-        }
-        if (Double.isFinite(log10)) {
-            return String.format(Locale.ROOT, "10^%.1f", log10);
-        }
-        return "–";
-    }
-
-    static String bits(double v) {
-        return Double.isFinite(v) ? String.format(Locale.ROOT, "%.3f", v) : "–";
-    }
-
-    static String sci(double v) {
-        if (!Double.isFinite(v)) {
-            return "–";
-        }
-        if (v == 0) {
-            return "0";
-        }
-        return Math.abs(v) >= 1e-3 && Math.abs(v) < 1e4 ? String.format(Locale.ROOT, "%.3g", v)
-                : String.format(Locale.ROOT, "%.2e", v);
-    }
-
-    static String num(double v) {
-        if (!Double.isFinite(v)) {
-            return "–";
-        }
-        if (v == Math.rint(v) && Math.abs(v) < 1e7) {
-            return Long.toString((long) v);
-        }
-        return sci(v);
-    }
-
-    static String big(double v) {
-        if (!Double.isFinite(v)) {
-            return "–";
-        }
-        if (Math.abs(v) < 1e12) {
-            return String.format(Locale.ROOT, "%,.0f", v);
-        }
-        return String.format(Locale.ROOT, "%.3e", v);
     }
 }

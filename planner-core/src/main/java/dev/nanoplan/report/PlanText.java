@@ -42,11 +42,13 @@ public final class PlanText {
         }
         sb.append("Links (strongest ").append(Math.min(TOP_LINKS, sorted.size())).append(" and weakest)\n");
         sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10s %10s %10s %6s %10s %9s %-9s %s%n", "from", "to",
-                "sp", "signal", "interf.", "isi", "tau", "log10 Pe", "bit/sym", "limit", "top interferer"));
+                "sp", "signal", "interf.", "isi", "tau", "Pe", "bit/sym", "limit", "top interferer"));
         for (LinkReport l : shown) {
-            sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10.3g %10.3g %10.3g %6d %10.2f %9.4f %-9s %s%s%n",
-                    l.from(), l.to(), l.species(), l.signalMean(), l.interferenceMean(), l.isiMean(), l.threshold(),
-                    l.log10ErrorProbability(), l.capacityBits(), l.limitedBy().id(),
+            sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10s %10s %10s %6s %10s %9s %-9s %s%s%n",
+                    l.from(), l.to(), l.species(), Numbers.quantity(l.signalMean()),
+                    Numbers.quantity(l.interferenceMean()), Numbers.quantity(l.isiMean()),
+                    Numbers.threshold(l.threshold()), Numbers.errorProbability(l.errorProbability(),
+                            l.log10ErrorProbability()), Numbers.bits(l.capacityBits()), l.limitedBy().id(),
                     l.topInterferer() == null ? "-" : String.format(Locale.ROOT, "%s (%.0f%%)", l.topInterferer(),
                             100 * l.topInterfererShare()),
                     l.modelCaveat() == null ? "" : "  [" + l.modelCaveat() + "]"));
@@ -61,17 +63,17 @@ public final class PlanText {
                 continue;
             }
             sb.append(String.format(Locale.ROOT,
-                    "  %s -> %s via %s: %.4f bit/symbol end to end (%.4g bit/s), latency %.3g s, bottleneck %s -> %s"
-                            + " %.4f bit (%s)%s%n      advice: %s%n",
-                    r.from(), r.to(), String.join(" > ", r.hops()), r.endToEndCapacityBits(), r.rateBitsPerS(),
-                    r.latencyS(), r.bottleneckFrom(), r.bottleneckTo(), r.bottleneckCapacityBits(),
-                    r.bottleneckLimitedBy().id(),
+                    "  %s -> %s via %s: %s bit/symbol end to end (%s bit/s), latency %s s, bottleneck %s -> %s"
+                            + " %s bit (%s)%s%n      advice: %s%n",
+                    r.from(), r.to(), String.join(" > ", r.hops()), Numbers.bits(r.endToEndCapacityBits()),
+                    Numbers.quantity(r.rateBitsPerS()), Numbers.quantity(r.latencyS()), r.bottleneckFrom(),
+                    r.bottleneckTo(), Numbers.bits(r.bottleneckCapacityBits()), r.bottleneckLimitedBy().id(),
                     r.directCapacityBits() == null ? ", no direct link"
-                            : String.format(Locale.ROOT, ", direct %.4f bit", r.directCapacityBits()),
+                            : ", direct " + Numbers.bits(r.directCapacityBits()) + " bit",
                     r.advice()));
             if (sh.limitedAt() != null && sh.sharedWith() > 1) {
-                sb.append(String.format(Locale.ROOT, "      shared: %.4g bit/s (%s's stream carries %d demands)%n",
-                        sh.rateBitsPerS(), sh.limitedAt(), sh.sharedWith()));
+                sb.append(String.format(Locale.ROOT, "      shared: %s bit/s (%s's stream carries %d demands)%n",
+                        Numbers.quantity(sh.rateBitsPerS()), sh.limitedAt(), sh.sharedWith()));
             }
         }
         sb.append("\nBudgets\n");
@@ -80,9 +82,9 @@ public final class PlanText {
         for (BudgetReport b : plan.budgets()) {
             boolean known = b.moleculesPerSymbolNeeded() >= 0;
             sb.append(String.format(Locale.ROOT, "%-12s %14s %14s %16s %-8s %s%n", b.node(),
-                    known ? Long.toString(b.moleculesPerSymbolNeeded()) : "-",
-                    known ? String.format(Locale.ROOT, "%.4g", b.moleculesPerS()) : "-",
-                    known ? String.format(Locale.ROOT, "%.4g", b.moleculesPerMission()) : "-",
+                    known ? Numbers.count(b.moleculesPerSymbolNeeded()) : Numbers.MISSING,
+                    known ? Numbers.molecules(b.moleculesPerS()) : Numbers.MISSING,
+                    known ? Numbers.molecules(b.moleculesPerMission()) : Numbers.MISSING,
                     b.feasible() ? "yes" : "NO", b.reason()));
         }
         if (!plan.warnings().isEmpty()) {
