@@ -106,27 +106,17 @@ public final class ChannelCache {
 
     /**
      * The cached channel for (scenario, settings) or, on a miss, {@code simulation.run(scenario)},
-     * stored if complete.
+     * stored if complete ({@link SimulatedChannels#obtain} with a failed store thrown).
      *
      * @param settings M and seed of the key; Δt is resolved as {@link ParticleSimulator#timeStepS}
      * @throws IOException if a new result cannot be written
      */
     public Lookup getOrSimulate(Scenario scenario, SimulationSettings settings, Simulation simulation)
             throws IOException {
-        double dt = new ParticleSimulator(settings).timeStepS(scenario);
-        String key = key(scenario, settings.moleculesPerEmitter(), settings.seed(), dt);
-        Path file = file(key);
-        Optional<SimulatedChannel> cached = load(scenario, key);
-        if (cached.isPresent()) {
-            return new Lookup(cached.get(), true, file, false);
-        }
-        SimulatedChannel channel = simulation.run(scenario);
-        boolean stored = false;
-        if (channel.complete()) {
-            store(key, channel);
-            stored = true;
-        }
-        return new Lookup(channel, false, file, stored);
+        SimulatedChannels.Obtained got = SimulatedChannels.obtain(scenario, settings, this, false, simulation,
+                () -> false, dt -> { });
+        got.throwStoreFailure();
+        return new Lookup(got.channel(), got.fromCache(), got.file(), got.stored());
     }
 
     /** The file of a key. */

@@ -100,6 +100,57 @@ class ChannelCacheTest {
     }
 
     @Test
+    void obtainReSimulatesOnRequestAndReplacesTheStoredChannel(@TempDir Path dir) {
+        ChannelCache cache = new ChannelCache(dir);
+        SimulationSettings settings = SimulationSettings.of(2_000, 5);
+        AtomicInteger runs = new AtomicInteger();
+        AtomicInteger misses = new AtomicInteger();
+        ChannelCache.Simulation sim = s -> {
+            runs.incrementAndGet();
+            return ParticleSimulator.simulate(s, settings);
+        };
+        SimulatedChannels.Obtained first = SimulatedChannels.obtain(base(), settings, cache, false, sim, () -> false,
+                dt -> misses.incrementAndGet());
+        assertThat(first.source()).isEqualTo("simulated, cached");
+        SimulatedChannels.Obtained again = SimulatedChannels.obtain(base(), settings, cache, false, sim, () -> false,
+                dt -> misses.incrementAndGet());
+        assertThat(again.fromCache()).isTrue();
+        assertThat(again.source()).isEqualTo("from cache");
+        SimulatedChannels.Obtained forced = SimulatedChannels.obtain(base(), settings, cache, true, sim, () -> false,
+                dt -> misses.incrementAndGet());
+        assertThat(forced.fromCache()).isFalse();
+        assertThat(forced.stored()).isTrue();
+        assertThat(forced.source()).isEqualTo("re-simulated, cache updated");
+        assertThat(runs.get()).isEqualTo(2);
+        assertThat(misses.get()).isEqualTo(2);
+        assertThat(forced.file()).isEqualTo(first.file());
+    }
+
+    @Test
+    void obtainWithoutACacheOnlySimulatesAndAFailedStoreIsReportedNotThrown(@TempDir Path dir) throws Exception {
+        SimulationSettings settings = SimulationSettings.of(2_000, 5);
+        ChannelCache.Simulation sim = s -> ParticleSimulator.simulate(s, settings);
+        SimulatedChannels.Obtained none = SimulatedChannels.obtain(base(), settings, null, false, sim, () -> false,
+                dt -> { });
+        assertThat(none.file()).isNull();
+        assertThat(none.stored()).isFalse();
+        assertThat(none.source()).isEqualTo("simulated");
+        // the cache folder is a regular file, so the store fails
+        Path notADir = Files.writeString(dir.resolve("file"), "x", StandardCharsets.UTF_8);
+        SimulatedChannels.Obtained failed = SimulatedChannels.obtain(base(), settings, new ChannelCache(notADir), false,
+                sim, () -> false, dt -> { });
+        assertThat(failed.channel().complete()).isTrue();
+        assertThat(failed.storeFailure()).isNotNull();
+        assertThat(failed.source()).startsWith("simulated (not cached: ");
+        // a run that completed after the caller gave up is not stored
+        ChannelCache cache = new ChannelCache(dir.resolve("channels"));
+        SimulatedChannels.Obtained late = SimulatedChannels.obtain(base(), settings, cache, false, sim, () -> true,
+                dt -> { });
+        assertThat(late.stored()).isFalse();
+        assertThat(Files.exists(late.file())).isFalse();
+    }
+
+    @Test
     void defaultDirectoryFollowsTheEnvironment() {
         assertThat(ChannelCache.defaultDirectory(Map.of(ChannelCache.ENV_DIR, "/tmp/c"), "/home/u"))
                 .isEqualTo(Path.of("/tmp/c"));

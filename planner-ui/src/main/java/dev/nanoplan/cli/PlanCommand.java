@@ -18,6 +18,7 @@ import dev.nanoplan.scenario.ScenarioReader;
 import dev.nanoplan.sim.ChannelCache;
 import dev.nanoplan.sim.ParticleSimulator;
 import dev.nanoplan.sim.SimulatedChannelMatrix;
+import dev.nanoplan.sim.SimulatedChannels;
 import dev.nanoplan.sim.SimulationSettings;
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -187,29 +188,30 @@ public final class PlanCommand implements Callable<Integer> {
         ParticleSimulator simulator = new ParticleSimulator(settings);
         ChannelCache cache = new ChannelCache(cacheDir != null ? cacheDir
                 : ChannelCache.defaultDirectory(environment, System.getProperty("user.home")));
-        double dt = simulator.timeStepS(scenario);
-        ChannelCache.Lookup lookup;
+        SimulatedChannels.Obtained got;
         try (SimulationRun run = new SimulationRun()) {
-            lookup = cache.getOrSimulate(scenario, settings, s -> {
-                err.println(String.format(Locale.ROOT, "simulated channel: cache miss; simulating %d molecules per "
-                        + "emitter, seed %d, dt %.3g s", settings.moleculesPerEmitter(), settings.seed(), dt));
-                err.flush();
-                return run.simulate(simulator, s, err, progress || System.console() != null);
-            });
-            if (!lookup.channel().complete()) {
-                err.println("nanoplan: simulation stopped after " + lookup.channel().moleculesSimulated()
+            got = SimulatedChannels.obtain(scenario, settings, cache, false,
+                    s -> run.simulate(simulator, s, err, progress || System.console() != null), () -> false, dt -> {
+                        err.println(String.format(Locale.ROOT, "simulated channel: cache miss; simulating %d "
+                                + "molecules per emitter, seed %d, dt %.3g s", settings.moleculesPerEmitter(),
+                                settings.seed(), dt));
+                        err.flush();
+                    });
+            if (!got.channel().complete()) {
+                err.println("nanoplan: simulation stopped after " + got.channel().moleculesSimulated()
                         + " molecules; no plan computed and nothing cached");
                 err.flush();
                 return null;
             }
         }
-        if (lookup.hit()) {
-            err.println("simulated channel: cache hit (" + lookup.file() + "), no simulation run");
+        got.throwStoreFailure();
+        if (got.fromCache()) {
+            err.println("simulated channel: cache hit (" + got.file() + "), no simulation run");
         } else {
-            err.println("simulated channel: stored in " + lookup.file());
+            err.println("simulated channel: stored in " + got.file());
         }
         err.flush();
-        return SimulatedChannelMatrix.of(lookup.channel());
+        return SimulatedChannelMatrix.of(got.channel());
     }
 
     /** Writes the three report files into {@code dir} (created if needed), each atomically. */
