@@ -1,6 +1,7 @@
 package dev.nanoplan.network;
 
 import java.util.Arrays;
+import java.util.Objects;
 
 /**
  * Taps of one emitter → receiver pair that share a species (the emitter's emitted species is the
@@ -73,7 +74,8 @@ public record ChannelEntry(String emitter, String receiver, String species, doub
     @Override
     public boolean equals(Object o) {
         return o instanceof ChannelEntry e && emitter.equals(e.emitter) && receiver.equals(e.receiver)
-                && species.equals(e.species) && Arrays.equals(taps, e.taps) && source.equals(e.source);
+                && species.equals(e.species) && Arrays.equals(taps, e.taps) && source.equals(e.source)
+                && Objects.equals(modelCaveat, e.modelCaveat);
     }
 
     @Override

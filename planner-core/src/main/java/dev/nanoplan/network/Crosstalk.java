@@ -5,8 +5,10 @@ import dev.nanoplan.count.CountTerm;
 import dev.nanoplan.count.MixtureTerm;
 import dev.nanoplan.count.PoissonTerm;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
+import java.util.Objects;
 
 /**
  * Crosstalk at one receiver under the all-active schedule (DESIGN.md §5.6): every other emitter of
@@ -85,6 +87,25 @@ public final class Crosstalk {
                 out.add(new MixtureTerm(weights, parts));
             }
             return out;
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            // every component, arrays by content
+            return o instanceof Interferer other
+                    && Objects.equals(id, other.id)
+                    && Arrays.equals(taps, other.taps)
+                    && Arrays.equals(levelMolecules, other.levelMolecules)
+                    && Arrays.equals(weights, other.weights);
+        }
+
+        @Override
+        public int hashCode() {
+            int h = Objects.hash(id);
+            h = 31 * h + Arrays.hashCode(taps);
+            h = 31 * h + Arrays.hashCode(levelMolecules);
+            h = 31 * h + Arrays.hashCode(weights);
+            return h;
         }
     }
 

@@ -1,6 +1,7 @@
 package dev.nanoplan.plan;
 
 import java.util.Arrays;
+import java.util.Objects;
 
 /**
  * One evaluated emitter → receiver link of a plan (the {@code links} entries of DESIGN.md §4.3).
@@ -49,12 +50,36 @@ public record LinkReport(String from, String to, String species, double hitProba
 
     @Override
     public boolean equals(Object o) {
-        return o instanceof LinkReport l && from.equals(l.from) && to.equals(l.to) && species.equals(l.species)
-                && Arrays.equals(taps, l.taps) && capacityBits == l.capacityBits && threshold == l.threshold;
+        // every component, arrays by content
+        return o instanceof LinkReport other
+                && Objects.equals(from, other.from)
+                && Objects.equals(to, other.to)
+                && Objects.equals(species, other.species)
+                && Double.compare(hitProbability, other.hitProbability) == 0
+                && Arrays.equals(taps, other.taps)
+                && Double.compare(signalMean, other.signalMean) == 0
+                && Double.compare(interferenceMean, other.interferenceMean) == 0
+                && Double.compare(isiMean, other.isiMean) == 0
+                && Double.compare(backgroundMean, other.backgroundMean) == 0
+                && threshold == other.threshold
+                && Double.compare(errorProbability, other.errorProbability) == 0
+                && Double.compare(log10ErrorProbability, other.log10ErrorProbability) == 0
+                && Double.compare(capacityBits, other.capacityBits) == 0
+                && Double.compare(rateBitsPerS, other.rateBitsPerS) == 0
+                && Double.compare(crossoverZero, other.crossoverZero) == 0
+                && Double.compare(crossoverOne, other.crossoverOne) == 0
+                && Objects.equals(limitedBy, other.limitedBy)
+                && Objects.equals(topInterferer, other.topInterferer)
+                && Double.compare(topInterfererShare, other.topInterfererShare) == 0
+                && Objects.equals(modelCaveat, other.modelCaveat);
     }
 
     @Override
     public int hashCode() {
-        return (from.hashCode() * 31 + to.hashCode()) * 31 + species.hashCode();
+        int h = Objects.hash(from, to, species, hitProbability, signalMean, interferenceMean, isiMean, backgroundMean,
+                threshold, errorProbability, log10ErrorProbability, capacityBits, rateBitsPerS, crossoverZero,
+                crossoverOne, limitedBy, topInterferer, topInterfererShare, modelCaveat);
+        h = 31 * h + Arrays.hashCode(taps);
+        return h;
     }
 }

@@ -4,6 +4,7 @@ import dev.nanoplan.info.BinaryChannel;
 import dev.nanoplan.info.BlahutArimoto;
 import dev.nanoplan.math.LogSpace;
 import java.util.Arrays;
+import java.util.Objects;
 import org.apache.commons.numbers.gamma.Erfc;
 
 /**
@@ -160,6 +161,23 @@ public final class NormalLinkApproximation {
             }
             return s;
         }
+
+        @Override
+        public boolean equals(Object o) {
+            // every component, arrays by content
+            return o instanceof Mixture other
+                    && Arrays.equals(weights, other.weights)
+                    && Arrays.equals(means, other.means)
+                    && Arrays.equals(variances, other.variances);
+        }
+
+        @Override
+        public int hashCode() {
+            int h = Arrays.hashCode(weights);
+            h = 31 * h + Arrays.hashCode(means);
+            h = 31 * h + Arrays.hashCode(variances);
+            return h;
+        }
     }
 
     /**
@@ -198,6 +216,25 @@ public final class NormalLinkApproximation {
         public double crossoverOne() {
             int m = channel.length - 1;
             return Math.max(0, Math.min(1, 1 - channel[m][m]));
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            // every component, arrays by content
+            return o instanceof Result other
+                    && Double.compare(capacityBits, other.capacityBits) == 0
+                    && Arrays.equals(thresholds, other.thresholds)
+                    && Arrays.deepEquals(channel, other.channel)
+                    && Double.compare(minErrorProbability, other.minErrorProbability) == 0
+                    && Double.compare(log10ErrorProbability, other.log10ErrorProbability) == 0;
+        }
+
+        @Override
+        public int hashCode() {
+            int h = Objects.hash(capacityBits, minErrorProbability, log10ErrorProbability);
+            h = 31 * h + Arrays.hashCode(thresholds);
+            h = 31 * h + Arrays.deepHashCode(channel);
+            return h;
         }
     }
 

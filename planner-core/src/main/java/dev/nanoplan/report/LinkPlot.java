@@ -1,7 +1,9 @@
 package dev.nanoplan.report;
 
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.Objects;
 
 /**
  * Draws the picture of one link: left, the count distribution given each sent level with the
@@ -19,6 +21,22 @@ public final class LinkPlot {
     public record Series(String label, long firstX, double[] y) {
         public Series {
             y = y.clone();
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            // every component, arrays by content
+            return o instanceof Series other
+                    && Objects.equals(label, other.label)
+                    && firstX == other.firstX
+                    && Arrays.equals(y, other.y);
+        }
+
+        @Override
+        public int hashCode() {
+            int h = Objects.hash(label, firstX);
+            h = 31 * h + Arrays.hashCode(y);
+            return h;
         }
     }
 

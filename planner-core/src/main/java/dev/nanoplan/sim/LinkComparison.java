@@ -1,5 +1,8 @@
 package dev.nanoplan.sim;
 
+import java.util.Arrays;
+import java.util.Objects;
+
 /**
  * Analytic versus simulated hit probability F(T) of one emitter → receiver link.
  *
@@ -44,5 +47,33 @@ public record LinkComparison(String from, String to, double analyticHitProbabili
     @Override
     public double[] analyticTaps() {
         return analyticTaps.clone();
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        // every component, arrays by content
+        return o instanceof LinkComparison other
+                && Objects.equals(from, other.from)
+                && Objects.equals(to, other.to)
+                && Double.compare(analyticHitProbability, other.analyticHitProbability) == 0
+                && Double.compare(simulatedHitProbability, other.simulatedHitProbability) == 0
+                && Double.compare(standardError, other.standardError) == 0
+                && Double.compare(zScore, other.zScore) == 0
+                && Double.compare(relativeDifference, other.relativeDifference) == 0
+                && flagged == other.flagged
+                && Objects.equals(reason, other.reason)
+                && Arrays.equals(simulatedTaps, other.simulatedTaps)
+                && Arrays.equals(simulatedTapsStandardError, other.simulatedTapsStandardError)
+                && Arrays.equals(analyticTaps, other.analyticTaps);
+    }
+
+    @Override
+    public int hashCode() {
+        int h = Objects.hash(from, to, analyticHitProbability, simulatedHitProbability, standardError, zScore,
+                relativeDifference, flagged, reason);
+        h = 31 * h + Arrays.hashCode(simulatedTaps);
+        h = 31 * h + Arrays.hashCode(simulatedTapsStandardError);
+        h = 31 * h + Arrays.hashCode(analyticTaps);
+        return h;
     }
 }

@@ -1,5 +1,8 @@
 package dev.nanoplan.sim;
 
+import java.util.Arrays;
+import java.util.Objects;
+
 /**
  * Simulated absorption-time histogram of one emitter → receiver pair.
  *
@@ -84,5 +87,23 @@ public record SimulatedTaps(String emitterId, String receiverId, boolean senses,
 
     private double standardError(double p) {
         return moleculesSimulated == 0 ? 0 : Math.sqrt(p * (1 - p) / moleculesSimulated);
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        // every component, arrays by content
+        return o instanceof SimulatedTaps other
+                && Objects.equals(emitterId, other.emitterId)
+                && Objects.equals(receiverId, other.receiverId)
+                && senses == other.senses
+                && moleculesSimulated == other.moleculesSimulated
+                && Arrays.equals(absorbedPerSlot, other.absorbedPerSlot);
+    }
+
+    @Override
+    public int hashCode() {
+        int h = Objects.hash(emitterId, receiverId, senses, moleculesSimulated);
+        h = 31 * h + Arrays.hashCode(absorbedPerSlot);
+        return h;
     }
 }
