@@ -20,7 +20,7 @@ import java.util.stream.IntStream;
 import org.apache.commons.numbers.gamma.Erfc;
 
 /**
- * Builds a {@link ChannelMatrix} from the open-medium closed forms (DESIGN.md §5.1–5.3): for each
+ * Builds a {@link ChannelMatrix} from the open-medium closed forms (docs/architecture.md §5.1–5.3): for each
  * emitter → receiver pair sharing a species, the hitting model of an absorbing sphere of the
  * receiver's radius r at centre distance d, with the species' D and half-life
  * ({@link OpenSphereHitting}, {@link DecayingSphereHitting}), sampled into taps p_0..p_L.

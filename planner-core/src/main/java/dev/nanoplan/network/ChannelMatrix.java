@@ -9,7 +9,7 @@ import java.util.Map;
 
 /**
  * The channel of a layout: taps[emitter][receiver][k] for every emitter → receiver pair that
- * shares a species and was not cut off as negligible, with how each was obtained (DESIGN.md §2).
+ * shares a species and was not cut off as negligible, with how each was obtained (docs/architecture.md §2).
  *
  * <p>Stored sparsely (a layout of 10,000 nodes has far fewer relevant pairs than n²): by receiver,
  * in the order given. Build one from closed forms with {@link AnalyticChannel} or from given

@@ -11,7 +11,7 @@ import java.util.List;
 import java.util.Objects;
 
 /**
- * Crosstalk at one receiver under the all-active schedule (DESIGN.md §5.6): every other emitter of
+ * Crosstalk at one receiver under the all-active schedule (docs/architecture.md §5.6): every other emitter of
  * the receiver's species sends an i.i.d. symbol in every slot, so it adds, for each slot k = 0..L,
  * one independent mixture term Σ_j w_j·Bin(n_j, p_k) (w = prior weights of its levels).
  *

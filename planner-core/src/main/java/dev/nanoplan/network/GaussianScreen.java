@@ -13,7 +13,7 @@ import org.apache.commons.numbers.gamma.Erfc;
  * means and variances (the moments of the terms, O(terms)); decide "high" iff Y ≥ τ with a
  * continuity correction of ½, for 256 thresholds spread over [μ_low − 6σ, μ_high + 6σ]; the
  * estimate is the best binary-asymmetric-channel capacity over them (Silverman 1955, via
- * {@link BinaryChannel#capacity(double, double)}). This is the textbook Gaussian shortcut (DESIGN.md
+ * {@link BinaryChannel#capacity(double, double)}). This is the textbook Gaussian shortcut (docs/architecture.md
  * §5.6), not a bound: with strong on/off interferers the true count law is multimodal and the
  * exact capacity was seen up to about 6× above the estimate, so callers skip a link only when the
  * estimate is below {@link #SAFETY_FACTOR}⁻¹ × the floor. Cost O(terms + 256).

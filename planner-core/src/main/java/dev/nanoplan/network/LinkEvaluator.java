@@ -18,8 +18,8 @@ import java.util.ArrayList;
 import java.util.List;
 
 /**
- * Evaluates one link: builds the law of the slot count given each sent level (DESIGN.md §5.6),
- * turns it into pmfs with the chosen count model, and runs detection and capacity (§5.7).
+ * Evaluates one link: builds the law of the slot count given each sent level (docs/architecture.md §5.6),
+ * turns it into pmfs with the chosen count model, and runs detection and capacity (docs/architecture.md §5.7).
  *
  * <p>The count given level i is Bin(n_i, p_0) + Σ_{k=1..L} [earlier symbol k: mixture over
  * levels j with the prior of Bin(n_j, p_k)] + interference terms (other emitters, supplied by the

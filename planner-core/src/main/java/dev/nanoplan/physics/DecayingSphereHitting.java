@@ -17,7 +17,7 @@ import org.apache.commons.numbers.gamma.Erfcx;
  * </pre>
  * (F_λ(∞) is the Laplace transform of the open-medium density f at λ, S. Redner, <i>A Guide
  * to First-Passage Processes</i>, Cambridge University Press, 2001, ch. 6; the finite-t form is
- * the closed-form integral of a·s^{-3/2}·e^{−a²/(4Ds) − λs} as stated in DESIGN §5.2, and is
+ * the closed-form integral of a·s^{-3/2}·e^{−a²/(4Ds) − λs} as stated in docs/architecture.md §5.2, and is
  * checked in the tests against numerical quadrature of f(s)·e^{−λs}.)
  *
  * <p>Numerics: the second term multiplies a huge e^{b} by a tiny erfc. Both terms are

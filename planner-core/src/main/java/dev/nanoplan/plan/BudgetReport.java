@@ -1,7 +1,7 @@
 package dev.nanoplan.plan;
 
 /**
- * Molecule budget of one emitting node (the {@code budgets} entries of DESIGN.md §4.3).
+ * Molecule budget of one emitting node (the {@code budgets} entries of docs/architecture.md §4.3).
  *
  * @param node                     node id
  * @param moleculesPerSymbolNeeded smallest molecules per "1" meeting the error target on every

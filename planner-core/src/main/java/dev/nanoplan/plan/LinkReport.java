@@ -4,7 +4,7 @@ import java.util.Arrays;
 import java.util.Objects;
 
 /**
- * One evaluated emitter → receiver link of a plan (the {@code links} entries of DESIGN.md §4.3).
+ * One evaluated emitter → receiver link of a plan (the {@code links} entries of docs/architecture.md §4.3).
  *
  * @param from                   emitter id (transmitter or relay)
  * @param to                     receiver id (receiver or relay)

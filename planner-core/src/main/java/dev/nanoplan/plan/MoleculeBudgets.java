@@ -11,7 +11,7 @@ import java.util.Map;
 import java.util.function.DoubleConsumer;
 
 /**
- * Molecule budgets (the {@code budgets} of DESIGN.md §4.3), one per emitting node.
+ * Molecule budgets (the {@code budgets} of docs/architecture.md §4.3), one per emitting node.
  *
  * <p><b>Per hop.</b> The smallest molecules per top level N such that the hop's minimum error
  * probability is at most {@code targets.max_error_probability}, with its interference fixed:

@@ -23,7 +23,7 @@ import java.util.function.DoubleConsumer;
 import java.util.stream.IntStream;
 
 /**
- * Plans a layout end to end (DESIGN.md §2): channel → every link under all-active crosstalk →
+ * Plans a layout end to end (docs/architecture.md §2): channel → every link under all-active crosstalk →
  * link graph → one widest route per demand with decode-and-forward cascade capacity →
  * bottleneck advice → molecule budgets.
  *

@@ -13,7 +13,7 @@ import org.apache.commons.numbers.gamma.Erfc;
  * a few strong on/off terms are kept apart ({@link Mixture}), by a finite mixture of normal laws.
  *
  * <p><b>Model.</b> The slot count is a sum of many independent binomial (and Poisson) terms
- * (DESIGN.md §5.6); by the central limit theorem it is close to normal when its variance is large.
+ * (docs/architecture.md §5.6); by the central limit theorem it is close to normal when its variance is large.
  * A count is an integer, so the tail uses the continuity correction of ½ (the de Moivre–Laplace
  * approximation of the binomial: W. Feller, <i>An Introduction to Probability Theory and Its
  * Applications</i>, vol. 1, 3rd ed., Wiley, 1968, ch. VII, §2–3):

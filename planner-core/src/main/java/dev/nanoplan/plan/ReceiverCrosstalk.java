@@ -8,7 +8,7 @@ import dev.nanoplan.network.Crosstalk;
 import java.util.List;
 
 /**
- * The crosstalk at one receiver, shared by all of its links (all-active schedule, DESIGN.md §5.6).
+ * The crosstalk at one receiver, shared by all of its links (all-active schedule, docs/architecture.md §5.6).
  *
  * <p>A link from the emitter of rank e (0 = strongest) hears every other emitter: the
  * {@code K = exactCount} strongest of them exactly and the rest as one moment-matched term

@@ -3,7 +3,7 @@ package dev.nanoplan.plan;
 import java.util.List;
 
 /**
- * The chosen route of one demand (the {@code routes} entries of DESIGN.md §4.3).
+ * The chosen route of one demand (the {@code routes} entries of docs/architecture.md §4.3).
  *
  * @param from                    demand source id
  * @param to                      demand destination id

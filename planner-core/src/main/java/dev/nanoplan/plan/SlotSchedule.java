@@ -9,7 +9,7 @@ import java.util.Map;
 /**
  * What a slot schedule ({@link Schedule}) does to the taps a link hears and to its rate.
  *
- * <p><b>all-active</b> (DESIGN.md §5.6): every emitter sends an i.i.d. symbol in every slot of
+ * <p><b>all-active</b> (docs/architecture.md §5.6): every emitter sends an i.i.d. symbol in every slot of
  * length T. A link hears its own taps p_0..p_L and every other emitter of the species with all of
  * its taps; rate = capacity / T. This class then changes nothing (frame of 1 slot).
  *

@@ -2,7 +2,7 @@ package dev.nanoplan.report;
 
 import java.util.List;
 
-/** The cautions of DESIGN.md §6, in the words every output uses. */
+/** The cautions of docs/architecture.md §6, in the words every output uses. */
 public final class Cautions {
 
     /** One line for machine-readable outputs. */

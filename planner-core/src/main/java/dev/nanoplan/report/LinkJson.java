@@ -8,7 +8,7 @@ import dev.nanoplan.detect.MultiLevelResult;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkSpec;
 
-/** The {@code link --json} object of DESIGN.md §4.3 (stable snake_case keys; more may be added). */
+/** The {@code link --json} object of docs/architecture.md §4.3 (stable snake_case keys; more may be added). */
 public final class LinkJson {
 
     static final ObjectMapper MAPPER = new ObjectMapper();

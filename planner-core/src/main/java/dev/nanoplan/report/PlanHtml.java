@@ -25,7 +25,7 @@ import java.util.Map;
  * A plan as one self-contained HTML page: inline CSS and SVG, no scripts, no external resources,
  * so it can be mailed or archived as a single file.
  *
- * <p>Content, top to bottom: title, the cautions of DESIGN.md §6 ({@link Cautions#FULL}) in a
+ * <p>Content, top to bottom: title, the cautions of docs/architecture.md §6 ({@link Cautions#FULL}) in a
  * highlighted box, the scenario summary (volume, medium, species, signalling, nodes, targets),
  * the top and side views ({@link LayoutSvg}), the routes table, the molecule budgets, the link
  * table (the {@value #MAX_LINK_ROWS} highest-capacity links, with a note when there are more),

@@ -11,7 +11,7 @@ import dev.nanoplan.plan.SharedRates;
 import java.util.List;
 
 /**
- * The {@code plan --json} object of DESIGN.md §4.3 (stable snake_case keys; more may be added).
+ * The {@code plan --json} object of docs/architecture.md §4.3 (stable snake_case keys; more may be added).
  *
  * <p>Top level: {@code scenario} (name), {@code channel}, {@code symbol_time_s}, {@code schedule}
  * ({@code all-active} or {@code round-robin}: then link rates are per frame of K slots), {@code links},

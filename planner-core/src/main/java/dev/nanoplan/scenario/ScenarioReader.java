@@ -24,7 +24,7 @@ import java.util.Locale;
 import java.util.Set;
 
 /**
- * Reads and validates a {@value Scenario#FORMAT} scenario file (DESIGN §4.1).
+ * Reads and validates a {@value Scenario#FORMAT} scenario file (docs/architecture.md §4.1).
  *
  * <p>All problems are collected before anything is thrown: malformed JSON (one problem at the
  * parser's line:column), unsupported format version, missing required fields, wrongly typed

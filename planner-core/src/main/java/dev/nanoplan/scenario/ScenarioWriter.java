@@ -17,7 +17,7 @@ import java.nio.file.StandardCopyOption;
 
 /**
  * Writes a {@link Scenario} in the {@value Scenario#FORMAT} file format, pretty-printed with the
- * fields in the order of DESIGN §4.1 and every default written out, so that reading the output
+ * fields in the order of docs/architecture.md §4.1 and every default written out, so that reading the output
  * gives back an equal scenario (numbers use the shortest decimal that reads back to the same
  * double, {@link Double#toString(double)}).
  *

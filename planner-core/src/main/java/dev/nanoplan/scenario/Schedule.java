@@ -1,7 +1,7 @@
 package dev.nanoplan.scenario;
 
 /**
- * Who sends in which symbol slot. All slots are synchronous (DESIGN.md §4.1); the schedule decides
+ * Who sends in which symbol slot. All slots are synchronous (docs/architecture.md §4.1); the schedule decides
  * which emitters of a species release in a slot ({@code dev.nanoplan.plan.SlotSchedule} turns it into
  * the taps each link hears and its rate).
  */

@@ -8,7 +8,7 @@ import java.util.Locale;
 
 /**
  * Turns a {@link SimulatedChannel} into the {@link ChannelMatrix} the planner consumes
- * (DESIGN.md §5.5: the simulator yields the same matrix as the closed forms).
+ * (docs/architecture.md §5.5: the simulator yields the same matrix as the closed forms).
  *
  * <p>One entry per emitter → receiver pair whose receiver absorbs the emitter's species
  * ({@link SimulatedTaps#senses()}; a relay's own releases and other species are left out), with

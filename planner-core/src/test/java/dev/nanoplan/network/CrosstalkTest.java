@@ -96,7 +96,7 @@ class CrosstalkTest {
         Crosstalk.Interferer i = new Crosstalk.Interferer("e2", other, new long[] {0, m}, new double[] {1 - q, q});
         LinkEvaluation ev = LinkEvaluator.evaluate(LinkSpec.binary(own, 0, n, q, b, CountModelKind.EXACT, 1.0),
                 Crosstalk.exactTerms(List.of(i)));
-        // Reference: DESIGN.md §5.6 count model enumerated over all 2^(2L+2) bit histories with
+        // Reference: docs/architecture.md §5.6 count model enumerated over all 2^(2L+2) bit histories with
         // Commons Statistics 1.2 binomial/Poisson pmfs; capacity of the induced binary channel
         // (Silverman, IRE Trans. Inf. Theory, 1955)
         assertThat(ev.capacityBits()).isCloseTo(bruteForceCapacity(own, n, other, m, q, b),

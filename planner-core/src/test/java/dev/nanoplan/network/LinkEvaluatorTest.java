@@ -58,7 +58,7 @@ class LinkEvaluatorTest {
         LinkSpec s = LinkSpec.binary(new double[] {p}, 0, n, q, background, CountModelKind.EXACT, 1);
         LinkEvaluation e = LinkEvaluator.evaluate(s);
         // Reference: Y|0 ~ Poisson(β), Y|1 ~ Bin(n, p) + Poisson(β), convolved from Commons Statistics
-        // pmfs; the error of "decide 1 iff Y ≥ τ" is (1−q)P(Y≥τ|0) + qP(Y<τ|1) (DESIGN.md §5.7).
+        // pmfs; the error of "decide 1 iff Y ≥ τ" is (1−q)P(Y≥τ|0) + qP(Y<τ|1) (docs/architecture.md §5.7).
         PoissonDistribution bg = PoissonDistribution.of(Math.max(background, 1e-300));
         BinomialDistribution sig = BinomialDistribution.of(n, p);
         double best = Double.POSITIVE_INFINITY;

@@ -26,11 +26,11 @@ class DecayingSphereHittingTest {
         DoubleUnaryOperator density =
             ReferenceQuadrature.density(p.distanceUm(), p.radiusUm(), p.diffusionUm2PerS(), rate);
         double expected = ReferenceQuadrature.integrate(density, p.scaleS(), rate, 0, p.timeS());
-        // DESIGN §5.2: F_λ(t) = ∫₀ᵗ f(s)e^{−λs} ds, f from Redner 2001; reference = Commons Math
+        // docs/architecture.md §5.2: F_λ(t) = ∫₀ᵗ f(s)e^{−λs} ds, f from Redner 2001; reference = Commons Math
         // iterative Gauss–Legendre
         assertThat(model.cumulative(p.timeS())).isCloseTo(expected, within(1e-9 * expected));
         assertThat(model.logCumulative(p.timeS())).isCloseTo(Math.log(expected), within(1e-9));
-        // DESIGN §5.2: f_λ(t) = f(t)e^{−λt}
+        // docs/architecture.md §5.2: f_λ(t) = f(t)e^{−λt}
         double f = density.applyAsDouble(p.timeS());
         assertThat(model.density(p.timeS())).isCloseTo(f, within(1e-13 * f));
     }
@@ -42,7 +42,7 @@ class DecayingSphereHittingTest {
             p.diffusionUm2PerS(), p.halfLifeS());
         double open = model.withoutDecay().cumulative(p.timeS());
         double decayed = model.cumulative(p.timeS());
-        // from F_λ(t) = ∫₀ᵗ f(s)e^{−λs} ds with e^{−λt} ≤ e^{−λs} ≤ 1 on [0, t] (DESIGN §5.2)
+        // from F_λ(t) = ∫₀ᵗ f(s)e^{−λs} ds with e^{−λt} ≤ e^{−λs} ≤ 1 on [0, t] (docs/architecture.md §5.2)
         assertThat(decayed).isLessThanOrEqualTo(open * (1 + 1e-13));
         assertThat(decayed).isGreaterThanOrEqualTo(open * Math.exp(-model.decayRatePerS() * p.timeS()) * (1 - 1e-13));
         assertThat(model.eventual()).isLessThanOrEqualTo(model.withoutDecay().eventual());
@@ -53,11 +53,11 @@ class DecayingSphereHittingTest {
         // a = 1 µm, D = 1 µm²/s, t = 1 s, λ = 1/4 per s: x = a/√(4Dt) = 1/2, y = √(λt) = 1/2,
         // b = a√(λ/D) = 1/2; r/d = 1/2
         DecayingSphereHitting model = DecayingSphereHitting.of(2, 1, 1, 4 * Math.log(2));
-        // computed by hand from DESIGN §5.2: (r/d)·½·[e^{−1/2}·erfc(0) + e^{1/2}·erfc(1)] with
+        // computed by hand from docs/architecture.md §5.2: (r/d)·½·[e^{−1/2}·erfc(0) + e^{1/2}·erfc(1)] with
         // erfc(0) = 1 and erf(1) = 0.8427007929 (Abramowitz & Stegun 1964, Table 7.1)
         double expected = 0.5 * 0.5 * (Math.exp(-0.5) + Math.exp(0.5) * (1 - 0.8427007929));
         assertThat(model.cumulative(1)).isCloseTo(expected, within(1e-10));
-        // DESIGN §5.2: F_λ(∞) = (r/d)·e^{−b}
+        // docs/architecture.md §5.2: F_λ(∞) = (r/d)·e^{−b}
         assertThat(model.eventual()).isCloseTo(0.5 * Math.exp(-0.5), within(1e-15));
     }
 
@@ -74,7 +74,7 @@ class DecayingSphereHittingTest {
                 double relative = (reference - model.cumulative(times[i])) / reference;
                 double x = 25 / Math.sqrt(4 * 80 * times[i]);
                 double slack = 2e-16 * (4 + x * x); // rounding, as stated in the Javadoc
-                // bound from e^{−λt} ≤ e^{−λs} ≤ 1 (DESIGN §5.2): 0 ≤ 1 − F_λ/F ≤ 1 − e^{−λt}
+                // bound from e^{−λt} ≤ e^{−λs} ≤ 1 (docs/architecture.md §5.2): 0 ≤ 1 − F_λ/F ≤ 1 − e^{−λt}
                 assertThat(relative).isBetween(-slack, -Math.expm1(-model.decayRatePerS() * times[i]) + slack);
                 // shrinking monotonically with the half-life: no jump on the way to the open model
                 assertThat(relative).isLessThanOrEqualTo(previous[i] + slack);
@@ -111,7 +111,7 @@ class DecayingSphereHittingTest {
             assertThat(model.logCumulative(t)).isFinite();
             assertThat(model.density(t)).isNotNaN().isGreaterThanOrEqualTo(0);
         }
-        // DESIGN §5.2: ln F_λ(∞) = ln(r/d) − a√(λ/D)
+        // docs/architecture.md §5.2: ln F_λ(∞) = ln(r/d) − a√(λ/D)
         assertThat(model.logCumulative(Double.POSITIVE_INFINITY))
             .isCloseTo(Math.log(1e-3) - 999 * Math.sqrt(Math.log(2) / 0.1), within(1e-10));
     }

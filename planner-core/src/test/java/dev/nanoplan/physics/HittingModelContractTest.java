@@ -13,7 +13,7 @@ import org.junit.jupiter.params.provider.MethodSource;
 /**
  * Invariants every {@link HittingModel} must keep, whatever its physics: F is a sub-probability
  * distribution function (0 for t ≤ 0, non-decreasing, at most F(∞)), ln F agrees with F and
- * stays finite, taps are non-negative and add up to F((L+1)T) (DESIGN §5.3). Subclasses list
+ * stays finite, taps are non-negative and add up to F((L+1)T) (docs/architecture.md §5.3). Subclasses list
  * models, including extreme geometries.
  */
 @TestInstance(TestInstance.Lifecycle.PER_CLASS)
@@ -86,7 +86,7 @@ abstract class HittingModelContractTest {
                 sum += tap;
             }
             double expected = model.cumulative((memory + 1) * symbolTimeS);
-            // DESIGN §5.3: the taps telescope to F((L+1)T)
+            // docs/architecture.md §5.3: the taps telescope to F((L+1)T)
             assertThat(sum).as("T = %s", symbolTimeS).isCloseTo(expected, within(1e-12 * expected + 1e-300));
         }
     }

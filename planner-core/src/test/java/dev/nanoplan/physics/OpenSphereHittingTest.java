@@ -26,7 +26,7 @@ class OpenSphereHittingTest {
         DoubleUnaryOperator density =
             ReferenceQuadrature.density(p.distanceUm(), p.radiusUm(), p.diffusionUm2PerS(), 0);
         double expected = ReferenceQuadrature.integrate(density, p.scaleS(), 0, 0, p.timeS());
-        // Redner 2001 (DESIGN §5.1): F(t) = ∫₀ᵗ f; reference = Commons Math iterative Gauss–Legendre
+        // Redner 2001 (docs/architecture.md §5.1): F(t) = ∫₀ᵗ f; reference = Commons Math iterative Gauss–Legendre
         assertThat(model.cumulative(p.timeS())).isCloseTo(expected, within(1e-9 * expected));
         // the density formula of Redner 2001 written out in the test
         assertThat(model.density(p.timeS()))

@@ -31,8 +31,8 @@ final class ReferenceQuadrature {
 
     /**
      * First-passage density to an absorbing sphere in an open medium, written out from
-     * S. Redner, A Guide to First-Passage Processes, 2001 (DESIGN §5.1), times e^{−λt}
-     * (DESIGN §5.2): f(t) = (r/d)·a/√(4πDt³)·exp(−a²/(4Dt))·exp(−λt).
+     * S. Redner, A Guide to First-Passage Processes, 2001 (docs/architecture.md §5.1), times e^{−λt}
+     * (docs/architecture.md §5.2): f(t) = (r/d)·a/√(4πDt³)·exp(−a²/(4Dt))·exp(−λt).
      */
     static DoubleUnaryOperator density(double distanceUm, double radiusUm, double diffusionUm2PerS,
                                        double decayRatePerS) {

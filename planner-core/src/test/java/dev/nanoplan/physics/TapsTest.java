@@ -12,7 +12,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 
-/** Per-slot hit probabilities p_k = F((k+1)T) − F(kT) (DESIGN §5.3) of both hitting models. */
+/** Per-slot hit probabilities p_k = F((k+1)T) − F(kT) (docs/architecture.md §5.3) of both hitting models. */
 class TapsTest {
 
     private static final double RELATIVE_TOLERANCE = 1e-10;
@@ -82,7 +82,7 @@ class TapsTest {
         for (double tap : taps) {
             sum += tap;
         }
-        // DESIGN §5.3: the taps telescope to F((L+1)T)
+        // docs/architecture.md §5.3: the taps telescope to F((L+1)T)
         assertThat(sum).isCloseTo(model.cumulative(10_001), within(1e-13));
         assertThat(taps[10_000]).isLessThan(taps[9_999]);
     }
@@ -95,11 +95,11 @@ class TapsTest {
         for (double tap : taps) {
             assertThat(tap).isGreaterThanOrEqualTo(0).isFinite();
         }
-        // DESIGN §5.3: p_0 = F(T)
+        // docs/architecture.md §5.3: p_0 = F(T)
         assertThat(taps[0]).isEqualTo(model.cumulative(1));
         DoubleUnaryOperator density = ReferenceQuadrature.density(10, 5, 100, model.decayRatePerS());
         double expected = ReferenceQuadrature.integrate(density, 25.0 / 400, model.decayRatePerS(), 1, 2);
-        // DESIGN §5.2 density f·e^{−λt} integrated by Commons Math iterative Gauss–Legendre
+        // docs/architecture.md §5.2 density f·e^{−λt} integrated by Commons Math iterative Gauss–Legendre
         assertThat(expected).isBetween(1e-120, 1e-80);
         assertThat(taps[1]).isCloseTo(expected, within(RELATIVE_TOLERANCE * expected));
         assertThat(taps[20]).isZero();
@@ -126,7 +126,7 @@ class TapsTest {
         for (int k = 0; k <= memory; k++) {
             double expected = ReferenceQuadrature.integrate(density, p.scaleS(), decayRatePerS,
                 k * symbolTimeS, (k + 1.0) * symbolTimeS);
-            // DESIGN §5.3 p_k = ∫ f over slot k, f from Redner 2001 (× e^{−λt}, DESIGN §5.2),
+            // docs/architecture.md §5.3 p_k = ∫ f over slot k, f from Redner 2001 (× e^{−λt}, docs/architecture.md §5.2),
             // reference = Commons Math iterative Gauss–Legendre
             if (expected >= 1e-250) {
                 assertThat(taps[k]).as("k = %d", k).isCloseTo(expected, within(RELATIVE_TOLERANCE * expected));

@@ -75,7 +75,7 @@ class RoundRobinPlannerTest {
     /**
      * Three emitters around one receiver with a species whose half-life (0.01 s) is short against
      * T = 1 s: after one slot a fraction 2^−100 of the molecules survives (first-order decay,
-     * DESIGN.md §5.2), so the neighbours, which round-robin moves to earlier slots, leave nothing.
+     * docs/architecture.md §5.2), so the neighbours, which round-robin moves to earlier slots, leave nothing.
      * Each link is then the lone link; all-active keeps the neighbours' current symbols.
      */
     @Test
@@ -89,7 +89,7 @@ class RoundRobinPlannerTest {
         double lone = LinkEvaluator.evaluate(spec(taps, 2000, T_S)).capacityBits();
         for (String tx : List.of("t0", "t1", "t2")) {
             LinkReport l = link(rr, tx);
-            // DESIGN.md §5.2 with half-life 0.01 s: leftovers after one slot are 2^-100 of a release,
+            // docs/architecture.md §5.2 with half-life 0.01 s: leftovers after one slot are 2^-100 of a release,
             // so time division leaves the lone link (LinkEvaluator without crosstalk)
             assertThat(l.capacityBits()).isCloseTo(lone, within(1e-9));
             // one symbol per frame of K = 3 slots
@@ -139,7 +139,7 @@ class RoundRobinPlannerTest {
                 List.of(new Crosstalk.Interferer("t1", new double[] {p[1], p[3]}, levels, w)));
         double expected = LinkEvaluator.evaluate(spec(new double[] {p[0], p[2], p[4]}, n, 2 * T_S), fromT1)
                 .capacityBits();
-        // DESIGN.md §5.6 count model with the round-robin lags derived by hand above
+        // docs/architecture.md §5.6 count model with the round-robin lags derived by hand above
         assertThat(r.capacityBits()).isCloseTo(expected, within(1e-9));
         // common practice (time division): fewer interfering releases per decoded slot, more bits per symbol
         assertThat(r.capacityBits()).isGreaterThan(a.capacityBits());
@@ -202,7 +202,7 @@ class RoundRobinPlannerTest {
                 new Crosstalk.Interferer("t2", new double[] {t2[1], t2[4], t2[7]}, levels, w)));
         double expected = LinkEvaluator.evaluate(spec(new double[] {t0[0], t0[3], t0[6]}, 400, 3 * T_S), others)
                 .capacityBits();
-        // DESIGN.md §5.6 count model with the round-robin lags derived by hand above
+        // docs/architecture.md §5.6 count model with the round-robin lags derived by hand above
         assertThat(link(rr, "t0").capacityBits()).isCloseTo(expected, within(1e-9));
         assertThat(link(rr, "t0").modelCaveat()).isEqualTo("simulated");
     }

@@ -13,7 +13,7 @@ class PlanHtmlTest {
     @Test
     void showsTheCautionsAssumptionsAndBothViews() {
         String html = PlanHtml.render(PlanFixtures.demo("s3"));
-        // DESIGN.md §6: the cautions are shown, in full, in every human-readable output
+        // docs/architecture.md §6: the cautions are shown, in full, in every human-readable output
         for (String c : Cautions.FULL) {
             assertThat(html).contains(PlanHtml.esc(c));
         }

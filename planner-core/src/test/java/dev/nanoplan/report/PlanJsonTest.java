@@ -33,7 +33,7 @@ class PlanJsonTest {
         JsonNode links = parsed().get("links");
         assertThat(links.size()).isEqualTo(4);
         for (JsonNode l : links) {
-            // key list and types: DESIGN.md §4.3, plan --json, links
+            // key list and types: docs/architecture.md §4.3, plan --json, links
             assertKeys(l, Map.ofEntries(Map.entry("from", JsonNodeType.STRING), Map.entry("to", JsonNodeType.STRING),
                     Map.entry("species", JsonNodeType.STRING), Map.entry("hit_probability", JsonNodeType.NUMBER),
                     Map.entry("taps", JsonNodeType.ARRAY), Map.entry("signal_mean", JsonNodeType.NUMBER),
@@ -60,7 +60,7 @@ class PlanJsonTest {
         JsonNode routes = parsed().get("routes");
         assertThat(routes.size()).isEqualTo(4);
         for (JsonNode r : routes) {
-            // key list and types: DESIGN.md §4.3, plan --json, routes
+            // key list and types: docs/architecture.md §4.3, plan --json, routes
             assertKeys(r, Map.of("from", JsonNodeType.STRING, "to", JsonNodeType.STRING, "hops", JsonNodeType.ARRAY,
                     "bottleneck_capacity_bits", JsonNodeType.NUMBER, "bottleneck_link", JsonNodeType.OBJECT,
                     "end_to_end_capacity_bits", JsonNodeType.NUMBER, "rate_bits_per_s", JsonNodeType.NUMBER,
@@ -70,7 +70,7 @@ class PlanJsonTest {
         assertThat(r0.get("hops").toString()).isEqualTo("[\"s1\",\"relay\",\"gw\"]");
         assertThat(r0.get("bottleneck_link").get("from").asText()).isEqualTo("s1");
         assertThat(r0.get("bottleneck_link").get("to").asText()).isEqualTo("relay");
-        // DESIGN.md §4.3: direct_capacity_bits is null when there is no direct link
+        // docs/architecture.md §4.3: direct_capacity_bits is null when there is no direct link
         assertThat(r0.get("direct_capacity_bits").isNull()).isTrue();
         assertThat(routes.get(2).get("direct_capacity_bits").asDouble()).isEqualTo(0.12);
         JsonNode unreachable = routes.get(3);
@@ -94,7 +94,7 @@ class PlanJsonTest {
     void budgetsAndTopLevelKeys() throws Exception {
         JsonNode root = parsed();
         for (JsonNode b : root.get("budgets")) {
-            // key list and types: DESIGN.md §4.3, plan --json, budgets
+            // key list and types: docs/architecture.md §4.3, plan --json, budgets
             assertKeys(b, Map.of("node", JsonNodeType.STRING, "molecules_per_symbol_needed", JsonNodeType.NUMBER,
                     "molecules_per_s", JsonNodeType.NUMBER, "molecules_per_mission", JsonNodeType.NUMBER,
                     "feasible", JsonNodeType.BOOLEAN, "reason", JsonNodeType.STRING));

@@ -62,7 +62,7 @@ class ScenarioWriterTest {
 
         List<String> names = new ArrayList<>();
         tree.fieldNames().forEachRemaining(names::add);
-        // DESIGN §4.1 field order.
+        // docs/architecture.md §4.1 field order.
         assertThat(names).containsExactly("format", "name", "volume", "medium", "species", "signalling", "nodes",
                 "demands", "targets");
         List<String> nodeFields = new ArrayList<>();

@@ -65,7 +65,7 @@ class OpenSphereValidationTest {
         for (int k = 0; k <= memory; k++) {
             double f = exact.cumulative((k + 1) * symbolTimeS);
             double se = Math.sqrt(f * (1 - f) / m);
-            // Redner 2001 ch. 6 with first-order decay: F_λ(t) = ∫₀ᵗ f(s) e^{−λs} ds (DESIGN §5.2 closed form)
+            // Redner 2001 ch. 6 with first-order decay: F_λ(t) = ∫₀ᵗ f(s) e^{−λs} ds (docs/architecture.md §5.2 closed form)
             assertThat(Math.abs(simulated[k] - f)).as("slot %d: simulated %s vs %s", k, simulated[k], f)
                     .isLessThan(Z_LIMIT * se);
         }

@@ -2,7 +2,7 @@ package dev.nanoplan.cli;
 
 import picocli.CommandLine;
 
-/** Maps failures to one-line messages and the exit statuses of DESIGN.md §4.2. */
+/** Maps failures to one-line messages and the exit statuses of docs/architecture.md §4.2. */
 final class ErrorHandling {
 
     static final int BAD_INPUT = 2;

@@ -39,7 +39,7 @@ import picocli.CommandLine.Spec;
  * {@code nanoplan plan SCENARIO [--json] [--out DIR] [--capacity-floor-bits X] [--lenient]
  * [--channel analytic|simulated [--molecules-per-emitter M] [--seed S] [--dt S] [--cache-dir DIR]]}:
  * plans the whole layout, on closed-form taps or on simulated ones (read from the
- * {@link ChannelCache} when the same physics, M, seed and Δt were simulated before). Prints the text summary, or with {@code --json} one JSON object (DESIGN.md §4.3)
+ * {@link ChannelCache} when the same physics, M, seed and Δt were simulated before). Prints the text summary, or with {@code --json} one JSON object (docs/architecture.md §4.3)
  * and nothing else on stdout; {@code --out DIR} also writes {@code plan.json}, {@code links.csv} and
  * {@code report.html} there, each atomically.
  */

@@ -12,7 +12,7 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 /**
- * {@code nanoplan validate SCENARIO [--lenient]}: only the checks of DESIGN.md §4.1. Prints
+ * {@code nanoplan validate SCENARIO [--lenient]}: only the checks of docs/architecture.md §4.1. Prints
  * {@code ok: <name>: N nodes, M demands} (and any warnings) with exit status 0, or every problem on
  * stderr, prefixed with the file name, with exit status 2.
  */

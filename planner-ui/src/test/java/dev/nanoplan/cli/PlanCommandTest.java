@@ -45,7 +45,7 @@ class PlanCommandTest {
         try (JsonParser p = m.getFactory().createParser(r.out())) {
             JsonNode root = m.readTree(p);
             assertThat(root.isObject()).isTrue();
-            // nothing after the one object (DESIGN.md §4.2: --json prints one JSON object and nothing else)
+            // nothing after the one object (docs/architecture.md §4.2: --json prints one JSON object and nothing else)
             assertThat(p.nextToken()).isNull();
             for (String key : new String[] {"links", "routes", "budgets", "warnings", "caution", "scenario"}) {
                 assertThat(root.has(key)).as(key).isTrue();

@@ -5,7 +5,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 
-/** Argument checks of {@code nanoplan ui}; none of these starts JavaFX. Exit statuses per DESIGN.md §4.2. */
+/** Argument checks of {@code nanoplan ui}; none of these starts JavaFX. Exit statuses per docs/architecture.md §4.2. */
 @Timeout(30)
 class UiCommandTest {
 
