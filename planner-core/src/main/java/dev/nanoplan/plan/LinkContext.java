@@ -5,7 +5,9 @@ import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.count.CountTerm;
 import dev.nanoplan.network.AnalyticChannel;
 import dev.nanoplan.network.ChannelEntry;
+import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.network.Crosstalk;
+import dev.nanoplan.network.GaussianScreen;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkEvaluator;
 import dev.nanoplan.network.LinkSpec;
@@ -51,46 +53,92 @@ final class LinkContext {
     /** Rank of this link's emitter among the emitters heard at the receiver ({@link Crosstalk.Prepared}). */
     private final int rank;
 
-    LinkContext(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry,
-            List<Crosstalk.Interferer> interferers, int exactCount) {
-        this(scenario, emitter, receiver, species, entry, interferers, exactCount,
-                Crosstalk.terms(interferers, exactCount), null, -1);
+    private LinkContext(Builder b) {
+        this.scenario = b.scenario;
+        this.emitter = b.emitter;
+        this.receiver = b.receiver;
+        this.species = b.species;
+        this.entry = b.entry;
+        this.interferers = b.interferers;
+        this.exactCount = b.exactCount;
+        this.terms = b.terms != null ? b.terms : Crosstalk.terms(b.interferers, b.exactCount);
+        this.shared = b.shared;
+        this.rank = b.rank;
+        this.slots = b.slots;
+        this.physical = b.physical != null ? b.physical : b.entry;
+        this.frameSlots = b.slots.frameSlots(b.entry.species());
+        this.analytic = b.entry.source().equals(ChannelMatrix.ANALYTIC);
     }
 
     /**
-     * @param terms  must equal {@code Crosstalk.terms(interferers, exactCount)}
-     * @param shared the receiver's crosstalk, whose emitters are {@code interferers} plus this
-     *               link's emitter of rank {@code rank}; or null
+     * A builder of the context of the link {@code entry} from {@code emitter} to {@code receiver}
+     * (of {@code species}) in {@code scenario}; by default no interferers, all-active, no shared
+     * receiver crosstalk.
      */
-    LinkContext(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry,
-            List<Crosstalk.Interferer> interferers, int exactCount, List<CountTerm> terms, ReceiverCrosstalk shared,
-            int rank) {
-        this(scenario, emitter, receiver, species, entry, interferers, exactCount, terms, shared, rank,
-                SlotSchedule.ALL_ACTIVE, entry);
+    static Builder builder(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry) {
+        return new Builder(scenario, emitter, receiver, species, entry);
     }
 
-    /**
-     * Under a slot schedule: {@code entry} and {@code interferers} hold the taps heard in the
-     * emitter's slots ({@link SlotSchedule#own}, {@link SlotSchedule#interferer}), {@code physical}
-     * the pair's channel taps.
-     */
-    LinkContext(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry,
-            List<Crosstalk.Interferer> interferers, int exactCount, List<CountTerm> terms, ReceiverCrosstalk shared,
-            int rank, SlotSchedule slots, ChannelEntry physical) {
-        this.slots = slots;
-        this.physical = physical;
-        this.frameSlots = slots.frameSlots(entry.species());
-        this.terms = terms;
-        this.shared = shared;
-        this.rank = rank;
-        this.scenario = scenario;
-        this.emitter = emitter;
-        this.receiver = receiver;
-        this.species = species;
-        this.entry = entry;
-        this.interferers = interferers;
-        this.exactCount = exactCount;
-        this.analytic = entry.source().equals(dev.nanoplan.network.ChannelMatrix.ANALYTIC);
+    /** Builds a {@link LinkContext}; the setters return this builder. */
+    static final class Builder {
+        private final Scenario scenario;
+        private final Node emitter;
+        private final Node receiver;
+        private final Species species;
+        private final ChannelEntry entry;
+        private List<Crosstalk.Interferer> interferers = List.of();
+        private int exactCount;
+        private List<CountTerm> terms;
+        private ReceiverCrosstalk shared;
+        private int rank = -1;
+        private SlotSchedule slots = SlotSchedule.ALL_ACTIVE;
+        private ChannelEntry physical;
+
+        private Builder(Scenario scenario, Node emitter, Node receiver, Species species, ChannelEntry entry) {
+            this.scenario = scenario;
+            this.emitter = emitter;
+            this.receiver = receiver;
+            this.species = species;
+            this.entry = entry;
+        }
+
+        /** Every other emitter heard, the strongest {@code exactCount} of them treated exactly ({@link Crosstalk}). */
+        Builder interferers(List<Crosstalk.Interferer> others, int exactCount) {
+            this.interferers = others;
+            this.exactCount = exactCount;
+            return this;
+        }
+
+        /** The crosstalk terms when already known; must equal {@code Crosstalk.terms(interferers, exactCount)}. */
+        Builder terms(List<CountTerm> known) {
+            this.terms = known;
+            return this;
+        }
+
+        /**
+         * The receiver's shared crosstalk, whose emitters are the interferers plus this link's emitter
+         * of rank {@code emitterRank} ({@link Crosstalk.Prepared#rankOf}).
+         */
+        Builder shared(ReceiverCrosstalk receiverCrosstalk, int emitterRank) {
+            this.shared = receiverCrosstalk;
+            this.rank = emitterRank;
+            return this;
+        }
+
+        /**
+         * A slot schedule other than all-active: the entry and the interferers then hold the taps heard in
+         * the emitter's slots ({@link SlotSchedule#own}, {@link SlotSchedule#interferer}), {@code channelEntry}
+         * the pair's channel taps.
+         */
+        Builder schedule(SlotSchedule schedule, ChannelEntry channelEntry) {
+            this.slots = schedule;
+            this.physical = channelEntry;
+            return this;
+        }
+
+        LinkContext build() {
+            return new LinkContext(this);
+        }
     }
 
     Signalling signalling() {
@@ -108,7 +156,15 @@ final class LinkContext {
 
     /** Levels of a node sending {@code top} molecules for its highest level. */
     long[] levels(long top) {
-        return NetworkPlanner.levelsOf(signalling(), top);
+        return levelsOf(signalling(), top);
+    }
+
+    /**
+     * Molecules of each level of a node sending {@code top} for its highest level: evenly spaced from 0
+     * ({@link LinkSpec#evenLevels}), with at least one molecule between levels.
+     */
+    static long[] levelsOf(Signalling s, long top) {
+        return LinkSpec.evenLevels(s.levels(), Math.max(top, s.levels() - 1));
     }
 
     LinkSpec spec(double[] taps, long top, double symbolTimeS, double backgroundPerS) {
@@ -178,7 +234,7 @@ final class LinkContext {
 
     /** Whether the Gaussian screen lets the link as laid out through to exact evaluation. */
     boolean passesScreen(double floorBits) {
-        return dev.nanoplan.network.GaussianScreen.passes(spec(entry.taps(), emitter.moleculesPerSymbol(),
+        return GaussianScreen.passes(spec(entry.taps(), emitter.moleculesPerSymbol(),
                 symbolTimeS(), scenario.medium().backgroundMoleculesPerS()), terms, floorBits);
     }
 

@@ -46,14 +46,14 @@ final class MoleculeBudgets {
     private MoleculeBudgets() {
     }
 
-    static List<BudgetReport> compute(Scenario scenario, List<List<NetworkPlanner.Evaluated>> routes,
+    static List<BudgetReport> compute(Scenario scenario, List<List<EvaluatedLink>> routes,
             DoubleConsumer progress) {
-        Map<String, List<NetworkPlanner.Evaluated>> sends = new LinkedHashMap<>();
+        Map<String, List<EvaluatedLink>> sends = new LinkedHashMap<>();
         Map<String, Integer> carried = new LinkedHashMap<>();
-        Map<String, NetworkPlanner.Evaluated> uniqueHops = new LinkedHashMap<>();
-        for (List<NetworkPlanner.Evaluated> r : routes) {
-            for (NetworkPlanner.Evaluated e : r) {
-                String k = NetworkPlanner.key(e.report().from(), e.report().to());
+        Map<LinkKey, EvaluatedLink> uniqueHops = new LinkedHashMap<>();
+        for (List<EvaluatedLink> r : routes) {
+            for (EvaluatedLink e : r) {
+                LinkKey k = e.key();
                 if (uniqueHops.putIfAbsent(k, e) == null) {
                     sends.computeIfAbsent(e.report().from(), x -> new ArrayList<>()).add(e);
                 }
@@ -64,11 +64,11 @@ final class MoleculeBudgets {
         Signalling sig = scenario.signalling();
         double[] w = LinkContext.weights(sig);
         SlotSchedule slots = SlotSchedule.of(scenario);
-        Map<String, HopBudget> hopBudgets = new java.util.concurrent.ConcurrentHashMap<>();
-        List<NetworkPlanner.Evaluated> hops = new ArrayList<>(uniqueHops.values());
+        Map<LinkKey, HopBudget> hopBudgets = new java.util.concurrent.ConcurrentHashMap<>();
+        List<EvaluatedLink> hops = new ArrayList<>(uniqueHops.values());
         java.util.concurrent.atomic.AtomicInteger done = new java.util.concurrent.atomic.AtomicInteger();
         hops.parallelStream().forEach(e -> {
-            hopBudgets.put(NetworkPlanner.key(e.report().from(), e.report().to()), hop(e.context(), target));
+            hopBudgets.put(e.key(), hop(e.context(), target));
             progress.accept(done.incrementAndGet() / (double) Math.max(1, hops.size()));
         });
         List<BudgetReport> out = new ArrayList<>();
@@ -76,7 +76,7 @@ final class MoleculeBudgets {
             if (!n.role().emits()) {
                 continue;
             }
-            List<NetworkPlanner.Evaluated> mine = sends.get(n.id());
+            List<EvaluatedLink> mine = sends.get(n.id());
             // one symbol per frame of K slots (K = 1 under all-active)
             int frame = slots.frameSlots(n.emitsSpecies());
             if (mine == null) {
@@ -89,8 +89,8 @@ final class MoleculeBudgets {
             long needed = 0;
             String reason = null;
             boolean feasible = true;
-            for (NetworkPlanner.Evaluated e : mine) {
-                HopBudget b = hopBudgets.get(NetworkPlanner.key(e.report().from(), e.report().to()));
+            for (EvaluatedLink e : mine) {
+                HopBudget b = hopBudgets.get(e.key());
                 if (b.molecules < 0) {
                     feasible = false;
                     reason = "unreachable on " + e.report().from() + " -> " + e.report().to() + ": " + b.reason;
@@ -119,7 +119,7 @@ final class MoleculeBudgets {
     }
 
     static double meanMolecules(Signalling sig, double[] w, long top) {
-        long[] lv = NetworkPlanner.levelsOf(sig, top);
+        long[] lv = LinkContext.levelsOf(sig, top);
         double m = 0;
         for (int j = 0; j < lv.length; j++) {
             m += w[j] * lv[j];

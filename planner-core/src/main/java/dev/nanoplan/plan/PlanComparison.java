@@ -54,19 +54,19 @@ public record PlanComparison(String nameA, String nameB, List<Row> rows) {
 
     /** Compares two plans. */
     public static PlanComparison of(Plan a, Plan b) {
-        Map<String, RouteReport> inB = new HashMap<>();
-        b.routes().forEach(r -> inB.put(NetworkPlanner.key(r.from(), r.to()), r));
+        Map<LinkKey, RouteReport> inB = new HashMap<>();
+        b.routes().forEach(r -> inB.put(new LinkKey(r.from(), r.to()), r));
         List<Row> rows = new ArrayList<>();
-        Set<String> seen = new HashSet<>();
+        Set<LinkKey> seen = new HashSet<>();
         for (RouteReport r : a.routes()) {
-            String k = NetworkPlanner.key(r.from(), r.to());
+            LinkKey k = new LinkKey(r.from(), r.to());
             if (seen.add(k)) {
                 RouteReport rb = inB.get(k);
                 rows.add(new Row(r.from(), r.to(), side(a, r), rb == null ? null : side(b, rb)));
             }
         }
         for (RouteReport r : b.routes()) {
-            if (seen.add(NetworkPlanner.key(r.from(), r.to()))) {
+            if (seen.add(new LinkKey(r.from(), r.to()))) {
                 rows.add(new Row(r.from(), r.to(), null, side(b, r)));
             }
         }

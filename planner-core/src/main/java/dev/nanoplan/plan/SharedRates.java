@@ -44,9 +44,9 @@ public final class SharedRates {
 
     /** One share per route of the plan, in the plan's order. */
     public static List<Share> of(Plan plan) {
-        Map<String, Double> linkRate = new HashMap<>();
+        Map<LinkKey, Double> linkRate = new HashMap<>();
         for (LinkReport l : plan.links()) {
-            linkRate.put(NetworkPlanner.key(l.from(), l.to()), l.rateBitsPerS());
+            linkRate.put(LinkKey.of(l), l.rateBitsPerS());
         }
         Map<String, Integer> emitterIndex = new LinkedHashMap<>();
         List<Double> emitterCap = new ArrayList<>();
@@ -59,7 +59,7 @@ public final class SharedRates {
             own[f] = r.reachable() ? r.rateBitsPerS() : 0;
             uses[f] = new int[Math.max(0, hops.size() - 1)];
             for (int h = 0; h + 1 < hops.size(); h++) {
-                Double c = linkRate.get(NetworkPlanner.key(hops.get(h), hops.get(h + 1)));
+                Double c = linkRate.get(new LinkKey(hops.get(h), hops.get(h + 1)));
                 if (c == null) {
                     throw new IllegalArgumentException("route " + r.from() + " -> " + r.to() + " uses hop "
                             + hops.get(h) + " -> " + hops.get(h + 1) + " that is not among the plan's links");

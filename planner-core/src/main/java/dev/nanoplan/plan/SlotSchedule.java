@@ -70,6 +70,18 @@ public final class SlotSchedule {
         return new SlotSchedule(scenario.signalling().schedule(), Map.copyOf(slot), Map.copyOf(frames));
     }
 
+    /** Equal when the schedule, every emitter's slot and every species' frame are equal. */
+    @Override
+    public boolean equals(Object o) {
+        return o instanceof SlotSchedule s && schedule == s.schedule && slotOfEmitter.equals(s.slotOfEmitter)
+                && framesOfSpecies.equals(s.framesOfSpecies);
+    }
+
+    @Override
+    public int hashCode() {
+        return (schedule.hashCode() * 31 + slotOfEmitter.hashCode()) * 31 + framesOfSpecies.hashCode();
+    }
+
     /** The schedule. */
     public Schedule schedule() {
         return schedule;

@@ -106,7 +106,7 @@ class PreviewPlannerTest {
             }
             double d = Math.abs(p.capacityBits() - e.capacityBits());
             all.add(d);
-            if (lyapunovRatio(s, channel, e, PreviewPlanner.strongTerms(s.signalling().levels())) <= LYAPUNOV_LIMIT) {
+            if (lyapunovRatio(s, channel, e, NormalReceiverEvaluator.strongTerms(s.signalling().levels())) <= LYAPUNOV_LIMIT) {
                 covered.add(d);
                 assertThat(d).as("%s->%s exact %.4f preview %.4f", e.from(), e.to(), e.capacityBits(),
                         p.capacityBits()).isLessThanOrEqualTo(COVERED_TOLERANCE_BITS);
@@ -141,7 +141,7 @@ class PreviewPlannerTest {
         Plan exact = NetworkPlanner.plan(s, PlanOptions.DEFAULT);
         ChannelMatrix channel = AnalyticChannel.build(s, PlanOptions.DEFAULT.cutoffMolecules());
         long coveredLinks = exact.links().stream()
-                .filter(l -> lyapunovRatio(s, channel, l, PreviewPlanner.strongTerms(2)) <= LYAPUNOV_LIMIT).count();
+                .filter(l -> lyapunovRatio(s, channel, l, NormalReceiverEvaluator.strongTerms(2)) <= LYAPUNOV_LIMIT).count();
         assertThat(coveredLinks).isGreaterThanOrEqualTo(exact.links().size() * 3 / 4);
     }
 
@@ -165,7 +165,7 @@ class PreviewPlannerTest {
         double var = link.backgroundMean();
         List<double[]> onOff = new ArrayList<>();
         for (ChannelEntry e : channel.atReceiver(link.to())) {
-            long[] lv = NetworkPlanner.levelsOf(s.signalling(), nodes.get(e.emitter()).moleculesPerSymbol());
+            long[] lv = LinkContext.levelsOf(s.signalling(), nodes.get(e.emitter()).moleculesPerSymbol());
             double a = 0;
             double b = 0;
             for (int j = 0; j < lv.length; j++) {

@@ -1,0 +1,191 @@
+package dev.nanoplan.plan;
+
+import dev.nanoplan.network.ChannelEntry;
+import dev.nanoplan.network.ChannelMatrix;
+import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.Scenario;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Set;
+
+/**
+ * Plans a layout, then re-plans it after edits by re-evaluating only the receivers whose links can
+ * have changed. The plan after {@link #replan(Scenario)} is the plan {@link NetworkPlanner#plan} (or
+ * {@link PreviewPlanner#plan}) would give for the edited scenario, byte for byte in its JSON
+ * ({@code IncrementalPlannerTest}).
+ *
+ * <p><b>What is re-evaluated.</b> The expensive step of a plan is the per-receiver link evaluation
+ * ({@link ReceiverEvaluator}); it is a deterministic function of the scenario's signalling and medium,
+ * the slot schedule, the options, and per receiver: its node, its species, its channel entries (taps,
+ * source and model caveat of every emitter heard) and the nodes of those emitters. A re-plan rebuilds
+ * the channel of the edited scenario (analytic closed forms, a small part of the cost; or the
+ * {@link PlanOptions#channel()} given, unchanged) and re-evaluates receiver r when any of these holds:
+ * <ul>
+ *   <li>the signalling, the medium or the volume changed, or under a schedule other than all-active the
+ *       slot assignment changed (then every receiver);</li>
+ *   <li>r is new, or its node changed (position, radius, molecules, role, species), or its species
+ *       changed (diffusion, half-life);</li>
+ *   <li>the list of channel entries at r changed (an emitter entered or left r's cutoff, or its taps
+ *       or caveat changed), or the node of an emitter heard at r changed (e.g. its molecules).</li>
+ * </ul>
+ * Every other receiver keeps its evaluated links, which are exactly what a new evaluation would give
+ * (same inputs, deterministic evaluator). Since a channel entry exists only within the cutoff
+ * ({@link PlanOptions#cutoffMolecules()}), an edit of one node re-evaluates the node itself and the
+ * receivers within the cutoff of its old or new position; an edit of one species re-evaluates that
+ * species' receivers; a change of the schedule (or symbol time, memory, prior, levels, count model)
+ * all of them. The rest of the plan — link graph, routes, advice, budgets, shared rates, warnings —
+ * is rebuilt from all receivers' links ({@link PlanPipeline#assemble}); for the exact plan the budgets'
+ * searches are then most of a re-plan's cost.
+ *
+ * <p>A kept link's {@link LinkContext} still refers to the scenario it was evaluated in; it reads only
+ * the signalling and the medium from it, which are equal by the rules above.
+ *
+ * <p>Not thread-safe: one caller re-plans at a time (each re-plan evaluates its receivers in
+ * parallel as the full plan does).
+ */
+public final class IncrementalPlanner {
+
+    private final PlanOptions options;
+    private final ReceiverEvaluator evaluator;
+    private PlanInputs inputs;
+    private ChannelMatrix channel;
+    private Map<String, ReceiverLinks> links;
+    private Plan plan;
+    private int reevaluated;
+
+    private IncrementalPlanner(Scenario scenario, PlanOptions options, ReceiverEvaluator evaluator) {
+        this.options = options;
+        this.evaluator = evaluator;
+        this.inputs = PlanInputs.of(scenario, options);
+        this.channel = PlanPipeline.channel(inputs, f -> { });
+        this.links = PlanPipeline.evaluate(inputs, channel, channel.receivers(), evaluator, f -> { });
+        this.reevaluated = links.size();
+        this.plan = PlanPipeline.assemble(inputs, channel, links, evaluator);
+    }
+
+    /**
+     * The exact planner ({@link NetworkPlanner}) of {@code scenario}, planned once.
+     *
+     * @throws IllegalArgumentException as {@link NetworkPlanner#plan}
+     */
+    public static IncrementalPlanner exact(Scenario scenario, PlanOptions options) {
+        return new IncrementalPlanner(scenario, options, ExactReceiverEvaluator.INSTANCE);
+    }
+
+    /**
+     * The preview planner ({@link PreviewPlanner}) of {@code scenario}, planned once.
+     *
+     * @throws IllegalArgumentException as {@link PreviewPlanner#plan} (e.g. a round-robin schedule)
+     */
+    public static IncrementalPlanner preview(Scenario scenario, PlanOptions options) {
+        checkPreview(scenario);
+        return new IncrementalPlanner(scenario, options, NormalReceiverEvaluator.INSTANCE);
+    }
+
+    private static void checkPreview(Scenario scenario) {
+        if (!PreviewPlanner.supports(scenario)) {
+            throw new IllegalArgumentException("signalling.schedule: the preview covers all-active only, got "
+                    + scenario.signalling().schedule().id());
+        }
+    }
+
+    /** The plan of the last scenario planned. */
+    public Plan plan() {
+        return plan;
+    }
+
+    /** The scenario of {@link #plan()}. */
+    public Scenario scenario() {
+        return inputs.scenario();
+    }
+
+    /** How many receivers the last plan or re-plan evaluated (the rest were kept). */
+    public int lastReevaluatedReceivers() {
+        return reevaluated;
+    }
+
+    /**
+     * Plans {@code edited} (any valid scenario; cheapest when it differs from {@link #scenario()} in a
+     * few nodes or one species), re-evaluating only the receivers named in the class comment, and
+     * remembers it for the next re-plan.
+     *
+     * @throws IllegalArgumentException as the full planner (the previous plan is then kept)
+     */
+    public Plan replan(Scenario edited) {
+        if (evaluator == NormalReceiverEvaluator.INSTANCE) {
+            checkPreview(edited);
+        }
+        PlanInputs next = PlanInputs.of(edited, options);
+        ChannelMatrix nextChannel = PlanPipeline.channel(next, f -> { });
+        Scenario before = inputs.scenario();
+        boolean all = !before.signalling().equals(edited.signalling()) || !before.medium().equals(edited.medium())
+                || !before.volume().equals(edited.volume()) || !inputs.slots().equals(next.slots());
+        Set<String> changedNodes = changedNodes(inputs.nodes(), next.nodes());
+        Map<String, ReceiverLinks> kept = new HashMap<>();
+        List<String> redo = new ArrayList<>();
+        for (String r : nextChannel.receivers()) {
+            ReceiverLinks old = links.get(r);
+            if (!all && old != null && !changedNodes.contains(r)
+                    && Objects.equals(inputs.species().get(next.nodes().get(r).species()),
+                            next.species().get(next.nodes().get(r).species()))
+                    && sameEntries(channel.atReceiver(r), nextChannel.atReceiver(r), changedNodes)) {
+                kept.put(r, old);
+            } else {
+                redo.add(r);
+            }
+        }
+        Map<String, ReceiverLinks> fresh = PlanPipeline.evaluate(next, nextChannel, redo, evaluator, f -> { });
+        Plan nextPlan = PlanPipeline.assemble(next, nextChannel, merge(kept, fresh), evaluator);
+        kept.putAll(fresh);
+        inputs = next;
+        channel = nextChannel;
+        links = kept;
+        plan = nextPlan;
+        reevaluated = redo.size();
+        return nextPlan;
+    }
+
+    private static Map<String, ReceiverLinks> merge(Map<String, ReceiverLinks> a, Map<String, ReceiverLinks> b) {
+        Map<String, ReceiverLinks> out = new HashMap<>(a);
+        out.putAll(b);
+        return out;
+    }
+
+    /** Ids of nodes added, removed or changed in any field. */
+    private static Set<String> changedNodes(Map<String, Node> before, Map<String, Node> after) {
+        Set<String> out = new HashSet<>();
+        for (Map.Entry<String, Node> e : after.entrySet()) {
+            if (!e.getValue().equals(before.get(e.getKey()))) {
+                out.add(e.getKey());
+            }
+        }
+        for (String id : before.keySet()) {
+            if (!after.containsKey(id)) {
+                out.add(id);
+            }
+        }
+        return out;
+    }
+
+    /**
+     * Whether a receiver hears the same entries in the same order (emitter, species, taps, source and
+     * model caveat; {@link ChannelEntry#equals} leaves out the caveat) from unchanged emitters.
+     */
+    private static boolean sameEntries(List<ChannelEntry> before, List<ChannelEntry> after, Set<String> changed) {
+        if (before.size() != after.size()) {
+            return false;
+        }
+        for (int i = 0; i < after.size(); i++) {
+            ChannelEntry a = before.get(i);
+            ChannelEntry b = after.get(i);
+            if (changed.contains(b.emitter()) || !a.equals(b) || !Objects.equals(a.modelCaveat(), b.modelCaveat())) {
+                return false;
+            }
+        }
+        return true;
+    }
+}

@@ -1,0 +1,171 @@
+package dev.nanoplan.plan;
+
+import dev.nanoplan.network.AnalyticChannel;
+import dev.nanoplan.network.ChannelEntry;
+import dev.nanoplan.network.ChannelMatrix;
+import dev.nanoplan.network.LinkEdge;
+import dev.nanoplan.network.LinkGraph;
+import dev.nanoplan.scenario.Demand;
+import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Signalling;
+import dev.nanoplan.scenario.Species;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.DoubleConsumer;
+import java.util.stream.IntStream;
+
+/**
+ * The one plan skeleton (docs/architecture.md, data flow): channel → per-receiver link evaluation
+ * ({@link ReceiverEvaluator}) → link graph → routes ({@link RouteAssembler}) → molecule budgets →
+ * shared rates ({@link SharedRates}) → warnings. The exact plan and the preview differ only in the
+ * evaluator.
+ *
+ * <p>The steps are separate so that {@link IncrementalPlanner} can keep the per-receiver results of
+ * receivers whose inputs did not change and redo only {@link #assemble} for the rest.
+ *
+ * <p><b>Warnings</b>, in this order: the evaluator's leading ones, the channel's notes, round-robin
+ * memory notes, the links' notes (model caveats, levels &gt; 2), per demand (unreachable, below the
+ * rate target), then the shared-rate ones.
+ *
+ * <p>Progress: the channel is 20 % of the work, links 65 %, routes and advice 5 %, budgets 10 %.
+ */
+final class PlanPipeline {
+
+    private PlanPipeline() {
+    }
+
+    /** Plans the scenario with the given evaluator. */
+    static Plan plan(Scenario scenario, PlanOptions options, ReceiverEvaluator evaluator) {
+        DoubleConsumer progress = options.progress();
+        progress.accept(0);
+        PlanInputs in = PlanInputs.of(scenario, options);
+        ChannelMatrix channel = channel(in, f -> progress.accept(0.2 * f));
+        List<String> receivers = channel.receivers();
+        Map<String, ReceiverLinks> links = evaluate(in, channel, receivers, evaluator,
+                f -> progress.accept(0.2 + 0.65 * f));
+        return assemble(in, channel, links, evaluator);
+    }
+
+    /**
+     * The channel of the plan: {@link PlanOptions#channel()} when given, else the analytic one.
+     *
+     * @throws IllegalArgumentException if the channel names nodes not in the scenario
+     */
+    static ChannelMatrix channel(PlanInputs in, DoubleConsumer progress) {
+        PlanOptions options = in.options();
+        ChannelMatrix channel = options.channel() != null ? options.channel()
+                : AnalyticChannel.build(in.scenario(), options.cutoffMolecules(), progress);
+        for (ChannelEntry e : channel.entries()) {
+            if (!in.nodes().containsKey(e.emitter()) || !in.nodes().containsKey(e.receiver())) {
+                throw new IllegalArgumentException("channel: pair " + e.emitter() + " -> " + e.receiver()
+                        + " names a node that is not in the scenario");
+            }
+        }
+        return channel;
+    }
+
+    /** The evaluator's result at each of {@code receivers} (receivers of {@code channel}). */
+    static Map<String, ReceiverLinks> evaluate(PlanInputs in, ChannelMatrix channel, List<String> receivers,
+            ReceiverEvaluator evaluator, DoubleConsumer progress) {
+        ReceiverLinks[] per = new ReceiverLinks[receivers.size()];
+        AtomicInteger done = new AtomicInteger();
+        int total = Math.max(1, receivers.size());
+        IntStream range = IntStream.range(0, receivers.size());
+        if (evaluator.parallel(receivers.size())) {
+            range = range.parallel();
+        }
+        range.forEach(ri -> {
+            List<ChannelEntry> entries = channel.atReceiver(receivers.get(ri));
+            per[ri] = entries.isEmpty() ? ReceiverLinks.NONE : evaluator.evaluate(in, entries);
+            progress.accept(done.incrementAndGet() / (double) total);
+        });
+        Map<String, ReceiverLinks> out = new HashMap<>(receivers.size() * 2);
+        for (int i = 0; i < per.length; i++) {
+            out.put(receivers.get(i), per[i]);
+        }
+        return out;
+    }
+
+    /**
+     * The plan from the channel and the evaluated links of every receiver of the channel (taken in
+     * the channel's receiver order): link graph, routes, budgets, shared rates and warnings.
+     */
+    static Plan assemble(PlanInputs in, ChannelMatrix channel, Map<String, ReceiverLinks> byReceiver,
+            ReceiverEvaluator evaluator) {
+        Scenario scenario = in.scenario();
+        PlanOptions options = in.options();
+        DoubleConsumer progress = options.progress();
+        Signalling sig = scenario.signalling();
+        List<String> warnings = new ArrayList<>(evaluator.leadingWarnings());
+        warnings.addAll(channel.notes());
+        addScheduleWarnings(in, warnings);
+
+        Map<LinkKey, EvaluatedLink> byPair = new HashMap<>();
+        Map<LinkKey, Double> evaluatedCapacity = new HashMap<>();
+        List<LinkEdge> edges = new ArrayList<>();
+        List<LinkReport> linkReports = new ArrayList<>();
+        for (String r : channel.receivers()) {
+            ReceiverLinks links = byReceiver.get(r);
+            evaluatedCapacity.putAll(links.evaluatedCapacity());
+            for (EvaluatedLink e : links.kept()) {
+                byPair.put(e.key(), e);
+                edges.add(e.edge());
+                linkReports.add(e.report());
+            }
+        }
+        addLinkWarnings(linkReports, sig, warnings);
+        LinkGraph graph = LinkGraph.of(in.nodes().keySet(), edges, options.capacityFloorBits());
+
+        RouteAssembler assembler = new RouteAssembler(in, graph, byPair, evaluatedCapacity, evaluator);
+        List<RouteReport> routes = new ArrayList<>();
+        List<List<EvaluatedLink>> routeHops = new ArrayList<>();
+        for (Demand d : scenario.demands()) {
+            List<EvaluatedLink> hops = new ArrayList<>();
+            routes.add(assembler.route(d, hops, warnings));
+            routeHops.add(hops);
+        }
+        progress.accept(0.9);
+        List<BudgetReport> budgets = evaluator.budgets(in, routeHops, f -> progress.accept(0.9 + 0.1 * f));
+        progress.accept(1.0);
+        Plan plan = new Plan(scenario, channel.source(), linkReports, routes, budgets, warnings);
+        List<String> shared = SharedRates.warnings(plan);
+        if (shared.isEmpty()) {
+            return plan;
+        }
+        warnings.addAll(shared);
+        return new Plan(scenario, channel.source(), linkReports, routes, budgets, warnings);
+    }
+
+    /** Round-robin: a note per species whose frame is longer than half the ISI memory. */
+    private static void addScheduleWarnings(PlanInputs in, List<String> warnings) {
+        SlotSchedule slots = in.slots();
+        Signalling sig = in.scenario().signalling();
+        for (Species sp : slots.allActive() ? List.<Species>of() : in.scenario().species()) {
+            int frame = slots.frameSlots(sp.name());
+            if (frame > 1 && sig.isiMemorySymbols() < 2 * frame) {
+                warnings.add(String.format(Locale.ROOT, "round-robin: species %s has a frame of %d slots but "
+                        + "isi_memory_symbols is %d: leftovers older than that (a link's own earlier symbols come "
+                        + "%d slots back) are not counted; let the memory cover a few frames unless %s decays within "
+                        + "a few slots", sp.name(), frame, sig.isiMemorySymbols(), frame, sp.name()));
+            }
+        }
+    }
+
+    /** The plan-wide notes about its links: closed forms used near walls or in flow, and levels > 2. */
+    private static void addLinkWarnings(List<LinkReport> links, Signalling sig, List<String> warnings) {
+        long caveats = links.stream()
+                .filter(l -> l.modelCaveat() != null && !l.modelCaveat().equals("simulated")).count();
+        if (caveats > 0) {
+            warnings.add(caveats + " link(s) rest on open-medium closed forms near walls or in flow "
+                    + "(model_caveat); check them with the particle simulation");
+        }
+        if (sig.levels() > 2) {
+            warnings.add("levels > 2: crossovers are the probabilities of deciding any other level for the lowest "
+                    + "and highest level; earlier symbols are taken as uniform over the levels");
+        }
+    }
+}
