@@ -51,7 +51,7 @@ final class LinkChartsView {
         mi.setCreateSymbols(false);
         box = new VBox(6, heading, taps, counts, mi, budget);
         box.setFillWidth(true);
-        vm.selectedLinkProperty().addListener((o, a, b) -> refresh(b));
+        vm.tables().selectedLinkProperty().addListener((o, a, b) -> refresh(b));
     }
 
     /** True while chart data are being computed. */
@@ -91,7 +91,7 @@ final class LinkChartsView {
             try {
                 LinkDetails d = LinkDetails.compute(s, l);
                 Platform.runLater(() -> {
-                    if (l.equals(vm.selectedLinkProperty().get())) {
+                    if (l.equals(vm.tables().selectedLinkProperty().get())) {
                         show(d);
                         computing.set(false);
                     }

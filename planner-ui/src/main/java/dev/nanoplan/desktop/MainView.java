@@ -81,7 +81,7 @@ public final class MainView {
         StackPane.setMargin(legend, new Insets(10));
         ProgressIndicator busy = new ProgressIndicator();
         busy.setMaxSize(36, 36);
-        busy.visibleProperty().bind(vm.busyProperty());
+        busy.visibleProperty().bind(vm.plans().busyProperty());
         busy.setId("busy");
         StackPane.setAlignment(busy, Pos.TOP_RIGHT);
         StackPane.setMargin(busy, new Insets(10));
@@ -159,20 +159,20 @@ public final class MainView {
 
     private ToolBar toolBar(AppActions actions) {
         Button undo = button("Undo", "Undo the last edit (Ctrl+Z)", vm::undo);
-        undo.disableProperty().bind(vm.undoStack().canUndoProperty().not());
+        undo.disableProperty().bind(vm.document().undoStack().canUndoProperty().not());
         Button redo = button("Redo", "Redo (Ctrl+Y)", vm::redo);
-        redo.disableProperty().bind(vm.undoStack().canRedoProperty().not());
+        redo.disableProperty().bind(vm.document().undoStack().canRedoProperty().not());
         Button fit = button("Fit", "Fit the layout in view (F)", sceneView::fit);
         Button front = button("Front", "Look along +y (1)", () -> sceneView.preset(SceneView.Preset.FRONT));
         Button side = button("Side", "Look along the x axis (2)", () -> sceneView.preset(SceneView.Preset.SIDE));
         Button top = button("Top", "Look down the z axis (3)", () -> sceneView.preset(SceneView.Preset.TOP));
         Button persp = button("3D", "Perspective view (0)", () -> sceneView.preset(SceneView.Preset.PERSPECTIVE));
         ToggleButton routesOnly = new ToggleButton("Routes only");
-        routesOnly.selectedProperty().bindBidirectional(vm.showRoutesOnlyProperty());
+        routesOnly.selectedProperty().bindBidirectional(vm.tables().showRoutesOnlyProperty());
         Button keep = button("Keep for compare", "Keep this design's numbers to compare with later edits",
                 vm::keepForComparison);
         Button cancel = button("Cancel", "Cancel the running plan", vm::cancelPlan);
-        cancel.visibleProperty().bind(vm.busyProperty());
+        cancel.visibleProperty().bind(vm.plans().busyProperty());
         ToolBar bar = new ToolBar();
         if (actions != null) {
             bar.getItems().addAll(button("Open…", "Open a scenario file", actions::open),
@@ -184,7 +184,7 @@ public final class MainView {
     }
 
     private Region inspector() {
-        NodeInspector in = vm.inspector();
+        NodeInspector in = vm.editor().inspector();
         GridPane g = new GridPane();
         g.setHgap(6);
         g.setVgap(5);
@@ -212,19 +212,19 @@ public final class MainView {
         g.addRow(row++, new Label("species"), species);
         g.addRow(row++, new Label("emits"), emits);
         g.addRow(row++, new Label("molecules/symbol"), field(in.moleculesPerSymbolProperty()));
-        Button apply = button("Apply", "Apply the fields to the selected node (Enter)", vm::applyInspector);
+        Button apply = button("Apply", "Apply the fields to the selected node (Enter)", vm.editor()::applyInspector);
         apply.setDefaultButton(true);
-        apply.disableProperty().bind(vm.selectedNodeIdProperty().isNull());
+        apply.disableProperty().bind(vm.editor().selectedNodeIdProperty().isNull());
         Button dup = button("Duplicate", "Copy the selected node beside it",
-                () -> vm.duplicateNode(vm.selectedNodeIdProperty().get()));
-        dup.disableProperty().bind(vm.selectedNodeIdProperty().isNull());
+                () -> vm.editor().duplicateNode(vm.editor().selectedNodeIdProperty().get()));
+        dup.disableProperty().bind(vm.editor().selectedNodeIdProperty().isNull());
         Button del = button("Delete", "Delete the selected node and its demands",
-                () -> vm.deleteNode(vm.selectedNodeIdProperty().get()));
-        del.disableProperty().bind(vm.selectedNodeIdProperty().isNull());
+                () -> vm.editor().deleteNode(vm.editor().selectedNodeIdProperty().get()));
+        del.disableProperty().bind(vm.editor().selectedNodeIdProperty().isNull());
         HBox editRow = new HBox(6, apply, dup, del);
-        HBox addRow = new HBox(6, button("+ Tx", "Add a transmitter", () -> vm.addNode(Role.TRANSMITTER)),
-                button("+ Rx", "Add a receiver", () -> vm.addNode(Role.RECEIVER)),
-                button("+ Relay", "Add a relay", () -> vm.addNode(Role.RELAY)));
+        HBox addRow = new HBox(6, button("+ Tx", "Add a transmitter", () -> vm.editor().addNode(Role.TRANSMITTER)),
+                button("+ Rx", "Add a receiver", () -> vm.editor().addNode(Role.RECEIVER)),
+                button("+ Relay", "Add a relay", () -> vm.editor().addNode(Role.RELAY)));
         ChoiceBox<SceneView.DragPlane> plane = new ChoiceBox<>();
         plane.getItems().addAll(SceneView.DragPlane.values());
         plane.valueProperty().bindBidirectional(sceneView.dragPlaneProperty());
@@ -242,15 +242,15 @@ public final class MainView {
         from.setPrefWidth(90);
         to.setPrefWidth(90);
         Button addDemand = button("+ Demand", "Add a demand from → to",
-                () -> vm.addDemand(from.getValue(), to.getValue()));
+                () -> vm.editor().addDemand(from.getValue(), to.getValue()));
         addDemand.disableProperty().bind(from.valueProperty().isNull().or(to.valueProperty().isNull()));
         Button removeDemand = button("− Demand", "Remove the selected route's demand", () -> {
-            RouteReport r = vm.selectedRouteProperty().get();
+            RouteReport r = vm.tables().selectedRouteProperty().get();
             if (r != null) {
-                vm.removeDemand(r.from(), r.to());
+                vm.editor().removeDemand(r.from(), r.to());
             }
         });
-        removeDemand.disableProperty().bind(vm.selectedRouteProperty().isNull());
+        removeDemand.disableProperty().bind(vm.tables().selectedRouteProperty().isNull());
         Label head = new Label("Node");
         head.getStyleClass().add("section");
         Label dhead = new Label("Demands");
@@ -275,17 +275,17 @@ public final class MainView {
                 number("τ", l -> (double) l.threshold()),
                 text("limited by", l -> l.limitedBy() == null ? "" : l.limitedBy().id()),
                 text("top interferer", l -> l.topInterferer() == null ? "" : l.topInterferer())));
-        linkTable.setItems(vm.links());
+        linkTable.setItems(vm.tables().links());
         linkTable.setPlaceholder(new Label("no links above the planner's capacity floor"));
         linkTable.setId("link-table");
         linkTable.getSelectionModel().selectedItemProperty().addListener((o, a, b) -> {
             if (!syncing && b != null) {
                 syncing = true;
-                vm.selectedLinkProperty().set(b);
+                vm.tables().selectedLinkProperty().set(b);
                 syncing = false;
             }
         });
-        vm.selectedLinkProperty().addListener((o, a, b) -> {
+        vm.tables().selectedLinkProperty().addListener((o, a, b) -> {
             if (syncing) {
                 return;
             }
@@ -302,8 +302,8 @@ public final class MainView {
             }
             syncing = false;
         });
-        vm.links().addListener((ListChangeListener<LinkReport>) c -> {
-            LinkReport sel = vm.selectedLinkProperty().get();
+        vm.tables().links().addListener((ListChangeListener<LinkReport>) c -> {
+            LinkReport sel = vm.tables().selectedLinkProperty().get();
             if (sel != null) {
                 syncing = true;
                 int i = indexOf(sel);
@@ -323,16 +323,16 @@ public final class MainView {
                 number("end-to-end bit", RouteReport::endToEndCapacityBits),
                 number("rate bit/s", RouteReport::rateBitsPerS),
                 number("shared bit/s", r -> {
-                    var sh = vm.sharedRate(r);
+                    var sh = vm.tables().sharedRate(r);
                     return sh == null ? Double.NaN : sh.rateBitsPerS();
                 }),
                 number("latency s", RouteReport::latencyS),
                 number("direct bit", r -> r.directCapacityBits() == null ? Double.NaN : r.directCapacityBits())));
-        routeTable.setItems(vm.routes());
+        routeTable.setItems(vm.tables().routes());
         routeTable.setPlaceholder(new Label("no demands"));
         routeTable.getSelectionModel().selectedItemProperty().addListener((o, a, b) -> {
             if (b != null) {
-                vm.selectedRouteProperty().set(b);
+                vm.tables().selectedRouteProperty().set(b);
             }
         });
 
@@ -343,7 +343,7 @@ public final class MainView {
                 number("per mission", BudgetReport::moleculesPerMission),
                 text("feasible", b -> b.feasible() ? "yes" : "no"),
                 text("reason", BudgetReport::reason)));
-        budgetTable.setItems(vm.budgets());
+        budgetTable.setItems(vm.tables().budgets());
         budgetTable.setPlaceholder(new Label("no budgets"));
     }
 
@@ -362,38 +362,13 @@ public final class MainView {
         advice.setEditable(false);
         advice.setWrapText(true);
         advice.setPrefRowCount(4);
-        advice.textProperty().bind(Bindings.createStringBinding(() -> {
-            RouteReport r = vm.selectedRouteProperty().get();
-            if (r == null) {
-                return "Select a route to see its per-hop capacity and what limits it.";
-            }
-            if (!r.reachable()) {
-                return r.from() + " → " + r.to() + ": no route. " + (r.advice() == null ? "" : r.advice());
-            }
-            StringBuilder sb = new StringBuilder();
-            sb.append(r.from()).append(" → ").append(r.to()).append(": ");
-            for (int i = 0; i + 1 < r.hops().size(); i++) {
-                LinkReport l = vm.findLink(r.hops().get(i), r.hops().get(i + 1));
-                sb.append(i == 0 ? "" : ", ").append(r.hops().get(i)).append("→").append(r.hops().get(i + 1))
-                        .append(" ").append(l == null ? "?" : Formats.sig(l.capacityBits())).append(" bit");
-            }
-            sb.append("\nBottleneck ").append(r.bottleneckFrom()).append(" → ").append(r.bottleneckTo())
-                    .append(r.bottleneckLimitedBy() == null ? "" : " (limited by " + r.bottleneckLimitedBy().id() + ")")
-                    .append(". ").append(r.advice() == null ? "" : r.advice());
-            var sh = vm.sharedRate(r);
-            if (sh != null && sh.limitedAt() != null && sh.sharedWith() > 1) {
-                sb.append("\nShared: ").append(Formats.sig(sh.rateBitsPerS())).append(" bit/s, because ")
-                        .append(sh.limitedAt()).append("'s stream carries ").append(sh.sharedWith())
-                        .append(" demands (max-min fair time-sharing).");
-            }
-            return sb.toString();
-        }, vm.selectedRouteProperty(), vm.links()));
+        advice.textProperty().bind(vm.routeSummary());
         VBox.setVgrow(routeTable, Priority.ALWAYS);
         return new VBox(6, routeTable, advice);
     }
 
     private Region comparePane() {
-        TableView<DemandComparison> t = new TableView<>(vm.comparison());
+        TableView<DemandComparison> t = new TableView<>(vm.tables().comparison());
         t.getColumns().addAll(List.of(
                 text("from", DemandComparison::from),
                 text("to", DemandComparison::to),
@@ -535,7 +510,7 @@ public final class MainView {
         apply.disableProperty().bind(vm.scenarioProperty().isNull());
         apply.setId("apply-settings");
         Button revert = button("Revert", "Show the layout's current settings again",
-                () -> st.load(vm.scenarioProperty().get(), vm.unusedSpecies()));
+                () -> st.load(vm.scenarioProperty().get(), vm.document().unusedSpecies()));
         revert.disableProperty().bind(vm.scenarioProperty().isNull());
         Label hint = new Label("Give each species a diffusion coefficient or a hydrodynamic radius; half-life "
                 + "blank = stable. A species no node uses yet is kept here and offered in the inspector, but is "
@@ -582,7 +557,7 @@ public final class MainView {
     }
 
     private Region warningsPane() {
-        ListView<String> list = new ListView<>(vm.warnings());
+        ListView<String> list = new ListView<>(vm.tables().warnings());
         list.setPlaceholder(new Label("no warnings"));
         return list;
     }
@@ -599,19 +574,19 @@ public final class MainView {
         Label counts = new Label();
         counts.textProperty().bind(Bindings.createStringBinding(() -> {
             var s = vm.scenarioProperty().get();
-            return s == null ? "" : s.nodes().size() + " nodes · " + vm.links().size() + " links · "
-                    + vm.routes().size() + " routes";
-        }, vm.scenarioProperty(), vm.links(), vm.routes()));
+            return s == null ? "" : s.nodes().size() + " nodes · " + vm.tables().links().size() + " links · "
+                    + vm.tables().routes().size() + " routes";
+        }, vm.scenarioProperty(), vm.tables().links(), vm.tables().routes()));
         // a preview (normal approximation) is on screen until the exact plan replaces it
         Label preview = new Label("preview — exact plan running");
         preview.setId("preview-badge");
         preview.getStyleClass().add("preview-badge");
         preview.setTooltip(new Tooltip("Links and routes from the normal approximation of the counts; "
                 + "budgets and advice are those of the last exact plan until it arrives"));
-        preview.visibleProperty().bind(vm.previewShownProperty());
-        preview.managedProperty().bind(vm.previewShownProperty());
+        preview.visibleProperty().bind(vm.tables().previewShownProperty());
+        preview.managedProperty().bind(vm.tables().previewShownProperty());
         javafx.css.PseudoClass previewing = javafx.css.PseudoClass.getPseudoClass("preview");
-        vm.previewShownProperty().addListener((o, a, b) -> {
+        vm.tables().previewShownProperty().addListener((o, a, b) -> {
             linkTable.pseudoClassStateChanged(previewing, b);
             routeTable.pseudoClassStateChanged(previewing, b);
             budgetTable.pseudoClassStateChanged(previewing, b);

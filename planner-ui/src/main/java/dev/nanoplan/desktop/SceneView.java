@@ -109,11 +109,11 @@ public final class SceneView {
         });
         // a new plan is drawn after the UI event that applied it (which may also re-select the link
         // and route: then that selection's immediate rebuild draws it and the deferred one is skipped)
-        vm.planProperty().addListener((o, a, b) -> requestLinks());
-        vm.selectedLinkProperty().addListener((o, a, b) -> rebuildLinks());
-        vm.selectedRouteProperty().addListener((o, a, b) -> rebuildLinks());
-        vm.showRoutesOnlyProperty().addListener((o, a, b) -> rebuildLinks());
-        vm.selectedNodeIdProperty().addListener((o, a, b) -> updateHalo());
+        vm.tables().planProperty().addListener((o, a, b) -> requestLinks());
+        vm.tables().selectedLinkProperty().addListener((o, a, b) -> rebuildLinks());
+        vm.tables().selectedRouteProperty().addListener((o, a, b) -> rebuildLinks());
+        vm.tables().showRoutesOnlyProperty().addListener((o, a, b) -> rebuildLinks());
+        vm.editor().selectedNodeIdProperty().addListener((o, a, b) -> updateHalo());
         if (vm.scenarioProperty().get() != null) {
             rebuildNodesAndVolume();
             rebuildLinks();
@@ -317,7 +317,7 @@ public final class SceneView {
             nodeGroup.getChildren().remove(halo);
             halo = null;
         }
-        Sphere sp = spheres.get(vm.selectedNodeIdProperty().get());
+        Sphere sp = spheres.get(vm.editor().selectedNodeIdProperty().get());
         if (sp == null) {
             return;
         }
@@ -350,7 +350,7 @@ public final class SceneView {
         linkGroup.getChildren().clear();
         routeGroup.getChildren().clear();
         linkShapes.clear();
-        Plan plan = vm.planProperty().get();
+        Plan plan = vm.tables().planProperty().get();
         Scenario s = vm.scenarioProperty().get();
         if (plan == null || s == null) {
             return;
@@ -358,15 +358,15 @@ public final class SceneView {
         Map<String, Node> byId = s.nodesById();
         double max = vm.maxCapacityBits();
         double r = extent * 0.003;
-        LinkReport selected = vm.selectedLinkProperty().get();
-        RouteReport route = vm.selectedRouteProperty().get();
+        LinkReport selected = vm.tables().selectedLinkProperty().get();
+        RouteReport route = vm.tables().selectedRouteProperty().get();
         Set<String> routeHops = new HashSet<>();
         if (route != null && route.reachable()) {
             for (int i = 0; i + 1 < route.hops().size(); i++) {
                 routeHops.add(route.hops().get(i) + "→" + route.hops().get(i + 1));
             }
         }
-        boolean routesOnly = vm.showRoutesOnlyProperty().get();
+        boolean routesOnly = vm.tables().showRoutesOnlyProperty().get();
         Set<String> anyRouteHop = new HashSet<>();
         if (routesOnly) {
             for (RouteReport rr : plan.routes()) {
@@ -395,7 +395,7 @@ public final class SceneView {
             cyl.setId("link-" + key);
             cyl.setOnMouseClicked(e -> {
                 if (e.isStillSincePress()) {
-                    vm.selectedLinkProperty().set(l);
+                    vm.tables().selectedLinkProperty().set(l);
                     e.consume();
                 }
             });
@@ -497,8 +497,8 @@ public final class SceneView {
         });
         subScene.addEventHandler(MouseEvent.MOUSE_CLICKED, e -> {
             if (e.isStillSincePress() && !(e.getPickResult().getIntersectedNode() instanceof Shape3D)) {
-                vm.selectedNodeIdProperty().set(null);
-                vm.selectedLinkProperty().set(null);
+                vm.editor().selectedNodeIdProperty().set(null);
+                vm.tables().selectedLinkProperty().set(null);
             }
         });
         subScene.addEventHandler(ScrollEvent.SCROLL, e -> {
@@ -542,11 +542,11 @@ public final class SceneView {
     }
 
     private void onNodePressed(MouseEvent e, Node n) {
-        vm.selectedNodeIdProperty().set(n.id());
+        vm.editor().selectedNodeIdProperty().set(n.id());
         if (e.isShiftDown() && e.getButton() == MouseButton.PRIMARY) {
             draggedNode = n.id();
             // the sphere may have been moved since it was built (moveSpheres): start from the layout's position
-            Node now = vm.nodeById(n.id());
+            Node now = vm.editor().nodeById(n.id());
             dragStart = fx((now == null ? n : now).positionUm());
             dragMoved = false;
             pressX = e.getSceneX();
@@ -584,7 +584,7 @@ public final class SceneView {
         draggedNode = null;
         if (dragMoved) {
             Vec3 target = layout(new Point3D(sp.getTranslateX(), sp.getTranslateY(), sp.getTranslateZ()));
-            if (!vm.moveNode(n.id(), round(target))) {
+            if (!vm.editor().moveNode(n.id(), round(target))) {
                 rebuildNodesAndVolume();
             }
         }

@@ -175,6 +175,11 @@ public final class SimulationViewModel {
             refreshEstimate();
         };
         planner.scenarioProperty().addListener(layoutListener);
+        planner.onLayoutReplaced(() -> {
+            if (!disposed) {
+                layoutReplaced();
+            }
+        });
         moleculesPerEmitter.addListener((o, a, b) -> refreshEstimate());
         seed.addListener((o, a, b) -> refreshEstimate());
         timeStepS.addListener((o, a, b) -> refreshEstimate());
@@ -425,7 +430,7 @@ public final class SimulationViewModel {
         if (!reusePlannerPlans) {
             return null;
         }
-        CompletableFuture<Plan> f = planner.planned();
+        CompletableFuture<Plan> f = planner.plans().planned();
         if (!f.isDone() || f.isCompletedExceptionally()) {
             return null;
         }

@@ -40,7 +40,7 @@ class MainWindowTest extends FxWindowTestBase {
             assertThat(shown.vm().open(SCENARIOS.resolve(name + ".json"))).isTrue();
             return shown;
         });
-        w.vm().planned().get(150, TimeUnit.SECONDS);
+        w.vm().plans().planned().get(150, TimeUnit.SECONDS);
         WaitForAsyncUtils.waitForFxEvents();
         return w;
     }
@@ -63,7 +63,7 @@ class MainWindowTest extends FxWindowTestBase {
     void eachBundledScenarioShowsOneSpherePerNodeAndOneShapePerLink(String name) throws Exception {
         Window w = open(name);
         onFx(() -> {
-            Plan p = w.vm().planProperty().get();
+            Plan p = w.vm().tables().planProperty().get();
             SceneView sv = w.view().sceneView();
             // the sub-scene sits in the window's scene graph (a detached SubScene renders blank)
             assertThat(sv.subScene().getScene()).isSameAs(stage.getScene());
@@ -84,7 +84,7 @@ class MainWindowTest extends FxWindowTestBase {
             LinkReport second = table.getItems().get(1);
             double plain = w.view().sceneView().linkShapes().get(key(second)).getRadius();
             table.getSelectionModel().clearAndSelect(0);
-            assertThat(w.vm().selectedLinkProperty().get()).isEqualTo(first);
+            assertThat(w.vm().tables().selectedLinkProperty().get()).isEqualTo(first);
             assertThat(w.view().sceneView().linkShapes().get(key(first)).getRadius()).isGreaterThan(plain);
             // and back: a click on the second link's cylinder selects its table row
             Cylinder c = w.view().sceneView().linkShapes().get(key(second));
@@ -99,7 +99,7 @@ class MainWindowTest extends FxWindowTestBase {
     void draggingANodeChangesTheLinkTable() throws Exception {
         Window w = open("culture-tank");
         List<LinkReport> before = onFx(() -> List.copyOf(w.view().linkTable().getItems()));
-        var beforePos = w.vm().nodeById("s09").positionUm();
+        var beforePos = w.vm().editor().nodeById("s09").positionUm();
         double[] translateBefore = onFx(() -> {
             Sphere s = w.view().sceneView().spheres().get("s09");
             return new double[] {s.getTranslateX(), s.getTranslateY(), s.getTranslateZ()};
@@ -116,8 +116,8 @@ class MainWindowTest extends FxWindowTestBase {
             sphereBefore.fireEvent(mouse(MouseEvent.MOUSE_RELEASED, 330, 300));
             return null;
         });
-        assertThat(w.vm().nodeById("s09").positionUm()).isNotEqualTo(beforePos);
-        w.vm().planned().get(150, TimeUnit.SECONDS);
+        assertThat(w.vm().editor().nodeById("s09").positionUm()).isNotEqualTo(beforePos);
+        w.vm().plans().planned().get(150, TimeUnit.SECONDS);
         WaitForAsyncUtils.waitForFxEvents();
         List<LinkReport> after = onFx(() -> List.copyOf(w.view().linkTable().getItems()));
         assertThat(after).isNotEqualTo(before);
@@ -204,9 +204,9 @@ class MainWindowTest extends FxWindowTestBase {
             apply.fire();
             return null;
         });
-        Plan p = w.vm().planned().get(150, TimeUnit.SECONDS);
+        Plan p = w.vm().plans().planned().get(150, TimeUnit.SECONDS);
         assertThat(p.scenario().signalling().symbolTimeS()).isEqualTo(0.5);
-        assertThat(onFx(() -> w.vm().undoStack().canUndoProperty().get())).isTrue();
+        assertThat(onFx(() -> w.vm().document().undoStack().canUndoProperty().get())).isTrue();
     }
 
     @Test
@@ -244,7 +244,7 @@ class MainWindowTest extends FxWindowTestBase {
             }
             assertThat(names).containsExactly("A", "B", "lactate");
             assertThat(w.vm().speciesNames()).contains("lactate");
-            assertThat(w.vm().undoStack().canUndoProperty().get()).isTrue();
+            assertThat(w.vm().document().undoStack().canUndoProperty().get()).isTrue();
             return null;
         });
     }

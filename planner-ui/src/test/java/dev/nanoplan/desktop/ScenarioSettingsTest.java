@@ -59,7 +59,7 @@ class ScenarioSettingsTest {
     }
 
     Plan awaitPlan() throws Exception {
-        return vm.planned().get(10, TimeUnit.SECONDS);
+        return vm.plans().planned().get(10, TimeUnit.SECONDS);
     }
 
     Scenario opened(Path file) throws Exception {
@@ -85,28 +85,28 @@ class ScenarioSettingsTest {
         assertThat(vm.applySettings()).isTrue();
         // no node uses C yet: a valid layout cannot declare it, so it waits beside the layout
         assertThat(current()).isEqualTo(original);
-        assertThat(vm.unusedSpecies()).containsExactly(Species.ofDiffusion("C", 120, 4));
+        assertThat(vm.document().unusedSpecies()).containsExactly(Species.ofDiffusion("C", 120, 4));
         assertThat(vm.speciesNames()).containsExactly("A", "B", "C");
         assertThat(vm.settings().species("C").usageProperty().get()).isEqualTo("not used yet");
-        assertThat(vm.undoStack().canUndoProperty().get()).isTrue();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isTrue();
 
         int calls = fake.calls.size();
-        vm.selectedNodeIdProperty().set("s11");
-        vm.inspector().speciesProperty().set("C");
-        assertThat(vm.applyInspector()).isTrue();
+        vm.editor().selectedNodeIdProperty().set("s11");
+        vm.editor().inspector().speciesProperty().set("C");
+        assertThat(vm.editor().applyInspector()).isTrue();
         Plan p = awaitPlan();
         assertThat(fake.calls).hasSize(calls + 1);
         assertThat(p.scenario().speciesByName()).containsKeys("A", "B", "C");
         assertThat(p.scenario().speciesByName().get("C").diffusionUm2PerS()).isEqualTo(120.0);
         assertThat(p.scenario().nodesById().get("s11").species()).isEqualTo("C");
-        assertThat(vm.unusedSpecies()).isEmpty();
+        assertThat(vm.document().unusedSpecies()).isEmpty();
 
         // undo: C is unused again, then gone
         assertThat(vm.undo()).isTrue();
         assertThat(current()).isEqualTo(original);
-        assertThat(vm.unusedSpecies()).extracting(Species::name).containsExactly("C");
+        assertThat(vm.document().unusedSpecies()).extracting(Species::name).containsExactly("C");
         assertThat(vm.undo()).isTrue();
-        assertThat(vm.unusedSpecies()).isEmpty();
+        assertThat(vm.document().unusedSpecies()).isEmpty();
         assertThat(vm.settings().species()).extracting(ScenarioSettings.SpeciesRow::name).containsExactly("A", "B");
         assertThat(vm.redo()).isTrue();
         assertThat(vm.redo()).isTrue();
@@ -121,18 +121,18 @@ class ScenarioSettingsTest {
         row.diffusionUm2PerSProperty().set("300");
         assertThat(vm.applySettings()).isTrue();
         for (String id : List.of("src", "dst")) {
-            vm.selectedNodeIdProperty().set(id);
-            vm.inspector().speciesProperty().set("X");
-            assertThat(vm.applyInspector()).as(vm.messageProperty().get()).isTrue();
+            vm.editor().selectedNodeIdProperty().set(id);
+            vm.editor().inspector().speciesProperty().set("X");
+            assertThat(vm.editor().applyInspector()).as(vm.messageProperty().get()).isTrue();
         }
         // relay-chain-direct.json has only src and dst, both on A before
         assertThat(current().speciesByName()).containsOnlyKeys("X");
-        assertThat(vm.unusedSpecies()).containsExactly(original.species().get(0));
+        assertThat(vm.document().unusedSpecies()).containsExactly(original.species().get(0));
         assertThat(vm.settings().species("A").usageProperty().get()).isEqualTo("not used yet");
         // now A can be removed
         assertThat(vm.removeSpecies(vm.settings().species("A"))).isTrue();
         assertThat(vm.applySettings()).isTrue();
-        assertThat(vm.unusedSpecies()).isEmpty();
+        assertThat(vm.document().unusedSpecies()).isEmpty();
         assertThat(vm.speciesNames()).containsExactly("X");
     }
 
@@ -158,7 +158,7 @@ class ScenarioSettingsTest {
         row.nameProperty().set("protein");
         row.hydrodynamicRadiusNmProperty().set(Double.toString(radiusNm));
         assertThat(vm.applySettings()).as(vm.messageProperty().get()).isTrue();
-        Species sp = vm.unusedSpecies().get(0);
+        Species sp = vm.document().unusedSpecies().get(0);
         assertThat(sp.hydrodynamicRadiusNm()).hasValue(radiusNm);
         assertThat(sp.isStable()).isTrue();
         // A. Einstein, Ann. Phys. 17 (1905) 549 / Stokes drag: D = k_B T / (6 π η r); k_B = 1.380649e-23 J/K
@@ -179,8 +179,8 @@ class ScenarioSettingsTest {
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("not both");
         assertThat(current()).isSameAs(s);
-        assertThat(vm.unusedSpecies()).isEmpty();
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().unusedSpecies()).isEmpty();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     // ---------------------------------------------------------------- names
@@ -209,7 +209,7 @@ class ScenarioSettingsTest {
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("species[2].name").contains("duplicate species name 'B'");
         assertThat(current()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     static String catchMessage(Runnable r) {
@@ -250,7 +250,7 @@ class ScenarioSettingsTest {
         assertThat(vm.undo()).isTrue();
         assertThat(current()).isEqualTo(original);
         assertThat(vm.settings().species()).extracting(ScenarioSettings.SpeciesRow::name).containsExactly("A", "B");
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     @Test
@@ -285,7 +285,7 @@ class ScenarioSettingsTest {
         assertThat(vm.settings().species()).contains(b);
         assertThat(vm.applySettings()).isFalse();
         assertThat(current()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     @Test
@@ -296,10 +296,10 @@ class ScenarioSettingsTest {
         assertThat(vm.applySettings()).isTrue();
         assertThat(vm.removeSpecies(vm.settings().species("C"))).isTrue();
         assertThat(vm.applySettings()).isTrue();
-        assertThat(vm.unusedSpecies()).isEmpty();
+        assertThat(vm.document().unusedSpecies()).isEmpty();
         assertThat(current()).isEqualTo(s);
         assertThat(vm.undo()).isTrue();
-        assertThat(vm.unusedSpecies()).extracting(Species::name).containsExactly("C");
+        assertThat(vm.document().unusedSpecies()).extracting(Species::name).containsExactly("C");
     }
 
     // ---------------------------------------------------------------- flow and schedule
@@ -369,7 +369,7 @@ class ScenarioSettingsTest {
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("flow velocity y").contains("finite");
         assertThat(current()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     @Test

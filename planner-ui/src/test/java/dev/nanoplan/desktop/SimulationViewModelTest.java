@@ -238,7 +238,7 @@ class SimulationViewModelTest {
         assertThat(runToEnd()).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
         assertThat(sim.staleProperty().get()).isFalse();
 
-        assertThat(planner.moveNode("rx2", new Vec3(0, 20, 0))).isTrue();
+        assertThat(planner.editor().moveNode("rx2", new Vec3(0, 20, 0))).isTrue();
         assertThat(sim.staleProperty().get()).isTrue();
         assertThat(sim.rows()).as("stale rows stay visible, marked").hasSize(2);
 
@@ -400,7 +400,7 @@ class SimulationViewModelTest {
 
         // the seed back but a node moved: a miss too
         vm.seedProperty().set("11");
-        assertThat(planner.moveNode("rx2", new Vec3(0, 14, 0))).isTrue();
+        assertThat(planner.editor().moveNode("rx2", new Vec3(0, 14, 0))).isTrue();
         assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
         assertThat(vm.statusProperty().get()).doesNotContain("from cache");
         assertThat(files(dir)).isEqualTo(3);
@@ -435,7 +435,7 @@ class SimulationViewModelTest {
     void thePlannersExactPlanOfTheSameLayoutIsReused() throws Exception {
         SimulationViewModel vm = new SimulationViewModel(planner, Runnable::run, bgThread::execute, 1, null, true);
         planner.load(pair(), null);
-        Plan plannersPlan = planner.planned().get(10, TimeUnit.SECONDS);
+        Plan plannersPlan = planner.plans().planned().get(10, TimeUnit.SECONDS);
         vm.moleculesPerEmitterProperty().set("2000");
 
         assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
@@ -464,9 +464,9 @@ class SimulationViewModelTest {
         try {
             SimulationViewModel vm = new SimulationViewModel(blocking, Runnable::run, bgThread::execute, 1, null, true);
             blocking.load(first, null);
-            blocking.planned().get(10, TimeUnit.SECONDS);
+            blocking.plans().planned().get(10, TimeUnit.SECONDS);
             // the edited layout's plan is still running: the planner holds no plan of it
-            assertThat(blocking.moveNode("rx", new Vec3(12, 0, 0))).isTrue();
+            assertThat(blocking.editor().moveNode("rx", new Vec3(12, 0, 0))).isTrue();
             Scenario edited = blocking.scenarioProperty().get();
             vm.moleculesPerEmitterProperty().set("2000");
 

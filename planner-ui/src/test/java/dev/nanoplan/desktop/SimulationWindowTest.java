@@ -42,7 +42,7 @@ class SimulationWindowTest extends FxWindowTestBase {
             assertThat(w.view().showTab("Simulation")).isTrue();
             return w.vm();
         });
-        vm.planned().get(150, TimeUnit.SECONDS);
+        vm.plans().planned().get(150, TimeUnit.SECONDS);
         WaitForAsyncUtils.waitForFxEvents();
 
         SimulationView sv = onFx(() -> {
@@ -90,7 +90,7 @@ class SimulationWindowTest extends FxWindowTestBase {
         assertThat(onFx(() -> ((Label) sv.node().lookup("#sim-status")).getText())).contains("from cache");
 
         // an edit after the run shows the stale mark
-        onFx(() -> vm.moveNode("dst", new dev.nanoplan.geometry.Vec3(150, 0, 0)));
+        onFx(() -> vm.editor().moveNode("dst", new dev.nanoplan.geometry.Vec3(150, 0, 0)));
         WaitForAsyncUtils.waitForFxEvents();
         assertThat(onFx(() -> sv.node().lookup("#sim-stale").isVisible())).isTrue();
     }
