@@ -29,9 +29,9 @@ final class Legend {
         Label mid = new Label();
         Label hi = new Label();
         mid.textProperty().bind(javafx.beans.binding.Bindings.createStringBinding(
-                () -> fmt(maxBits.get() / 2), maxBits));
+                () -> Formats.tick(maxBits.get() / 2), maxBits));
         hi.textProperty().bind(javafx.beans.binding.Bindings.createStringBinding(
-                () -> fmt(maxBits.get()), maxBits));
+                () -> Formats.tick(maxBits.get()), maxBits));
         BorderPane ticks = new BorderPane();
         ticks.setLeft(lo);
         ticks.setCenter(mid);
@@ -62,7 +62,4 @@ final class Legend {
         return box;
     }
 
-    private static String fmt(double v) {
-        return v == Math.rint(v) ? Long.toString((long) v) : String.format(java.util.Locale.ROOT, "%.2g", v);
-    }
 }

@@ -218,7 +218,7 @@ public final class PlannerViewModel {
     }
 
     /** Removes a species row from the settings editor (it leaves on Apply); refused while nodes use it. */
-    public boolean removeSpecies(ScenarioSettings.SpeciesRow row) {
+    public boolean removeSpecies(SpeciesRow row) {
         try {
             settings.removeSpecies(row);
         } catch (IllegalArgumentException e) {

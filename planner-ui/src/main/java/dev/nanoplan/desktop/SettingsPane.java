@@ -138,7 +138,7 @@ final class SettingsPane {
             species.addRow(0, new Label("name"), new Label("D µm²/s"), new Label("radius nm"),
                     new Label("half-life s"), new Label("used by"));
             int r = 1;
-            for (ScenarioSettings.SpeciesRow sp : st.species()) {
+            for (SpeciesRow sp : st.species()) {
                 TextField name = smallField(sp.nameProperty(), "name");
                 name.setTooltip(new Tooltip("Renaming renames the species in every node on Apply"));
                 name.setId("species-name-" + (r - 1));
@@ -163,7 +163,7 @@ final class SettingsPane {
             }
         };
         fillSpecies.run();
-        st.species().addListener((ListChangeListener<ScenarioSettings.SpeciesRow>) c -> fillSpecies.run());
+        st.species().addListener((ListChangeListener<SpeciesRow>) c -> fillSpecies.run());
         Button addSpecies = button("+ Species", "Add a species row: give a name and a diffusion coefficient or "
                 + "a hydrodynamic radius, then Apply", st::addSpecies);
         addSpecies.setId("add-species");

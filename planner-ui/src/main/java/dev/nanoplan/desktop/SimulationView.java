@@ -1,7 +1,6 @@
 package dev.nanoplan.desktop;
 
 import java.util.List;
-import java.util.Locale;
 import javafx.beans.binding.Bindings;
 import javafx.geometry.Insets;
 import javafx.geometry.Pos;
@@ -88,7 +87,7 @@ public final class SimulationView {
         HBox.setHgrow(bar, Priority.ALWAYS);
         Label percent = new Label();
         percent.textProperty().bind(Bindings.createStringBinding(
-                () -> String.format(Locale.ROOT, "%3.0f %%", 100 * vm.progressProperty().get()), vm.progressProperty()));
+                () -> Formats.percent(vm.progressProperty().get()), vm.progressProperty()));
         percent.setMinWidth(Region.USE_PREF_SIZE);
         HBox controls = new HBox(8, run, cancel, bar, percent);
         controls.setAlignment(Pos.CENTER_LEFT);
@@ -159,7 +158,7 @@ public final class SimulationView {
                 width(Widgets.number("z", SimulationRow::zScore), 75),
                 width(Widgets.numberText("Δ %", r -> r.relativeDifference() * 100,
                         r -> Double.isNaN(r.relativeDifference()) ? "—"
-                                : String.format(Locale.ROOT, "%+.1f", r.relativeDifference() * 100)), 75),
+                                : Formats.signedOneDecimal(r.relativeDifference() * 100)), 75),
                 width(Widgets.numberText("C analytic bit", SimulationRow::analyticCapacityBits,
                         r -> capacity(r.analyticCapacityBits())), 95),
                 width(Widgets.numberText("C simulated bit", SimulationRow::simulatedCapacityBits,

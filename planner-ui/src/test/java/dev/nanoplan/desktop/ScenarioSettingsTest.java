@@ -77,7 +77,7 @@ class ScenarioSettingsTest {
     @Test
     void addedSpeciesIsOfferedAndJoinsTheLayoutWhenANodeUsesIt() throws Exception {
         Scenario original = opened(TANK);
-        ScenarioSettings.SpeciesRow row = vm.settings().addSpecies();
+        SpeciesRow row = vm.settings().addSpecies();
         // culture-tank.json declares A and B, so the first free letter is offered
         assertThat(row.name()).isEqualTo("C");
         row.diffusionUm2PerSProperty().set("120");
@@ -107,7 +107,7 @@ class ScenarioSettingsTest {
         assertThat(vm.document().unusedSpecies()).extracting(Species::name).containsExactly("C");
         assertThat(vm.undo()).isTrue();
         assertThat(vm.document().unusedSpecies()).isEmpty();
-        assertThat(vm.settings().species()).extracting(ScenarioSettings.SpeciesRow::name).containsExactly("A", "B");
+        assertThat(vm.settings().species()).extracting(SpeciesRow::name).containsExactly("A", "B");
         assertThat(vm.redo()).isTrue();
         assertThat(vm.redo()).isTrue();
         assertThat(awaitPlan().scenario().nodesById().get("s11").species()).isEqualTo("C");
@@ -116,7 +116,7 @@ class ScenarioSettingsTest {
     @Test
     void aSpeciesNoNodeUsesAnyMoreStaysDeclaredAsUnused() throws Exception {
         Scenario original = opened(Path.of("..", "scenarios", "relay-chain-direct.json"));
-        ScenarioSettings.SpeciesRow row = vm.settings().addSpecies();
+        SpeciesRow row = vm.settings().addSpecies();
         row.nameProperty().set("X");
         row.diffusionUm2PerSProperty().set("300");
         assertThat(vm.applySettings()).isTrue();
@@ -154,7 +154,7 @@ class ScenarioSettingsTest {
         opened(TANK);
         vm.settings().temperatureKProperty().set(Double.toString(temperatureK));
         vm.settings().viscosityMPaSProperty().set(Double.toString(viscosityMPaS));
-        ScenarioSettings.SpeciesRow row = vm.settings().addSpecies();
+        SpeciesRow row = vm.settings().addSpecies();
         row.nameProperty().set("protein");
         row.hydrodynamicRadiusNmProperty().set(Double.toString(radiusNm));
         assertThat(vm.applySettings()).as(vm.messageProperty().get()).isTrue();
@@ -170,7 +170,7 @@ class ScenarioSettingsTest {
     @Test
     void aRowGivingBothDiffusionAndRadiusOrNeitherIsRefused() throws Exception {
         Scenario s = opened(TANK);
-        ScenarioSettings.SpeciesRow row = vm.settings().addSpecies();
+        SpeciesRow row = vm.settings().addSpecies();
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("new species row 3").contains("diffusion")
                 .contains("hydrodynamic radius");
@@ -203,7 +203,7 @@ class ScenarioSettingsTest {
         assertThat(vm.messageProperty().get()).contains("species B").contains(coreMessage);
 
         vm.settings().load(s);
-        ScenarioSettings.SpeciesRow added = vm.settings().addSpecies();
+        SpeciesRow added = vm.settings().addSpecies();
         added.nameProperty().set("B");
         added.diffusionUm2PerSProperty().set("10");
         assertThat(vm.applySettings()).isFalse();
@@ -249,7 +249,7 @@ class ScenarioSettingsTest {
         // one undo step takes back the rename and the symbol time together
         assertThat(vm.undo()).isTrue();
         assertThat(current()).isEqualTo(original);
-        assertThat(vm.settings().species()).extracting(ScenarioSettings.SpeciesRow::name).containsExactly("A", "B");
+        assertThat(vm.settings().species()).extracting(SpeciesRow::name).containsExactly("A", "B");
         assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
@@ -277,7 +277,7 @@ class ScenarioSettingsTest {
     @Test
     void removingAUsedSpeciesIsRefusedNamingItsNodes() throws Exception {
         Scenario s = opened(TANK);
-        ScenarioSettings.SpeciesRow b = vm.settings().species("B");
+        SpeciesRow b = vm.settings().species("B");
         assertThat(vm.removeSpecies(b)).isFalse();
         String msg = vm.messageProperty().get();
         // culture-tank.json: gw absorbs B, the relays emit it, s11..s14 release it
@@ -291,7 +291,7 @@ class ScenarioSettingsTest {
     @Test
     void removingAnUnusedSpeciesIsOneUndoStep() throws Exception {
         Scenario s = opened(TANK);
-        ScenarioSettings.SpeciesRow c = vm.settings().addSpecies();
+        SpeciesRow c = vm.settings().addSpecies();
         c.diffusionUm2PerSProperty().set("90");
         assertThat(vm.applySettings()).isTrue();
         assertThat(vm.removeSpecies(vm.settings().species("C"))).isTrue();
