@@ -6,6 +6,8 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import javafx.application.Platform;
+import javafx.beans.property.ReadOnlyBooleanProperty;
+import javafx.beans.property.ReadOnlyBooleanWrapper;
 import javafx.scene.chart.BarChart;
 import javafx.scene.chart.CategoryAxis;
 import javafx.scene.chart.LineChart;
@@ -37,8 +39,8 @@ final class LinkChartsView {
     private final LineChart<Number, Number> budget = new LineChart<>(new NumberAxis(), new NumberAxis());
     private final VBox box;
     private Future<?> running;
-    private final javafx.beans.property.ReadOnlyBooleanWrapper computing =
-            new javafx.beans.property.ReadOnlyBooleanWrapper(false);
+    private final ReadOnlyBooleanWrapper computing =
+            new ReadOnlyBooleanWrapper(false);
 
     LinkChartsView(PlannerViewModel vm) {
         this.vm = vm;
@@ -55,7 +57,7 @@ final class LinkChartsView {
     }
 
     /** True while chart data are being computed. */
-    javafx.beans.property.ReadOnlyBooleanProperty computingProperty() {
+    ReadOnlyBooleanProperty computingProperty() {
         return computing.getReadOnlyProperty();
     }
 

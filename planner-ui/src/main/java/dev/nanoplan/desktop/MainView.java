@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import javafx.geometry.Insets;
 import javafx.geometry.Orientation;
 import javafx.geometry.Pos;
+import javafx.scene.Node;
 import javafx.scene.Parent;
 import javafx.scene.control.Button;
 import javafx.scene.control.Label;
@@ -169,7 +170,7 @@ public final class MainView {
 
     // ------------------------------------------------------------------ helpers
 
-    private static Tab tab(String name, javafx.scene.Node content) {
+    private static Tab tab(String name, Node content) {
         return new Tab(name, content);
     }
 

@@ -17,6 +17,7 @@ import java.util.HashSet;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Objects;
 import java.util.Set;
 import java.util.TreeSet;
 import javafx.beans.property.ObjectProperty;
@@ -65,7 +66,7 @@ public final class ScenarioSettings {
     /** The layout plus the species declared in the editor that no node uses yet. */
     public record Applied(Scenario scenario, List<Species> unusedSpecies) {
         public Applied {
-            java.util.Objects.requireNonNull(scenario, "scenario");
+            Objects.requireNonNull(scenario, "scenario");
             unusedSpecies = List.copyOf(unusedSpecies);
         }
     }

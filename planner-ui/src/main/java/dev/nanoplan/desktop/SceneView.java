@@ -6,11 +6,13 @@ import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
+import java.util.Collections;
 import java.util.HashMap;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Set;
+import javafx.application.Platform;
 import javafx.beans.property.ObjectProperty;
 import javafx.beans.property.SimpleObjectProperty;
 import javafx.geometry.Point3D;
@@ -25,6 +27,7 @@ import javafx.scene.paint.PhongMaterial;
 import javafx.scene.shape.Cylinder;
 import javafx.scene.shape.DrawMode;
 import javafx.scene.shape.Sphere;
+import javafx.scene.transform.Translate;
 
 /**
  * The 3D view of a layout: volume outline, nodes as spheres (radius to scale, with a minimum size
@@ -69,7 +72,7 @@ public final class SceneView {
         this.vm = vm;
         AmbientLight ambient = new AmbientLight(Color.gray(0.5));
         PointLight key = new PointLight(Color.gray(0.75));
-        key.getTransforms().add(new javafx.scene.transform.Translate(-2e4, -3e4, -2e4));
+        key.getTransforms().add(new Translate(-2e4, -3e4, -2e4));
         world.getChildren().addAll(volumeGroup, linkGroup, routeGroup, nodeGroup, ambient, key);
         subScene = new SubScene(world, 800, 600, true, SceneAntialiasing.BALANCED);
         subScene.setFill(BACKGROUND);
@@ -135,12 +138,12 @@ public final class SceneView {
 
     /** One sphere per node of the layout, by node id (read-only view for tests). */
     public Map<String, Sphere> spheres() {
-        return java.util.Collections.unmodifiableMap(spheres);
+        return Collections.unmodifiableMap(spheres);
     }
 
     /** One cylinder per drawn link, by "from→to" (read-only view for tests). */
     public Map<String, Cylinder> linkShapes() {
-        return java.util.Collections.unmodifiableMap(linkShapes);
+        return Collections.unmodifiableMap(linkShapes);
     }
 
     private void refitIfUntouched() {
@@ -281,7 +284,7 @@ public final class SceneView {
     private void requestLinks() {
         if (!linksRequested) {
             linksRequested = true;
-            javafx.application.Platform.runLater(() -> {
+            Platform.runLater(() -> {
                 if (linksRequested) {
                     rebuildLinks();
                 }

@@ -2,6 +2,7 @@ package dev.nanoplan.desktop;
 
 import java.util.List;
 import javafx.beans.binding.Bindings;
+import javafx.beans.property.StringProperty;
 import javafx.geometry.Insets;
 import javafx.geometry.Pos;
 import javafx.scene.control.Button;
@@ -204,7 +205,7 @@ public final class SimulationView {
         return Double.isNaN(bits) ? "below floor" : Formats.sig(bits);
     }
 
-    private static TextField field(javafx.beans.property.StringProperty p, String id, int columns) {
+    private static TextField field(StringProperty p, String id, int columns) {
         TextField f = new TextField();
         f.textProperty().bindBidirectional(p);
         f.setPrefColumnCount(columns);

@@ -9,9 +9,12 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.TimeUnit;
+import javafx.event.EventType;
 import javafx.scene.Node;
 import javafx.scene.Parent;
 import javafx.scene.SnapshotParameters;
+import javafx.scene.control.Button;
+import javafx.scene.control.TextField;
 import javafx.scene.input.MouseButton;
 import javafx.scene.input.MouseEvent;
 import javafx.scene.shape.Cylinder;
@@ -164,7 +167,7 @@ class MainWindowTest extends FxWindowTestBase {
         assertThat(changed).isGreaterThan(1000);
     }
 
-    static MouseEvent mouse(javafx.event.EventType<MouseEvent> type, double x, double y) {
+    static MouseEvent mouse(EventType<MouseEvent> type, double x, double y) {
         return new MouseEvent(type, x, y, x, y, MouseButton.PRIMARY, 1, true, false, false, false,
                 type != MouseEvent.MOUSE_RELEASED, false, false, false, false, false, null);
     }
@@ -197,7 +200,7 @@ class MainWindowTest extends FxWindowTestBase {
             assertThat(w.view().showTab("Settings")).isTrue();
             // the Apply button of the settings tab is bound to the view model's settings editor
             w.vm().settings().symbolTimeSProperty().set("0.5");
-            javafx.scene.control.Button apply = (javafx.scene.control.Button) w.view().tabs().getSelectionModel()
+            Button apply = (Button) w.view().tabs().getSelectionModel()
                     .getSelectedItem().getContent().lookup("#apply-settings");
             assertThat(apply).isNotNull();
             assertThat(apply.isDisabled()).isFalse();
@@ -215,19 +218,19 @@ class MainWindowTest extends FxWindowTestBase {
         onFx(() -> {
             assertThat(w.view().showTab("Settings")).isTrue();
             Parent pane = (Parent) w.view().tabs().getSelectionModel().getSelectedItem().getContent();
-            ((javafx.scene.control.Button) pane.lookup("#add-species")).fire();
+            ((Button) pane.lookup("#add-species")).fire();
             return null;
         });
         WaitForAsyncUtils.waitForFxEvents();
         onFx(() -> {
             Parent pane = (Parent) w.view().tabs().getSelectionModel().getSelectedItem().getContent();
             // culture-tank.json declares A and B: the added row is the third
-            javafx.scene.control.TextField name = (javafx.scene.control.TextField) pane.lookup("#species-name-2");
-            javafx.scene.control.TextField d = (javafx.scene.control.TextField) pane.lookup("#species-d-2");
+            TextField name = (TextField) pane.lookup("#species-name-2");
+            TextField d = (TextField) pane.lookup("#species-d-2");
             assertThat(name).isNotNull();
             name.setText("lactate");
             d.setText("95");
-            ((javafx.scene.control.Button) pane.lookup("#apply-settings")).fire();
+            ((Button) pane.lookup("#apply-settings")).fire();
             return null;
         });
         WaitForAsyncUtils.waitForFxEvents();
@@ -237,7 +240,7 @@ class MainWindowTest extends FxWindowTestBase {
             // the species list, rebuilt from the view model after Apply, shows the new species
             List<String> names = new ArrayList<>();
             for (Node n : ((Parent) pane.lookup("#species-grid")).getChildrenUnmodifiable()) {
-                if (n instanceof javafx.scene.control.TextField f && f.getId() != null
+                if (n instanceof TextField f && f.getId() != null
                         && f.getId().startsWith("species-name-")) {
                     names.add(f.getText());
                 }

@@ -14,6 +14,7 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
+import java.util.function.BooleanSupplier;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
@@ -127,7 +128,7 @@ class PlannerViewModelPreviewTest {
     }
 
     /** Polls (10 s at most) for a state another thread sets; fails when it never comes. */
-    static void waitFor(java.util.function.BooleanSupplier condition) throws InterruptedException {
+    static void waitFor(BooleanSupplier condition) throws InterruptedException {
         long end = System.nanoTime() + TimeUnit.SECONDS.toNanos(10);
         while (!condition.getAsBoolean()) {
             assertThat(System.nanoTime()).as("waited 10 s for the view model").isLessThan(end);

@@ -5,7 +5,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import dev.nanoplan.count.CountModelKind;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.plan.Plan;
-import java.util.List;
 import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
@@ -14,6 +13,8 @@ import dev.nanoplan.scenario.ScenarioReader;
 import dev.nanoplan.scenario.Species;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.AfterEach;
@@ -244,7 +245,7 @@ class PlannerViewModelTest {
         vm.open(TANK);
         try {
             awaitPlan();
-        } catch (java.util.concurrent.ExecutionException expected) {
+        } catch (ExecutionException expected) {
             assertThat(expected.getCause()).hasMessage("boom");
         }
         assertThat(vm.plans().busyProperty().get()).isFalse();
@@ -256,7 +257,7 @@ class PlannerViewModelTest {
         opened();
         Path out = dir.resolve("report.html");
         assertThat(vm.exportHtml(out)).isTrue();
-        String html = java.nio.file.Files.readString(out);
+        String html = Files.readString(out);
         assertThat(html).contains("<svg").contains("not validated for clinical use");
         assertThat(vm.messageProperty().get()).contains("report.html");
     }

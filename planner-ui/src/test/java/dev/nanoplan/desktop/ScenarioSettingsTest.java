@@ -10,6 +10,7 @@ import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioProblem;
 import dev.nanoplan.scenario.ScenarioReader;
 import dev.nanoplan.scenario.ScenarioValidator;
+import dev.nanoplan.scenario.Schedule;
 import dev.nanoplan.scenario.Species;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -376,23 +377,23 @@ class ScenarioSettingsTest {
     void scheduleIsAChoiceThatReplansSavesAndUndoes(@TempDir Path dir) throws Exception {
         Scenario tank = opened(TANK);
         // culture-tank.json: "schedule": "all-active"
-        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(dev.nanoplan.scenario.Schedule.ALL_ACTIVE);
+        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(Schedule.ALL_ACTIVE);
         assertThat(ScenarioSettings.SCHEDULE_HELP).contains("every emitter").contains("every symbol slot")
                 .contains("round-robin").contains("take turns");
 
-        vm.settings().scheduleProperty().set(dev.nanoplan.scenario.Schedule.ROUND_ROBIN);
+        vm.settings().scheduleProperty().set(Schedule.ROUND_ROBIN);
         assertThat(vm.applySettings()).isTrue();
         // the layout handed to the planner has the new schedule, nothing else changed
         Plan p = awaitPlan();
-        assertThat(p.scenario().signalling().schedule()).isEqualTo(dev.nanoplan.scenario.Schedule.ROUND_ROBIN);
+        assertThat(p.scenario().signalling().schedule()).isEqualTo(Schedule.ROUND_ROBIN);
         assertThat(p.scenario().nodes()).isEqualTo(tank.nodes());
 
         Path file = dir.resolve("rr.json");
         assertThat(vm.saveAs(file)).isTrue();
         assertThat(ScenarioReader.strict().read(file).signalling().schedule())
-                .isEqualTo(dev.nanoplan.scenario.Schedule.ROUND_ROBIN);
+                .isEqualTo(Schedule.ROUND_ROBIN);
         assertThat(vm.undo()).isTrue();
         assertThat(current().signalling()).isEqualTo(tank.signalling());
-        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(dev.nanoplan.scenario.Schedule.ALL_ACTIVE);
+        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(Schedule.ALL_ACTIVE);
     }
 }

@@ -27,15 +27,19 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.attribute.FileTime;
 import java.util.List;
-import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.BlockingQueue;
 import java.util.concurrent.CopyOnWriteArrayList;
+import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.Executor;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
+import java.util.concurrent.LinkedBlockingQueue;
+import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.Function;
 import javafx.beans.property.StringProperty;
+import javafx.collections.ListChangeListener;
 import org.apache.commons.numbers.gamma.Erfc;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
@@ -56,7 +60,7 @@ class SimulationViewModelTest {
     static final double D_UM2_PER_S = 100;
     static final double T_S = 1;
 
-    java.util.concurrent.ScheduledExecutorService planning;
+    ScheduledExecutorService planning;
     ExecutorService bgThread;
     AtomicInteger started;
     PlannerViewModel planner;
@@ -155,13 +159,13 @@ class SimulationViewModelTest {
     void stateChangesArriveOnTheUiExecutorAtMostOneProgressUpdateQueuedAtATime() throws Exception {
         // a slow "UI thread": this test thread drains a queue every 200 ms, as a busy FX thread would;
         // blocks finish every few tens of ms, so without coalescing several updates would pile up
-        java.util.concurrent.BlockingQueue<Runnable> ui = new java.util.concurrent.LinkedBlockingQueue<>();
+        BlockingQueue<Runnable> ui = new LinkedBlockingQueue<>();
         SimulationViewModel queued = new SimulationViewModel(planner, ui::add, bgThread::execute, 1);
         planner.load(pair(), null);
         Thread uiThread = Thread.currentThread();
         List<Thread> changedOn = new CopyOnWriteArrayList<>();
         queued.progressProperty().addListener((o, a, b) -> changedOn.add(Thread.currentThread()));
-        queued.rows().addListener((javafx.collections.ListChangeListener<SimulationRow>) c ->
+        queued.rows().addListener((ListChangeListener<SimulationRow>) c ->
                 changedOn.add(Thread.currentThread()));
         // 1e5 molecules = 25 blocks of 4096, each reporting progress from the simulator's worker
         queued.moleculesPerEmitterProperty().set("100000");
