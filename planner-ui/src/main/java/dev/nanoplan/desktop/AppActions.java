@@ -11,9 +11,7 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.nio.file.Path;
 import java.util.List;
-import java.util.function.Supplier;
 import javafx.collections.ListChangeListener;
-import javafx.scene.SnapshotParameters;
 import javafx.scene.control.Alert;
 import javafx.scene.control.ButtonBar;
 import javafx.scene.control.ButtonType;
@@ -28,7 +26,8 @@ import javafx.stage.Stage;
 
 /**
  * Window-level actions: menus, file dialogs, the unsaved-changes guard, exports and the
- * About/Assumptions view. Everything that changes the layout is delegated to the view model.
+ * About/Assumptions view. Everything that changes the layout is delegated to the view model, which
+ * tells the other panes when a layout is replaced; this class knows no view.
  */
 public final class AppActions {
 
@@ -38,17 +37,10 @@ public final class AppActions {
 
     private final Stage stage;
     private final PlannerViewModel vm;
-    private Supplier<SceneView> scene = () -> null;
-    private Runnable layoutReplaced = () -> { };
 
     public AppActions(Stage stage, PlannerViewModel vm) {
         this.stage = stage;
         this.vm = vm;
-    }
-
-    void attach(MainView view) {
-        this.scene = view::sceneView;
-        this.layoutReplaced = view.simulation()::layoutReplaced;
     }
 
     MenuBar menuBar() {
@@ -58,24 +50,17 @@ public final class AppActions {
             templates.getItems().add(item(t, null, () -> openTemplate(t)));
         }
         templates.getItems().add(item("random swarm (40 nodes, open medium)", null,
-                () -> guarded(() -> {
-                    vm.load(SwarmGenerator.generate(40, System.nanoTime()), null);
-                    layoutReplaced.run();
-                })));
+                () -> guarded(() -> vm.load(SwarmGenerator.generate(40, System.nanoTime()), null))));
         Menu recent = new Menu("Open recent");
         Runnable fill = () -> {
             recent.getItems().clear();
-            for (Path p : vm.recentFiles()) {
-                recent.getItems().add(item(p.toString(), null, () -> guarded(() -> {
-                    if (vm.open(p)) {
-                        layoutReplaced.run();
-                    }
-                })));
+            for (Path p : vm.document().recentFiles()) {
+                recent.getItems().add(item(p.toString(), null, () -> guarded(() -> vm.open(p))));
             }
             recent.setDisable(recent.getItems().isEmpty());
         };
         fill.run();
-        vm.recentFiles().addListener((ListChangeListener<Path>) c -> fill.run());
+        vm.document().recentFiles().addListener((ListChangeListener<Path>) c -> fill.run());
         file.getItems().addAll(templates, item("Open…", "Shortcut+O", this::open), recent, new SeparatorMenuItem(),
                 item("Save", "Shortcut+S", this::save), item("Save As…", "Shortcut+Shift+S", this::saveAs),
                 new SeparatorMenuItem(), item("Export 3D view as PNG…", null, this::exportPng),
@@ -88,11 +73,11 @@ public final class AppActions {
         Menu edit = new Menu("Edit");
         edit.getItems().addAll(item("Undo", "Shortcut+Z", vm::undo), item("Redo", "Shortcut+Y", vm::redo),
                 new SeparatorMenuItem(),
-                item("Add transmitter", null, () -> vm.addNode(Role.TRANSMITTER)),
-                item("Add receiver", null, () -> vm.addNode(Role.RECEIVER)),
-                item("Add relay", null, () -> vm.addNode(Role.RELAY)),
-                item("Duplicate node", "Shortcut+D", () -> vm.duplicateNode(vm.selectedNodeIdProperty().get())),
-                item("Delete node", "Delete", () -> vm.deleteNode(vm.selectedNodeIdProperty().get())));
+                item("Add transmitter", null, () -> vm.editor().addNode(Role.TRANSMITTER)),
+                item("Add receiver", null, () -> vm.editor().addNode(Role.RECEIVER)),
+                item("Add relay", null, () -> vm.editor().addNode(Role.RELAY)),
+                item("Duplicate node", "Shortcut+D", () -> vm.editor().duplicateNode(vm.editor().selectedNodeIdProperty().get())),
+                item("Delete node", "Delete", () -> vm.editor().deleteNode(vm.editor().selectedNodeIdProperty().get())));
         Menu help = new Menu("Help");
         help.getItems().add(item("About and assumptions", "F1", this::about));
         return new MenuBar(file, edit, help);
@@ -104,8 +89,8 @@ public final class AppActions {
         }
         FileChooser fc = chooser("Open scenario");
         File f = fc.showOpenDialog(stage);
-        if (f != null && vm.open(f.toPath())) {
-            layoutReplaced.run();
+        if (f != null) {
+            vm.open(f.toPath());
         }
     }
 
@@ -124,8 +109,7 @@ public final class AppActions {
     }
 
     void exportPng() {
-        SceneView sv = scene.get();
-        if (sv == null) {
+        if (stage.getScene() == null) {
             return;
         }
         FileChooser fc = new FileChooser();
@@ -172,7 +156,7 @@ public final class AppActions {
 
     /** Asks what to do with unsaved changes; true when it is fine to go on. */
     boolean confirmDiscard() {
-        if (!vm.dirtyProperty().get()) {
+        if (!vm.document().dirtyProperty().get()) {
             return true;
         }
         ButtonType saveB = new ButtonType("Save", ButtonBar.ButtonData.YES);
@@ -184,7 +168,7 @@ public final class AppActions {
         ButtonType r = a.showAndWait().orElse(ButtonType.CANCEL);
         if (r == saveB) {
             save();
-            return !vm.dirtyProperty().get();
+            return !vm.document().dirtyProperty().get();
         }
         return r == discard;
     }
@@ -194,7 +178,6 @@ public final class AppActions {
             Scenario s = template(name);
             if (s != null) {
                 vm.load(s, null);
-                layoutReplaced.run();
             }
         });
     }
@@ -223,7 +206,7 @@ public final class AppActions {
         FileChooser fc = new FileChooser();
         fc.setTitle(title);
         fc.getExtensionFilters().add(new FileChooser.ExtensionFilter("nanoplan scenario", "*.json"));
-        Path cur = vm.fileProperty().get();
+        Path cur = vm.document().fileProperty().get();
         if (cur != null && cur.toAbsolutePath().getParent() != null) {
             fc.setInitialDirectory(cur.toAbsolutePath().getParent().toFile());
         }

@@ -70,9 +70,8 @@ public final class DesktopLauncher {
                 Stage stage = new Stage();
                 AppActions actions = new AppActions(stage, vm);
                 MainView view = new MainView(vm, actions);
-                actions.attach(view);
                 stage.setScene(new Scene(view.root(), width, height));
-                stage.titleProperty().bind(vm.titleProperty());
+                stage.titleProperty().bind(vm.document().titleProperty());
                 stage.show();
                 vmF.complete(vm);
                 viewF.complete(view);
@@ -82,17 +81,17 @@ public final class DesktopLauncher {
         });
         PlannerViewModel vm = unwrap(vmF, 60);
         MainView view = viewF.get();
-        unwrap(vm.planned(), PLAN_TIMEOUT_S);
+        unwrap(vm.plans().planned(), PLAN_TIMEOUT_S);
         CompletableFuture<SnapshotResult> done = new CompletableFuture<>();
         Platform.runLater(() -> {
             // emphasise the weakest reachable route, so its bottleneck shows in the picture
-            vm.routes().stream().filter(RouteReport::reachable)
+            vm.tables().routes().stream().filter(RouteReport::reachable)
                     .min(Comparator.comparingDouble(RouteReport::endToEndCapacityBits))
                     .ifPresent(r -> {
                         view.routeTable().getSelectionModel().select(r);
-                        vm.selectedRouteProperty().set(r);
+                        vm.tables().selectedRouteProperty().set(r);
                         if (tab != null) {
-                            vm.selectLink(r.bottleneckFrom(), r.bottleneckTo());
+                            vm.tables().selectLink(r.bottleneckFrom(), r.bottleneckTo());
                         }
                     });
             if (tab != null && !view.showTab(tab)) {
@@ -105,7 +104,7 @@ public final class DesktopLauncher {
                     Scene scene = view.root().getScene();
                     Snapshots.writePng(scene.snapshot(null), png);
                     SceneView sv = view.sceneView();
-                    done.complete(new SnapshotResult(vm.scenarioProperty().get().nodes().size(), vm.links().size(),
+                    done.complete(new SnapshotResult(vm.scenarioProperty().get().nodes().size(), vm.tables().links().size(),
                             sv.linkShapes().size(), sv.spheres().size()));
                 } catch (Throwable t) {
                     done.completeExceptionally(t);

@@ -1,8 +1,10 @@
 package dev.nanoplan.desktop;
 
 import dev.nanoplan.scenario.Role;
+import javafx.beans.binding.Bindings;
 import javafx.beans.value.ObservableDoubleValue;
 import javafx.geometry.Pos;
+import javafx.scene.Node;
 import javafx.scene.control.Label;
 import javafx.scene.layout.BorderPane;
 import javafx.scene.layout.HBox;
@@ -28,10 +30,10 @@ final class Legend {
         Label lo = new Label("0");
         Label mid = new Label();
         Label hi = new Label();
-        mid.textProperty().bind(javafx.beans.binding.Bindings.createStringBinding(
-                () -> fmt(maxBits.get() / 2), maxBits));
-        hi.textProperty().bind(javafx.beans.binding.Bindings.createStringBinding(
-                () -> fmt(maxBits.get()), maxBits));
+        mid.textProperty().bind(Bindings.createStringBinding(
+                () -> Formats.tick(maxBits.get() / 2), maxBits));
+        hi.textProperty().bind(Bindings.createStringBinding(
+                () -> Formats.tick(maxBits.get()), maxBits));
         BorderPane ticks = new BorderPane();
         ticks.setLeft(lo);
         ticks.setCenter(mid);
@@ -50,19 +52,16 @@ final class Legend {
         VBox box = new VBox(4, title, bar, ticks, roles, bottleneck);
         box.getStyleClass().add("legend");
         box.setMaxSize(Region.USE_PREF_SIZE, Region.USE_PREF_SIZE);
-        for (javafx.scene.Node n : box.getChildren()) {
+        for (Node n : box.getChildren()) {
             n.getStyleClass().add("legend-text");
         }
-        for (javafx.scene.Node n : ticks.getChildren()) {
+        for (Node n : ticks.getChildren()) {
             n.getStyleClass().add("legend-text");
         }
-        for (javafx.scene.Node n : roles.getChildren()) {
+        for (Node n : roles.getChildren()) {
             n.getStyleClass().add("legend-text");
         }
         return box;
     }
 
-    private static String fmt(double v) {
-        return v == Math.rint(v) ? Long.toString((long) v) : String.format(java.util.Locale.ROOT, "%.2g", v);
-    }
 }

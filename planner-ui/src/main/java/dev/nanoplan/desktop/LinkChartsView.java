@@ -6,6 +6,8 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import javafx.application.Platform;
+import javafx.beans.property.ReadOnlyBooleanProperty;
+import javafx.beans.property.ReadOnlyBooleanWrapper;
 import javafx.scene.chart.BarChart;
 import javafx.scene.chart.CategoryAxis;
 import javafx.scene.chart.LineChart;
@@ -37,8 +39,8 @@ final class LinkChartsView {
     private final LineChart<Number, Number> budget = new LineChart<>(new NumberAxis(), new NumberAxis());
     private final VBox box;
     private Future<?> running;
-    private final javafx.beans.property.ReadOnlyBooleanWrapper computing =
-            new javafx.beans.property.ReadOnlyBooleanWrapper(false);
+    private final ReadOnlyBooleanWrapper computing =
+            new ReadOnlyBooleanWrapper(false);
 
     LinkChartsView(PlannerViewModel vm) {
         this.vm = vm;
@@ -51,11 +53,11 @@ final class LinkChartsView {
         mi.setCreateSymbols(false);
         box = new VBox(6, heading, taps, counts, mi, budget);
         box.setFillWidth(true);
-        vm.selectedLinkProperty().addListener((o, a, b) -> refresh(b));
+        vm.tables().selectedLinkProperty().addListener((o, a, b) -> refresh(b));
     }
 
     /** True while chart data are being computed. */
-    javafx.beans.property.ReadOnlyBooleanProperty computingProperty() {
+    ReadOnlyBooleanProperty computingProperty() {
         return computing.getReadOnlyProperty();
     }
 
@@ -91,7 +93,7 @@ final class LinkChartsView {
             try {
                 LinkDetails d = LinkDetails.compute(s, l);
                 Platform.runLater(() -> {
-                    if (l.equals(vm.selectedLinkProperty().get())) {
+                    if (l.equals(vm.tables().selectedLinkProperty().get())) {
                         show(d);
                         computing.set(false);
                     }

@@ -5,6 +5,7 @@ import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkEvaluator;
 import dev.nanoplan.network.LinkSpec;
 import dev.nanoplan.plan.LinkReport;
+import dev.nanoplan.plan.SlotSchedule;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
 import java.util.ArrayList;
@@ -41,8 +42,8 @@ public record LinkDetails(LinkReport link, double[] taps, List<List<double[]>> c
         double bg = s.medium().backgroundMoleculesPerS() * t;
         int levels = s.signalling().levels();
         // the own leftovers the receiver counts: every K-th lag under round-robin (K = 1 under all-active)
-        double[] own = dev.nanoplan.plan.SlotSchedule.ownTaps(l.taps(),
-                dev.nanoplan.plan.SlotSchedule.of(s).frameSlots(l.species()));
+        double[] own = SlotSchedule.ownTaps(l.taps(),
+                SlotSchedule.of(s).frameSlots(l.species()));
         LinkEvaluation ev = LinkEvaluator.evaluate(spec(own, levels, n, s, bg));
         List<List<double[]>> curves = new ArrayList<>();
         for (CountPmf p : ev.givenLevel()) {

@@ -18,10 +18,9 @@ public final class NanoplanApp extends Application {
         PlannerViewModel vm = PlannerViewModel.forApplication();
         AppActions actions = new AppActions(stage, vm);
         MainView view = new MainView(vm, actions);
-        actions.attach(view);
         Scene scene = new Scene(view.root(), 1400, 860);
         stage.setScene(scene);
-        stage.titleProperty().bind(vm.titleProperty());
+        stage.titleProperty().bind(vm.document().titleProperty());
         stage.setOnCloseRequest(e -> {
             if (!actions.confirmDiscard()) {
                 e.consume();

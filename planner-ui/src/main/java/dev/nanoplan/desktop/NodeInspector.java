@@ -62,8 +62,8 @@ public final class NodeInspector {
                 parse("radius", radiusUm.get()), sp, emits, molecules);
     }
 
-    static String fmt(double v) {
-        return v == Math.rint(v) && Math.abs(v) < 1e15 ? Long.toString((long) v) : Double.toString(v);
+    private static String fmt(double v) {
+        return Formats.field(v);
     }
 
     private static double parse(String field, String text) {

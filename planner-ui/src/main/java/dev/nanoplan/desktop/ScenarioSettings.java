@@ -17,11 +17,10 @@ import java.util.HashSet;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Objects;
 import java.util.Set;
 import java.util.TreeSet;
 import javafx.beans.property.ObjectProperty;
-import javafx.beans.property.ReadOnlyStringProperty;
-import javafx.beans.property.ReadOnlyStringWrapper;
 import javafx.beans.property.SimpleObjectProperty;
 import javafx.beans.property.SimpleStringProperty;
 import javafx.beans.property.StringProperty;
@@ -67,65 +66,8 @@ public final class ScenarioSettings {
     /** The layout plus the species declared in the editor that no node uses yet. */
     public record Applied(Scenario scenario, List<Species> unusedSpecies) {
         public Applied {
-            java.util.Objects.requireNonNull(scenario, "scenario");
+            Objects.requireNonNull(scenario, "scenario");
             unusedSpecies = List.copyOf(unusedSpecies);
-        }
-    }
-
-    /** The editable fields of one species. */
-    public static final class SpeciesRow {
-        private final String originalName;
-        private final StringProperty name = new SimpleStringProperty("");
-        private final StringProperty diffusionUm2PerS = new SimpleStringProperty("");
-        private final StringProperty hydrodynamicRadiusNm = new SimpleStringProperty("");
-        private final StringProperty halfLifeS = new SimpleStringProperty("");
-        private final ReadOnlyStringWrapper usage = new ReadOnlyStringWrapper("");
-        private List<String> usedBy = List.of();
-        private String shownDiffusion = "";
-        private String shownRadius = "";
-
-        SpeciesRow(String originalName) {
-            this.originalName = originalName;
-            name.set(originalName == null ? "" : originalName);
-        }
-
-        /** The name the species has in the layout, or null for a row added in the editor. */
-        public String originalName() {
-            return originalName;
-        }
-
-        /** The name as typed now. */
-        public String name() {
-            return name.get();
-        }
-
-        /** The name; changing it renames the species in every node on Apply. */
-        public StringProperty nameProperty() {
-            return name;
-        }
-
-        public StringProperty diffusionUm2PerSProperty() {
-            return diffusionUm2PerS;
-        }
-
-        /** Hydrodynamic radius in nm (D then follows from Stokes–Einstein); blank if D is given. */
-        public StringProperty hydrodynamicRadiusNmProperty() {
-            return hydrodynamicRadiusNm;
-        }
-
-        /** Half-life in seconds; blank means stable (no decay). */
-        public StringProperty halfLifeSProperty() {
-            return halfLifeS;
-        }
-
-        /** Which nodes use the species, in words ("3 nodes", "not used yet"). */
-        public ReadOnlyStringProperty usageProperty() {
-            return usage.getReadOnlyProperty();
-        }
-
-        /** Ids of the nodes of the loaded layout that use the species (absorb or emit it). */
-        public List<String> usedBy() {
-            return usedBy;
         }
     }
 
@@ -195,7 +137,7 @@ public final class ScenarioSettings {
             SpeciesRow r = new SpeciesRow(sp.name());
             // a radius-given species' D is derived (Stokes–Einstein): shown to 4 digits, it is only used if retyped
             r.shownDiffusion = sp.hydrodynamicRadiusNm().isPresent()
-                    ? String.format(java.util.Locale.ROOT, "%.4g", sp.diffusionUm2PerS())
+                    ? Formats.fourDigits(sp.diffusionUm2PerS())
                     : fmt(sp.diffusionUm2PerS());
             r.shownRadius = sp.hydrodynamicRadiusNm().isPresent() ? fmt(sp.hydrodynamicRadiusNm().getAsDouble()) : "";
             r.diffusionUm2PerS.set(r.shownDiffusion);
@@ -257,19 +199,19 @@ public final class ScenarioSettings {
     public Applied apply(Scenario s, List<Species> unused) {
         Medium medium;
         try {
-            medium = new Medium(parse("temperature K", temperatureK.get()),
-                    parse("viscosity mPa·s", viscosityMPaS.get()), flow(),
-                    parse("background molecules/s", backgroundMoleculesPerS.get()));
+            medium = new Medium(SettingsText.parse("temperature K", temperatureK.get()),
+                    SettingsText.parse("viscosity mPa·s", viscosityMPaS.get()), flow(),
+                    SettingsText.parse("background molecules/s", backgroundMoleculesPerS.get()));
         } catch (IllegalArgumentException e) {
-            throw prefixed("medium", e);
+            throw SettingsText.prefixed("medium", e);
         }
         Signalling signalling;
         try {
-            signalling = new Signalling(parse("symbol time s", symbolTimeS.get()),
-                    parseInt("ISI memory symbols", isiMemorySymbols.get()), parseInt("levels", levels.get()),
-                    parse("prior one", priorOne.get()), countModel.get(), schedule.get());
+            signalling = new Signalling(SettingsText.parse("symbol time s", symbolTimeS.get()),
+                    SettingsText.parseInt("ISI memory symbols", isiMemorySymbols.get()), SettingsText.parseInt("levels", levels.get()),
+                    SettingsText.parse("prior one", priorOne.get()), countModel.get(), schedule.get());
         } catch (IllegalArgumentException e) {
-            throw prefixed("signalling", e);
+            throw SettingsText.prefixed("signalling", e);
         }
 
         Map<String, Species> old = new HashMap<>();
@@ -281,9 +223,9 @@ public final class ScenarioSettings {
             SpeciesRow row = species.get(i);
             String label = row.originalName != null ? "species " + row.originalName : "new species row " + (i + 1);
             try {
-                declared.add(species(old.get(row.originalName), row, medium));
+                declared.add(row.toSpecies(medium));
             } catch (IllegalArgumentException e) {
-                throw prefixed(label, e);
+                throw SettingsText.prefixed(label, e);
             }
             if (row.originalName != null && !row.originalName.equals(row.name())) {
                 renamed.put(row.originalName, row.name());
@@ -292,7 +234,7 @@ public final class ScenarioSettings {
         // species the editor did not show (it was loaded from another layout) are kept
         for (Species sp : concat(s.species(), unused)) {
             if (rowFor(sp.name()) == null && !removed.contains(sp.name())) {
-                declared.add(species(sp, null, medium));
+                declared.add(SpeciesRow.rederived(sp, medium));
             }
         }
 
@@ -320,7 +262,7 @@ public final class ScenarioSettings {
             return new Applied(new Scenario(s.name(), s.volume(), medium, inLayout, signalling, nodes, s.demands(),
                     s.targets()), notUsed);
         } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException(oneLine(e.getMessage()), e);
+            throw new IllegalArgumentException(SettingsText.oneLine(e.getMessage()), e);
         }
     }
 
@@ -350,61 +292,26 @@ public final class ScenarioSettings {
         String profile = flowProfile.get();
         try {
             if (FLOW_PROFILES.get(1).equals(profile)) {
-                return new Flow.Uniform(new Vec3(parse("flow velocity x µm/s", flowVxUmPerS.get()),
-                        parse("flow velocity y µm/s", flowVyUmPerS.get()),
-                        parse("flow velocity z µm/s", flowVzUmPerS.get())));
+                return new Flow.Uniform(new Vec3(SettingsText.parse("flow velocity x µm/s", flowVxUmPerS.get()),
+                        SettingsText.parse("flow velocity y µm/s", flowVyUmPerS.get()),
+                        SettingsText.parse("flow velocity z µm/s", flowVzUmPerS.get())));
             }
             if (FLOW_PROFILES.get(2).equals(profile)) {
                 String field = "flow mean speed µm/s";
-                double u = parse(field, flowMeanSpeedUmPerS.get());
+                double u = SettingsText.parse(field, flowMeanSpeedUmPerS.get());
                 try {
                     return new Flow.Poiseuille(u);
                 } catch (IllegalArgumentException e) {
-                    throw prefixed(field, e);
+                    throw SettingsText.prefixed(field, e);
                 }
             }
             if (FLOW_PROFILES.get(0).equals(profile)) {
                 return new Flow.None();
             }
         } catch (IllegalArgumentException e) {
-            throw prefixed("flow", e);
+            throw SettingsText.prefixed("flow", e);
         }
         throw new IllegalArgumentException("flow: unknown profile '" + profile + "', expected one of " + FLOW_PROFILES);
-    }
-
-    /** The species a row describes; {@code row == null} re-derives {@code old} in the new medium. */
-    private static Species species(Species old, SpeciesRow row, Medium medium) {
-        if (row == null) {
-            return old.hydrodynamicRadiusNm().isPresent()
-                    ? Species.ofHydrodynamicRadius(old.name(), old.hydrodynamicRadiusNm().getAsDouble(), old.halfLifeS(),
-                            medium)
-                    : old;
-        }
-        String name = row.name.get();
-        String halfText = trim(row.halfLifeS.get());
-        double halfLifeS = halfText.isEmpty() ? Double.POSITIVE_INFINITY : parse("half-life s", halfText);
-        String dText = trim(row.diffusionUm2PerS.get());
-        String rText = trim(row.hydrodynamicRadiusNm.get());
-        boolean dTyped = !dText.isEmpty() && !dText.equals(row.shownDiffusion);
-        boolean rTyped = !rText.isEmpty() && !rText.equals(row.shownRadius);
-        if (dTyped && rTyped) {
-            throw new IllegalArgumentException("give either diffusion µm²/s or hydrodynamic radius nm, not both");
-        }
-        if (!dTyped && !rText.isEmpty()) {
-            double r = parse("hydrodynamic radius nm", rText);
-            if (!(r > 0)) {
-                throw new IllegalArgumentException("hydrodynamic radius nm must be > 0, got " + rText);
-            }
-            return Species.ofHydrodynamicRadius(name, r, halfLifeS, medium);
-        }
-        if (dText.isEmpty()) {
-            throw new IllegalArgumentException("diffusion µm²/s: missing (give diffusion µm²/s or hydrodynamic radius nm)");
-        }
-        double d = parse("diffusion µm²/s", dText);
-        if (!(d > 0)) {
-            throw new IllegalArgumentException("diffusion µm²/s must be > 0, got " + dText);
-        }
-        return Species.ofDiffusion(name, d, halfLifeS);
     }
 
     private static void refuseIfUsed(String name, List<String> nodeIds) {
@@ -448,42 +355,8 @@ public final class ScenarioSettings {
         return null;
     }
 
-    private static String trim(String s) {
-        return s == null ? "" : s.trim();
-    }
-
-    private static String oneLine(String message) {
-        return message == null ? "" : message.replace(":\n", ": ").replace("\n", "; ");
-    }
-
-    private static IllegalArgumentException prefixed(String where, IllegalArgumentException e) {
-        return new IllegalArgumentException(where + ": " + oneLine(e.getMessage()), e);
-    }
-
     private static String fmt(double v) {
-        return NodeInspector.fmt(v);
-    }
-
-    private static double parse(String field, String text) {
-        String t = trim(text);
-        try {
-            double v = Double.parseDouble(t);
-            if (!Double.isFinite(v)) {
-                throw new IllegalArgumentException(field + ": must be a finite number, got " + t);
-            }
-            return v;
-        } catch (NumberFormatException e) {
-            throw new IllegalArgumentException(field + ": not a number: '" + t + "'");
-        }
-    }
-
-    private static int parseInt(String field, String text) {
-        String t = trim(text);
-        try {
-            return Integer.parseInt(t);
-        } catch (NumberFormatException e) {
-            throw new IllegalArgumentException(field + ": not a whole number: '" + t + "'");
-        }
+        return Formats.field(v);
     }
 
     public StringProperty temperatureKProperty() {

@@ -1,8 +1,8 @@
 package dev.nanoplan.desktop;
 
 import java.util.List;
-import java.util.Locale;
 import javafx.beans.binding.Bindings;
+import javafx.beans.property.StringProperty;
 import javafx.geometry.Insets;
 import javafx.geometry.Pos;
 import javafx.scene.control.Button;
@@ -88,7 +88,7 @@ public final class SimulationView {
         HBox.setHgrow(bar, Priority.ALWAYS);
         Label percent = new Label();
         percent.textProperty().bind(Bindings.createStringBinding(
-                () -> String.format(Locale.ROOT, "%3.0f %%", 100 * vm.progressProperty().get()), vm.progressProperty()));
+                () -> Formats.percent(vm.progressProperty().get()), vm.progressProperty()));
         percent.setMinWidth(Region.USE_PREF_SIZE);
         HBox controls = new HBox(8, run, cancel, bar, percent);
         controls.setAlignment(Pos.CENTER_LEFT);
@@ -144,25 +144,25 @@ public final class SimulationView {
     }
 
     private void buildTable() {
-        TableColumn<SimulationRow, String> flag = MainView.text("", r -> r.flagged() ? "⚑" : "");
+        TableColumn<SimulationRow, String> flag = Widgets.text("", r -> r.flagged() ? "⚑" : "");
         flag.setComparator((a, b) -> b.compareTo(a));
         flag.setPrefWidth(28);
-        TableColumn<SimulationRow, String> reason = MainView.text("reason", SimulationRow::reason);
+        TableColumn<SimulationRow, String> reason = Widgets.text("reason", SimulationRow::reason);
         reason.setPrefWidth(340);
         table.getColumns().addAll(List.of(
                 flag,
-                width(MainView.text("emitter", SimulationRow::from), 70),
-                width(MainView.text("receiver", SimulationRow::to), 70),
-                width(MainView.number("p0 analytic", SimulationRow::analyticHitProbability), 80),
-                width(MainView.number("p0 simulated", SimulationRow::simulatedHitProbability), 100),
-                width(MainView.number("± s.e.", SimulationRow::standardError), 70),
-                width(MainView.number("z", SimulationRow::zScore), 75),
-                width(MainView.numberText("Δ %", r -> r.relativeDifference() * 100,
+                width(Widgets.text("emitter", SimulationRow::from), 70),
+                width(Widgets.text("receiver", SimulationRow::to), 70),
+                width(Widgets.number("p0 analytic", SimulationRow::analyticHitProbability), 80),
+                width(Widgets.number("p0 simulated", SimulationRow::simulatedHitProbability), 100),
+                width(Widgets.number("± s.e.", SimulationRow::standardError), 70),
+                width(Widgets.number("z", SimulationRow::zScore), 75),
+                width(Widgets.numberText("Δ %", r -> r.relativeDifference() * 100,
                         r -> Double.isNaN(r.relativeDifference()) ? "—"
-                                : String.format(Locale.ROOT, "%+.1f", r.relativeDifference() * 100)), 75),
-                width(MainView.numberText("C analytic bit", SimulationRow::analyticCapacityBits,
+                                : Formats.signedOneDecimal(r.relativeDifference() * 100)), 75),
+                width(Widgets.numberText("C analytic bit", SimulationRow::analyticCapacityBits,
                         r -> capacity(r.analyticCapacityBits())), 95),
-                width(MainView.numberText("C simulated bit", SimulationRow::simulatedCapacityBits,
+                width(Widgets.numberText("C simulated bit", SimulationRow::simulatedCapacityBits,
                         r -> capacity(r.simulatedCapacityBits())), 105),
                 reason));
         for (TableColumn<SimulationRow, ?> c : table.getColumns()) {
@@ -205,7 +205,7 @@ public final class SimulationView {
         return Double.isNaN(bits) ? "below floor" : Formats.sig(bits);
     }
 
-    private static TextField field(javafx.beans.property.StringProperty p, String id, int columns) {
+    private static TextField field(StringProperty p, String id, int columns) {
         TextField f = new TextField();
         f.textProperty().bindBidirectional(p);
         f.setPrefColumnCount(columns);

@@ -1,32 +1,21 @@
 package dev.nanoplan.desktop;
 
-import dev.nanoplan.plan.LinkReport;
-import dev.nanoplan.plan.NetworkPlanner;
-import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.PlanOptions;
-import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.sim.ChannelCache;
-import dev.nanoplan.sim.LinkComparison;
 import dev.nanoplan.sim.ParticleSimulator;
 import dev.nanoplan.sim.SimulatedChannel;
 import dev.nanoplan.sim.SimulatedChannelMatrix;
 import dev.nanoplan.sim.SimulationComparison;
 import dev.nanoplan.sim.SimulationSettings;
-import dev.nanoplan.sim.TimeStepRule;
-import java.io.IOException;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
-import java.util.OptionalDouble;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.Executor;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
-import java.util.concurrent.atomic.AtomicBoolean;
-import java.util.concurrent.atomic.AtomicLong;
 import javafx.application.Platform;
 import javafx.beans.property.BooleanProperty;
 import javafx.beans.property.ReadOnlyBooleanProperty;
@@ -62,18 +51,8 @@ import javafx.collections.ObservableList;
  * ({@link #layoutReplaced()}: a file opened, a template loaded) or the window closes
  * ({@link #dispose()}), a run in progress is cancelled, since its result would be dropped.
  *
- * <p>Simulated-channel cache: with a {@link ChannelCache} (the application uses the same folder as
- * {@code nanoplan plan --channel simulated}, so both share results), a run whose layout physics, M,
- * seed and Δt were simulated before loads the stored channel instead of simulating (the status then
- * says "from cache"); a complete new run is stored. {@link #ignoreCacheProperty()} ("Re-simulate")
- * forces a new simulation, whose result replaces the stored one. A cancelled run is never stored.
- *
- * <p>Analytic plan: the closed-form plan the simulated one is compared with is taken from the
- * planner when it already holds the exact plan of the very same layout ({@link PlannerViewModel#planned()}
- * completed, its plan's scenario equal to the simulated one, and the planner's service being the
- * core's default planner); otherwise it is computed again here. {@code planned()} only completes
- * with exact plans, never with a fast preview, which is why the plan is not read from
- * {@link PlannerViewModel#planProperty()}.
+ * <p>Where the channel and the analytic plan come from (the simulated-channel cache, the planner's
+ * exact plan of the same layout) is described at {@link SimulationRun}.
  *
  * <p>Threading: all public methods are called on the UI thread; results are applied through
  * {@code uiThread} (Platform.runLater in the application, a direct executor in tests).
@@ -91,16 +70,16 @@ public final class SimulationViewModel {
     }
 
     /** Largest molecules per emitter the field accepts (counts up to 1e9 stay exact in the core). */
-    public static final long MAX_MOLECULES_PER_EMITTER = 1_000_000_000L;
+    public static final long MAX_MOLECULES_PER_EMITTER = SimulationFields.MAX_MOLECULES_PER_EMITTER;
     /** Default seed, as in {@code nanoplan simulate}. */
     public static final long DEFAULT_SEED = 1;
     /** Shortest interval between two progress updates queued on the UI thread. */
     static final long PROGRESS_INTERVAL_MS = 50;
 
     /** Field names as the view labels them; validation messages start with them. */
-    public static final String MOLECULES_FIELD = "molecules per emitter";
-    public static final String SEED_FIELD = "seed";
-    public static final String TIME_STEP_FIELD = "time step s";
+    public static final String MOLECULES_FIELD = SimulationFields.MOLECULES_FIELD;
+    public static final String SEED_FIELD = SimulationFields.SEED_FIELD;
+    public static final String TIME_STEP_FIELD = SimulationFields.TIME_STEP_FIELD;
 
     private static final ExecutorService WORKER = Executors.newSingleThreadExecutor(r -> {
         Thread t = new Thread(r, "nanoplan-simulation");
@@ -131,7 +110,7 @@ public final class SimulationViewModel {
     private final ObservableList<SimulationRow> rows = FXCollections.observableArrayList();
 
     /** The run in progress, or null (written on the UI thread, read by workers). */
-    private volatile Run current;
+    private volatile SimulationRun current;
     /** The layout the shown rows belong to, or null when no rows are shown. */
     private Scenario resultScenario;
     private CompletableFuture<Outcome> finished = new CompletableFuture<>();
@@ -139,12 +118,7 @@ public final class SimulationViewModel {
     private boolean disposed;
     private boolean lastAnalyticReused;
 
-    /**
-     * @param planner    whose current layout is simulated (read only; nothing in it is changed)
-     * @param uiThread   where state changes are applied (the FX thread in the application)
-     * @param background where the simulation and the two plans run
-     * @param threads    simulator worker threads, ≥ 1 (results do not depend on it)
-     */
+    /** As the full constructor, with no cache and the analytic plan always computed here. */
     public SimulationViewModel(PlannerViewModel planner, Executor uiThread, Executor background, int threads) {
         this(planner, uiThread, background, threads, null, false);
     }
@@ -175,6 +149,11 @@ public final class SimulationViewModel {
             refreshEstimate();
         };
         planner.scenarioProperty().addListener(layoutListener);
+        planner.onLayoutReplaced(() -> {
+            if (!disposed) {
+                layoutReplaced();
+            }
+        });
         moleculesPerEmitter.addListener((o, a, b) -> refreshEstimate());
         seed.addListener((o, a, b) -> refreshEstimate());
         timeStepS.addListener((o, a, b) -> refreshEstimate());
@@ -207,24 +186,18 @@ public final class SimulationViewModel {
      *     layout is open, the layout has no emitter, or a field is invalid; nothing is started then
      */
     public boolean run() {
-        if (disposed) {
-            status.set("not started: the window is closing");
-            return false;
-        }
-        if (current != null) {
-            status.set("not started: a simulation is already running");
-            return false;
-        }
         Scenario s = planner.scenarioProperty().get();
-        if (s == null) {
-            status.set("not started: open a layout first");
+        String refused = disposed ? "the window is closing" : current != null ? "a simulation is already running"
+                : s == null ? "open a layout first" : null;
+        if (refused != null) {
+            status.set("not started: " + refused);
             return false;
         }
         SimulationSettings settings;
-        Work work;
+        SimulationFields.Work work;
         try {
             settings = settings();
-            work = Work.of(s, settings);
+            work = SimulationFields.Work.of(s, settings);
         } catch (IllegalArgumentException e) {
             status.set("not started: " + e.getMessage());
             return false;
@@ -233,7 +206,7 @@ public final class SimulationViewModel {
             status.set("not started: the layout has no transmitter or relay to simulate");
             return false;
         }
-        Run r = new Run(s, settings, ignoreCache.get());
+        SimulationRun r = new SimulationRun(s, settings, ignoreCache.get());
         current = r;
         finished = r.finished;
         rows.clear();
@@ -251,7 +224,7 @@ public final class SimulationViewModel {
 
     /** Asks the running simulation to stop; it ends as {@link Outcome#CANCELLED} with no rows. */
     public void cancel() {
-        Run r = current;
+        SimulationRun r = current;
         if (r == null || r.cancelled.get()) {
             return;
         }
@@ -303,167 +276,28 @@ public final class SimulationViewModel {
      * @throws IllegalArgumentException with a one-line message starting with the field's name
      */
     public SimulationSettings settings() {
-        long m = parseLong(MOLECULES_FIELD, moleculesPerEmitter.get());
-        if (m < 1 || m > MAX_MOLECULES_PER_EMITTER) {
-            throw new IllegalArgumentException(MOLECULES_FIELD + ": must be a whole number from 1 to "
-                    + MAX_MOLECULES_PER_EMITTER + ", got " + m);
-        }
-        long sd = parseLong(SEED_FIELD, seed.get());
-        String dtText = timeStepS.get() == null ? "" : timeStepS.get().strip();
-        OptionalDouble dt = OptionalDouble.empty();
-        if (!dtText.isEmpty() && !dtText.equalsIgnoreCase("auto")) {
-            double v;
-            try {
-                v = Double.parseDouble(dtText);
-            } catch (NumberFormatException e) {
-                throw new IllegalArgumentException(TIME_STEP_FIELD + ": not a number: '" + dtText
-                        + "' (leave blank for automatic)");
-            }
-            if (!(v > 0) || !Double.isFinite(v)) {
-                throw new IllegalArgumentException(TIME_STEP_FIELD + ": must be a finite number > 0 (blank = "
-                        + "automatic), got " + dtText);
-            }
-            dt = OptionalDouble.of(v);
-        }
-        return new SimulationSettings(m, sd, dt, threads);
-    }
-
-    private static long parseLong(String field, String text) {
-        String t = text == null ? "" : text.strip().replace("_", "");
-        if (t.isEmpty()) {
-            throw new IllegalArgumentException(field + ": required");
-        }
-        try {
-            return Long.parseLong(t);
-        } catch (NumberFormatException e) {
-            throw new IllegalArgumentException(field + ": must be a whole number, got '" + text.strip() + "'");
-        }
+        return SimulationFields.parse(moleculesPerEmitter.get(), seed.get(), timeStepS.get(), threads);
     }
 
     // ---------------------------------------------------------------- background
 
-    /** One run: its layout snapshot, settings, cancel flag and progress coalescing. */
-    private static final class Run {
-        final Scenario scenario;
-        final SimulationSettings settings;
-        final boolean ignoreCache;
-        final AtomicBoolean cancelled = new AtomicBoolean();
-        final AtomicBoolean progressQueued = new AtomicBoolean();
-        final AtomicLong lastQueuedNanos = new AtomicLong(Long.MIN_VALUE / 2);
-        volatile double latest;
-        /** Whether the analytic plan was the planner's (set on the worker before the result is queued). */
-        volatile boolean analyticReused;
-        final CompletableFuture<Outcome> finished = new CompletableFuture<>();
-
-        Run(Scenario scenario, SimulationSettings settings, boolean ignoreCache) {
-            this.scenario = scenario;
-            this.settings = settings;
-            this.ignoreCache = ignoreCache;
-        }
-    }
-
-    /** The estimate of a run's work, from the core's time-step rule (cheap: O(emitters × receivers)). */
-    private record Work(int emitters, double timeStepS, long stepsPerMolecule, int symbolTimes) {
-
-        static Work of(Scenario s, SimulationSettings settings) {
-            int emitters = (int) s.nodes().stream().filter(n -> n.role().emits()).count();
-            int slots = s.signalling().isiMemorySymbols() + 1;
-            double dt;
-            long steps;
-            try {
-                dt = new ParticleSimulator(settings).timeStepS(s);
-                steps = (long) TimeStepRule.stepsPerSymbol(s.signalling().symbolTimeS(), dt) * slots;
-            } catch (IllegalArgumentException e) {
-                // the core names its parameter (timeStepS); the user knows the field by its label
-                throw new IllegalArgumentException(TIME_STEP_FIELD + ": too small ("
-                        + e.getMessage().replaceFirst("^timeStepS: ", "") + ")");
-            }
-            if (steps > Integer.MAX_VALUE) {
-                throw new IllegalArgumentException(TIME_STEP_FIELD + ": " + Formats.sig(dt) + " s needs " + steps
-                        + " steps to cover " + slots + " symbol times; use a larger time step");
-            }
-            return new Work(emitters, dt, steps, slots);
-        }
-    }
-
-    /** A simulated channel and where it came from. */
-    private record Obtained(SimulatedChannel channel, String source) {
-    }
-
-    /**
-     * The channel of {@code r}: from the cache when allowed and present, else simulated (and stored
-     * when complete; a failed store is reported in the source, not as a failure of the run).
-     */
-    private Obtained obtain(Run r) {
-        ParticleSimulator simulator = new ParticleSimulator(r.settings);
-        String key = null;
-        if (cache != null) {
-            key = ChannelCache.key(r.scenario, r.settings.moleculesPerEmitter(), r.settings.seed(),
-                    simulator.timeStepS(r.scenario));
-            if (!r.ignoreCache) {
-                var cached = cache.load(r.scenario, key);
-                if (cached.isPresent()) {
-                    return new Obtained(cached.get(), "from cache");
-                }
-            }
-        }
-        SimulatedChannel channel = simulator.simulate(r.scenario, (done, total) -> onProgress(r, done, total),
-                r.cancelled::get);
-        if (cache == null || !channel.complete() || r.cancelled.get()) {
-            return new Obtained(channel, "simulated");
-        }
+    private void execute(SimulationRun r) {
         try {
-            cache.store(key, channel);
-            return new Obtained(channel, r.ignoreCache ? "re-simulated, cache updated" : "simulated, cached");
-        } catch (IOException | RuntimeException e) {
-            return new Obtained(channel, "simulated (not cached: " + e.getMessage() + ")");
-        }
-    }
-
-    /** The planner's exact plan of {@code s}, when it holds one and its plans are the core's default; else null. */
-    private Plan plannersPlan(Scenario s) {
-        if (!reusePlannerPlans) {
-            return null;
-        }
-        CompletableFuture<Plan> f = planner.planned();
-        if (!f.isDone() || f.isCompletedExceptionally()) {
-            return null;
-        }
-        Plan p = f.getNow(null);
-        return p != null && ChannelMatrix.ANALYTIC.equals(p.channel()) && s.equals(p.scenario()) ? p : null;
-    }
-
-    private void execute(Run r) {
-        try {
-            Obtained got = obtain(r);
+            SimulationRun.Obtained got = r.obtain(cache, (done, total) -> onProgress(r, done, total));
             SimulatedChannel channel = got.channel();
             if (r.cancelled.get() || !channel.complete()) {
                 long total = r.settings.moleculesPerEmitter() * channel.emitters().size();
                 uiThread.execute(() -> endCancelled(r, channel.moleculesSimulated(), total));
                 return;
             }
-            List<LinkComparison> comparisons = SimulationComparison.compare(r.scenario, channel);
-            uiThread.execute(() -> {
+            List<SimulationRow> out = r.compare(channel, reusePlannerPlans ? r.reusable(planner.plans().planned()) : null, () -> uiThread.execute(() -> {
                 if (current == r && !r.cancelled.get()) {
                     status.set("simulated; planning on the simulated taps…");
                 }
-            });
-            Plan reused = plannersPlan(r.scenario);
-            r.analyticReused = reused != null;
-            Plan analytic = reused != null ? reused : NetworkPlanner.plan(r.scenario, PlanOptions.DEFAULT);
-            if (r.cancelled.get()) {
+            }));
+            if (out == null) {
                 uiThread.execute(() -> endCancelled(r, channel.moleculesSimulated(), channel.moleculesSimulated()));
                 return;
-            }
-            Plan simulated = NetworkPlanner.plan(r.scenario,
-                    PlanOptions.DEFAULT.withChannel(SimulatedChannelMatrix.of(channel)));
-            if (r.cancelled.get()) {
-                uiThread.execute(() -> endCancelled(r, channel.moleculesSimulated(), channel.moleculesSimulated()));
-                return;
-            }
-            List<SimulationRow> out = new ArrayList<>(comparisons.size());
-            for (LinkComparison c : comparisons) {
-                out.add(SimulationRow.of(c, capacity(analytic, c), capacity(simulated, c)));
             }
             uiThread.execute(() -> endComplete(r, out, channel, got.source()));
         } catch (RuntimeException | Error e) {
@@ -471,25 +305,9 @@ public final class SimulationViewModel {
         }
     }
 
-    private static double capacity(Plan p, LinkComparison c) {
-        for (LinkReport l : p.links()) {
-            if (l.from().equals(c.from()) && l.to().equals(c.to())) {
-                return l.capacityBits();
-            }
-        }
-        return Double.NaN;
-    }
-
     /** Called from simulator workers: remembers the fraction and queues at most one UI update. */
-    private void onProgress(Run r, long done, long total) {
-        r.latest = total <= 0 ? 1 : Math.min(1, (double) done / total);
-        long now = System.nanoTime();
-        boolean last = done >= total;
-        if (!last && now - r.lastQueuedNanos.get() < PROGRESS_INTERVAL_MS * 1_000_000L) {
-            return;
-        }
-        if (r.progressQueued.compareAndSet(false, true)) {
-            r.lastQueuedNanos.set(now);
+    private void onProgress(SimulationRun r, long done, long total) {
+        if (r.progress(done, total, PROGRESS_INTERVAL_MS * 1_000_000L)) {
             uiThread.execute(() -> {
                 r.progressQueued.set(false);
                 if (current == r) {
@@ -501,7 +319,7 @@ public final class SimulationViewModel {
 
     // ---------------------------------------------------------------- endings (UI thread)
 
-    private void endComplete(Run r, List<SimulationRow> out, SimulatedChannel channel, String source) {
+    private void endComplete(SimulationRun r, List<SimulationRow> out, SimulatedChannel channel, String source) {
         if (current != r) {
             return;
         }
@@ -524,22 +342,17 @@ public final class SimulationViewModel {
         r.finished.complete(Outcome.COMPLETE);
     }
 
-    private void endCancelled(Run r, long done, long total) {
-        if (current != r) {
-            return;
-        }
-        current = null;
-        rows.clear();
-        resultScenario = null;
-        stale.set(false);
-        progress.set(0);
-        status.set(String.format(Locale.ROOT, "cancelled after %d of %d molecules; no result shown", done, total));
-        cancelling.set(false);
-        running.set(false);
-        r.finished.complete(Outcome.CANCELLED);
+    private void endCancelled(SimulationRun r, long done, long total) {
+        endWithoutRows(r, String.format(Locale.ROOT, "cancelled after %d of %d molecules; no result shown", done,
+                total), Outcome.CANCELLED);
     }
 
-    private void endFailed(Run r, Throwable e) {
+    private void endFailed(SimulationRun r, Throwable e) {
+        endWithoutRows(r, "simulation failed: " + (e.getMessage() == null ? e.getClass().getSimpleName()
+                : e.getMessage()), Outcome.FAILED);
+    }
+
+    private void endWithoutRows(SimulationRun r, String why, Outcome outcome) {
         if (current != r) {
             return;
         }
@@ -548,10 +361,10 @@ public final class SimulationViewModel {
         resultScenario = null;
         stale.set(false);
         progress.set(0);
-        status.set("simulation failed: " + (e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage()));
+        status.set(why);
         cancelling.set(false);
         running.set(false);
-        r.finished.complete(Outcome.FAILED);
+        r.finished.complete(outcome);
     }
 
     private void refreshEstimate() {
@@ -561,17 +374,7 @@ public final class SimulationViewModel {
             return;
         }
         try {
-            SimulationSettings settings = settings();
-            Work w = Work.of(s, settings);
-            if (w.emitters() == 0) {
-                estimate.set("nothing to simulate: the layout has no transmitter or relay");
-                return;
-            }
-            double moleculeSteps = (double) w.stepsPerMolecule() * w.emitters() * settings.moleculesPerEmitter();
-            estimate.set(String.format(Locale.ROOT,
-                    "work: Δt %s s, %d steps per molecule (%d symbol times), %d emitter(s) × %d molecules, "
-                            + "at most %.2g molecule-steps", Formats.sig(w.timeStepS()), w.stepsPerMolecule(),
-                    w.symbolTimes(), w.emitters(), settings.moleculesPerEmitter(), moleculeSteps));
+            estimate.set(SimulationFields.estimate(s, settings()));
         } catch (IllegalArgumentException e) {
             estimate.set(e.getMessage());
         }

@@ -1,9 +1,11 @@
 package dev.nanoplan.desktop;
 
+import dev.nanoplan.io.AtomicFiles;
 import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.nio.file.Path;
 import javafx.scene.image.Image;
+import javafx.scene.image.PixelFormat;
 import javafx.scene.image.PixelReader;
 import javax.imageio.ImageIO;
 
@@ -21,7 +23,7 @@ public final class Snapshots {
         PixelReader r = img.getPixelReader();
         int[] row = new int[w];
         for (int y = 0; y < h; y++) {
-            r.getPixels(0, y, w, 1, javafx.scene.image.PixelFormat.getIntArgbInstance(), row, 0, w);
+            r.getPixels(0, y, w, 1, PixelFormat.getIntArgbInstance(), row, 0, w);
             out.setRGB(0, y, w, 1, row, 0, w);
         }
         return out;
@@ -29,8 +31,8 @@ public final class Snapshots {
 
     /** Writes {@code img} to {@code file} as PNG. */
     public static void writePng(Image img, Path file) throws IOException {
-        java.awt.image.BufferedImage buffered = toBuffered(img);
-        dev.nanoplan.io.AtomicFiles.write(file, out -> {
+        BufferedImage buffered = toBuffered(img);
+        AtomicFiles.write(file, out -> {
             if (!ImageIO.write(buffered, "png", out)) {
                 throw new IOException("no PNG writer available");
             }

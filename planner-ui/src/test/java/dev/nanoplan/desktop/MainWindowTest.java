@@ -9,9 +9,12 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.TimeUnit;
+import javafx.event.EventType;
 import javafx.scene.Node;
 import javafx.scene.Parent;
 import javafx.scene.SnapshotParameters;
+import javafx.scene.control.Button;
+import javafx.scene.control.TextField;
 import javafx.scene.input.MouseButton;
 import javafx.scene.input.MouseEvent;
 import javafx.scene.shape.Cylinder;
@@ -40,7 +43,7 @@ class MainWindowTest extends FxWindowTestBase {
             assertThat(shown.vm().open(SCENARIOS.resolve(name + ".json"))).isTrue();
             return shown;
         });
-        w.vm().planned().get(150, TimeUnit.SECONDS);
+        w.vm().plans().planned().get(150, TimeUnit.SECONDS);
         WaitForAsyncUtils.waitForFxEvents();
         return w;
     }
@@ -63,7 +66,7 @@ class MainWindowTest extends FxWindowTestBase {
     void eachBundledScenarioShowsOneSpherePerNodeAndOneShapePerLink(String name) throws Exception {
         Window w = open(name);
         onFx(() -> {
-            Plan p = w.vm().planProperty().get();
+            Plan p = w.vm().tables().planProperty().get();
             SceneView sv = w.view().sceneView();
             // the sub-scene sits in the window's scene graph (a detached SubScene renders blank)
             assertThat(sv.subScene().getScene()).isSameAs(stage.getScene());
@@ -84,7 +87,7 @@ class MainWindowTest extends FxWindowTestBase {
             LinkReport second = table.getItems().get(1);
             double plain = w.view().sceneView().linkShapes().get(key(second)).getRadius();
             table.getSelectionModel().clearAndSelect(0);
-            assertThat(w.vm().selectedLinkProperty().get()).isEqualTo(first);
+            assertThat(w.vm().tables().selectedLinkProperty().get()).isEqualTo(first);
             assertThat(w.view().sceneView().linkShapes().get(key(first)).getRadius()).isGreaterThan(plain);
             // and back: a click on the second link's cylinder selects its table row
             Cylinder c = w.view().sceneView().linkShapes().get(key(second));
@@ -99,7 +102,7 @@ class MainWindowTest extends FxWindowTestBase {
     void draggingANodeChangesTheLinkTable() throws Exception {
         Window w = open("culture-tank");
         List<LinkReport> before = onFx(() -> List.copyOf(w.view().linkTable().getItems()));
-        var beforePos = w.vm().nodeById("s09").positionUm();
+        var beforePos = w.vm().editor().nodeById("s09").positionUm();
         double[] translateBefore = onFx(() -> {
             Sphere s = w.view().sceneView().spheres().get("s09");
             return new double[] {s.getTranslateX(), s.getTranslateY(), s.getTranslateZ()};
@@ -116,8 +119,8 @@ class MainWindowTest extends FxWindowTestBase {
             sphereBefore.fireEvent(mouse(MouseEvent.MOUSE_RELEASED, 330, 300));
             return null;
         });
-        assertThat(w.vm().nodeById("s09").positionUm()).isNotEqualTo(beforePos);
-        w.vm().planned().get(150, TimeUnit.SECONDS);
+        assertThat(w.vm().editor().nodeById("s09").positionUm()).isNotEqualTo(beforePos);
+        w.vm().plans().planned().get(150, TimeUnit.SECONDS);
         WaitForAsyncUtils.waitForFxEvents();
         List<LinkReport> after = onFx(() -> List.copyOf(w.view().linkTable().getItems()));
         assertThat(after).isNotEqualTo(before);
@@ -164,7 +167,7 @@ class MainWindowTest extends FxWindowTestBase {
         assertThat(changed).isGreaterThan(1000);
     }
 
-    static MouseEvent mouse(javafx.event.EventType<MouseEvent> type, double x, double y) {
+    static MouseEvent mouse(EventType<MouseEvent> type, double x, double y) {
         return new MouseEvent(type, x, y, x, y, MouseButton.PRIMARY, 1, true, false, false, false,
                 type != MouseEvent.MOUSE_RELEASED, false, false, false, false, false, null);
     }
@@ -197,16 +200,16 @@ class MainWindowTest extends FxWindowTestBase {
             assertThat(w.view().showTab("Settings")).isTrue();
             // the Apply button of the settings tab is bound to the view model's settings editor
             w.vm().settings().symbolTimeSProperty().set("0.5");
-            javafx.scene.control.Button apply = (javafx.scene.control.Button) w.view().tabs().getSelectionModel()
+            Button apply = (Button) w.view().tabs().getSelectionModel()
                     .getSelectedItem().getContent().lookup("#apply-settings");
             assertThat(apply).isNotNull();
             assertThat(apply.isDisabled()).isFalse();
             apply.fire();
             return null;
         });
-        Plan p = w.vm().planned().get(150, TimeUnit.SECONDS);
+        Plan p = w.vm().plans().planned().get(150, TimeUnit.SECONDS);
         assertThat(p.scenario().signalling().symbolTimeS()).isEqualTo(0.5);
-        assertThat(onFx(() -> w.vm().undoStack().canUndoProperty().get())).isTrue();
+        assertThat(onFx(() -> w.vm().document().undoStack().canUndoProperty().get())).isTrue();
     }
 
     @Test
@@ -215,19 +218,19 @@ class MainWindowTest extends FxWindowTestBase {
         onFx(() -> {
             assertThat(w.view().showTab("Settings")).isTrue();
             Parent pane = (Parent) w.view().tabs().getSelectionModel().getSelectedItem().getContent();
-            ((javafx.scene.control.Button) pane.lookup("#add-species")).fire();
+            ((Button) pane.lookup("#add-species")).fire();
             return null;
         });
         WaitForAsyncUtils.waitForFxEvents();
         onFx(() -> {
             Parent pane = (Parent) w.view().tabs().getSelectionModel().getSelectedItem().getContent();
             // culture-tank.json declares A and B: the added row is the third
-            javafx.scene.control.TextField name = (javafx.scene.control.TextField) pane.lookup("#species-name-2");
-            javafx.scene.control.TextField d = (javafx.scene.control.TextField) pane.lookup("#species-d-2");
+            TextField name = (TextField) pane.lookup("#species-name-2");
+            TextField d = (TextField) pane.lookup("#species-d-2");
             assertThat(name).isNotNull();
             name.setText("lactate");
             d.setText("95");
-            ((javafx.scene.control.Button) pane.lookup("#apply-settings")).fire();
+            ((Button) pane.lookup("#apply-settings")).fire();
             return null;
         });
         WaitForAsyncUtils.waitForFxEvents();
@@ -237,14 +240,14 @@ class MainWindowTest extends FxWindowTestBase {
             // the species list, rebuilt from the view model after Apply, shows the new species
             List<String> names = new ArrayList<>();
             for (Node n : ((Parent) pane.lookup("#species-grid")).getChildrenUnmodifiable()) {
-                if (n instanceof javafx.scene.control.TextField f && f.getId() != null
+                if (n instanceof TextField f && f.getId() != null
                         && f.getId().startsWith("species-name-")) {
                     names.add(f.getText());
                 }
             }
             assertThat(names).containsExactly("A", "B", "lactate");
             assertThat(w.vm().speciesNames()).contains("lactate");
-            assertThat(w.vm().undoStack().canUndoProperty().get()).isTrue();
+            assertThat(w.vm().document().undoStack().canUndoProperty().get()).isTrue();
             return null;
         });
     }

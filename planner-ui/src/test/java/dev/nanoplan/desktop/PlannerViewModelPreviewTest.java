@@ -14,6 +14,7 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
+import java.util.function.BooleanSupplier;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
@@ -68,7 +69,7 @@ class PlannerViewModelPreviewTest {
         previewThread = PlannerViewModel.daemonScheduler("test-preview");
         // exact plans debounced by 50 ms, previews at once, results applied on the calling thread
         vm = new PlannerViewModel(service, Runnable::run, exactThread, 50, previewThread, 0, new RecentFiles(null));
-        vm.planProperty().addListener((o, a, b) -> applied.add(b));
+        vm.tables().planProperty().addListener((o, a, b) -> applied.add(b));
     }
 
     @AfterEach
@@ -80,54 +81,54 @@ class PlannerViewModelPreviewTest {
     @Test
     void thePreviewIsShownFirstAndTheExactPlanReplacesIt() throws Exception {
         assertThat(vm.open(TANK)).isTrue();
-        Plan preview = vm.previewed().get(10, TimeUnit.SECONDS);
+        Plan preview = vm.plans().previewed().get(10, TimeUnit.SECONDS);
         assertThat(PreviewPlanner.isPreview(preview)).isTrue();
-        assertThat(vm.planProperty().get()).isSameAs(preview);
-        assertThat(vm.previewShownProperty().get()).isTrue();
-        assertThat(vm.busyProperty().get()).isTrue();
-        assertThat(vm.planned()).isNotDone();
+        assertThat(vm.tables().planProperty().get()).isSameAs(preview);
+        assertThat(vm.tables().previewShownProperty().get()).isTrue();
+        assertThat(vm.plans().busyProperty().get()).isTrue();
+        assertThat(vm.plans().planned()).isNotDone();
 
         service.exactPermits.release();
-        Plan exact = vm.planned().get(10, TimeUnit.SECONDS);
+        Plan exact = vm.plans().planned().get(10, TimeUnit.SECONDS);
         assertThat(PreviewPlanner.isPreview(exact)).isFalse();
-        assertThat(vm.planProperty().get()).isSameAs(exact);
-        assertThat(vm.previewShownProperty().get()).isFalse();
-        assertThat(vm.busyProperty().get()).isFalse();
+        assertThat(vm.tables().planProperty().get()).isSameAs(exact);
+        assertThat(vm.tables().previewShownProperty().get()).isFalse();
+        assertThat(vm.plans().busyProperty().get()).isFalse();
         assertThat(applied).containsExactly(preview, exact);
         // the preview has no budgets: the table only ever shows exact budgets
-        assertThat(vm.budgets()).isEqualTo(exact.budgets());
+        assertThat(vm.tables().budgets()).isEqualTo(exact.budgets());
     }
 
     @Test
     void keepingADesignDuringAPreviewKeepsItsExactPlan() throws Exception {
         assertThat(vm.open(TANK)).isTrue();
-        Plan preview = vm.previewed().get(10, TimeUnit.SECONDS);
+        Plan preview = vm.plans().previewed().get(10, TimeUnit.SECONDS);
         vm.keepForComparison();
-        assertThat(vm.baselineProperty().get()).isNull();
+        assertThat(vm.tables().baselineProperty().get()).isNull();
         service.exactPermits.release();
-        Plan exact = vm.planned().get(10, TimeUnit.SECONDS);
+        Plan exact = vm.plans().planned().get(10, TimeUnit.SECONDS);
         // the keeping runs as the exact plan's future completes, beside this thread's wake-up: wait for it
         waitFor(() -> vm.messageProperty().get().startsWith("kept"));
-        assertThat(vm.baselineProperty().get()).isSameAs(exact).isNotSameAs(preview);
+        assertThat(vm.tables().baselineProperty().get()).isSameAs(exact).isNotSameAs(preview);
         assertThat(vm.messageProperty().get()).isEqualTo("kept the current design for comparison");
     }
 
     @Test
     void aDesignEditedBeforeItsExactPlanIsNotKept() throws Exception {
         assertThat(vm.open(TANK)).isTrue();
-        vm.previewed().get(10, TimeUnit.SECONDS);
+        vm.plans().previewed().get(10, TimeUnit.SECONDS);
         vm.keepForComparison();
-        assertThat(vm.moveNode("s01", new Vec3(60, 60, 60))).isTrue();
-        vm.previewed().get(10, TimeUnit.SECONDS);
+        assertThat(vm.editor().moveNode("s01", new Vec3(60, 60, 60))).isTrue();
+        vm.plans().previewed().get(10, TimeUnit.SECONDS);
         service.exactPermits.release(2);
-        Plan exact = vm.planned().get(10, TimeUnit.SECONDS);
+        Plan exact = vm.plans().planned().get(10, TimeUnit.SECONDS);
         assertThat(exact.scenario().nodesById().get("s01").positionUm()).isEqualTo(new Vec3(60, 60, 60));
         waitFor(() -> vm.messageProperty().get().contains("nothing kept"));
-        assertThat(vm.baselineProperty().get()).isNull();
+        assertThat(vm.tables().baselineProperty().get()).isNull();
     }
 
     /** Polls (10 s at most) for a state another thread sets; fails when it never comes. */
-    static void waitFor(java.util.function.BooleanSupplier condition) throws InterruptedException {
+    static void waitFor(BooleanSupplier condition) throws InterruptedException {
         long end = System.nanoTime() + TimeUnit.SECONDS.toNanos(10);
         while (!condition.getAsBoolean()) {
             assertThat(System.nanoTime()).as("waited 10 s for the view model").isLessThan(end);
@@ -139,23 +140,23 @@ class PlannerViewModelPreviewTest {
     void aNewerEditSupersedesBothThePreviewAndTheExactPlanOfTheOlderLayout() throws Exception {
         assertThat(vm.open(TANK)).isTrue();
         service.exactPermits.release();
-        vm.planned().get(10, TimeUnit.SECONDS);
+        vm.plans().planned().get(10, TimeUnit.SECONDS);
         applied.clear();
 
-        assertThat(vm.moveNode("s01", new Vec3(60, 60, 60))).isTrue();
-        Plan firstPreview = vm.previewed().get(10, TimeUnit.SECONDS);
+        assertThat(vm.editor().moveNode("s01", new Vec3(60, 60, 60))).isTrue();
+        Plan firstPreview = vm.plans().previewed().get(10, TimeUnit.SECONDS);
         awaitCall("exact 60.0");
         // the exact plan of the first move is running (blocked) when the second move comes
-        assertThat(vm.moveNode("s01", new Vec3(70, 60, 60))).isTrue();
-        Plan secondPreview = vm.previewed().get(10, TimeUnit.SECONDS);
-        assertThat(vm.previewShownProperty().get()).isTrue();
+        assertThat(vm.editor().moveNode("s01", new Vec3(70, 60, 60))).isTrue();
+        Plan secondPreview = vm.plans().previewed().get(10, TimeUnit.SECONDS);
+        assertThat(vm.tables().previewShownProperty().get()).isTrue();
         service.exactPermits.release();
-        Plan exact = vm.planned().get(10, TimeUnit.SECONDS);
+        Plan exact = vm.plans().planned().get(10, TimeUnit.SECONDS);
 
         assertThat(exact.scenario().nodesById().get("s01").positionUm()).isEqualTo(new Vec3(70, 60, 60));
         // the first move's exact plan was interrupted and never applied
         assertThat(applied).containsExactly(firstPreview, secondPreview, exact);
-        assertThat(vm.previewShownProperty().get()).isFalse();
+        assertThat(vm.tables().previewShownProperty().get()).isFalse();
         assertThat(service.exactPermits.availablePermits()).isZero();
     }
 
@@ -183,13 +184,13 @@ class PlannerViewModelPreviewTest {
         PlannerViewModel late = new PlannerViewModel(slowPreview, Runnable::run, exactThread, 0, previewThread, 0,
                 new RecentFiles(null));
         assertThat(late.open(TANK)).isTrue();
-        Plan exact = late.planned().get(10, TimeUnit.SECONDS);
+        Plan exact = late.plans().planned().get(10, TimeUnit.SECONDS);
         previewGate.countDown();
         // let the preview thread finish its (dropped) result
         previewThread.submit(() -> { }).get(10, TimeUnit.SECONDS);
-        assertThat(late.planProperty().get()).isSameAs(exact);
-        assertThat(late.previewShownProperty().get()).isFalse();
-        assertThat(late.previewed()).isNotDone();
+        assertThat(late.tables().planProperty().get()).isSameAs(exact);
+        assertThat(late.tables().previewShownProperty().get()).isFalse();
+        assertThat(late.plans().previewed()).isNotDone();
     }
 
     @Test
@@ -197,11 +198,11 @@ class PlannerViewModelPreviewTest {
         PlannerViewModel real = new PlannerViewModel(PlanService.core(), Runnable::run, exactThread, 0, previewThread,
                 0, new RecentFiles(null));
         List<Plan> seen = new CopyOnWriteArrayList<>();
-        real.planProperty().addListener((o, a, b) -> seen.add(b));
+        real.tables().planProperty().addListener((o, a, b) -> seen.add(b));
         assertThat(real.open(TANK)).isTrue();
-        Plan exact = real.planned().get(50, TimeUnit.SECONDS);
+        Plan exact = real.plans().planned().get(50, TimeUnit.SECONDS);
         assertThat(PreviewPlanner.isPreview(exact)).isFalse();
-        assertThat(real.planProperty().get()).isSameAs(exact);
+        assertThat(real.tables().planProperty().get()).isSameAs(exact);
         assertThat(seen).last().isSameAs(exact);
         // the preview (milliseconds) normally wins the race against the exact plan (seconds); if the
         // machine starved it, it was dropped, never shown after the exact plan

@@ -5,7 +5,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import dev.nanoplan.count.CountModelKind;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.plan.Plan;
-import java.util.List;
 import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
@@ -14,6 +13,8 @@ import dev.nanoplan.scenario.ScenarioReader;
 import dev.nanoplan.scenario.Species;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.AfterEach;
@@ -45,7 +46,7 @@ class PlannerViewModelTest {
     }
 
     Plan awaitPlan() throws Exception {
-        return vm.planned().get(10, TimeUnit.SECONDS);
+        return vm.plans().planned().get(10, TimeUnit.SECONDS);
     }
 
     Scenario opened() throws Exception {
@@ -60,9 +61,9 @@ class PlannerViewModelTest {
         // the file read by planner-core's own reader is what the view model holds and plans
         assertThat(s).isEqualTo(ScenarioReader.strict().read(TANK));
         assertThat(fake.calls).containsExactly(s);
-        assertThat(vm.links()).hasSize(s.demands().size());
-        assertThat(vm.busyProperty().get()).isFalse();
-        assertThat(vm.dirtyProperty().get()).isFalse();
+        assertThat(vm.tables().links()).hasSize(s.demands().size());
+        assertThat(vm.plans().busyProperty().get()).isFalse();
+        assertThat(vm.document().dirtyProperty().get()).isFalse();
     }
 
     @Test
@@ -70,19 +71,19 @@ class PlannerViewModelTest {
         opened();
         // the fake plans one direct route per demand from its own source: no emitter carries two demands, so
         // max-min fair sharing (Bertsekas and Gallager, Data Networks, 1992, §6.5.2) leaves every route its rate
-        for (RouteReport r : vm.routes()) {
-            var sh = vm.sharedRate(r);
+        for (RouteReport r : vm.tables().routes()) {
+            var sh = vm.tables().sharedRate(r);
             assertThat(sh.rateBitsPerS()).isEqualTo(r.rateBitsPerS());
             assertThat(sh.limitedAt()).isNull();
         }
-        assertThat(vm.sharedRate(new RouteReport("x", "y", List.of(), 0, null, null, 0, 0, 0, null, null, ""))).isNull();
+        assertThat(vm.tables().sharedRate(new RouteReport("x", "y", List.of(), 0, null, null, 0, 0, 0, null, null, ""))).isNull();
     }
 
     @Test
     void movingANodeKeepsUnappliedTypingInTheSettingsEditor() throws Exception {
         opened();
         vm.settings().temperatureKProperty().set("300");
-        assertThat(vm.moveNode("s01", new Vec3(60, 60, 60))).isTrue();
+        assertThat(vm.editor().moveNode("s01", new Vec3(60, 60, 60))).isTrue();
         awaitPlan();
         // a move does not touch medium, signalling or species, so the editor is not reloaded
         assertThat(vm.settings().temperatureKProperty().get()).isEqualTo("300");
@@ -98,29 +99,29 @@ class PlannerViewModelTest {
     @Test
     void movingANodeReplansAndChangesItsLinks() throws Exception {
         opened();
-        double before = vm.findLink("s01", "gw").capacityBits();
-        assertThat(vm.moveNode("s01", new Vec3(60, 60, 60))).isTrue();
+        double before = vm.tables().findLink("s01", "gw").capacityBits();
+        assertThat(vm.editor().moveNode("s01", new Vec3(60, 60, 60))).isTrue();
         Plan p = awaitPlan();
         Node moved = p.scenario().nodesById().get("s01");
         assertThat(moved.positionUm()).isEqualTo(new Vec3(60, 60, 60));
         assertThat(fake.calls).hasSize(2);
-        assertThat(vm.planProperty().get()).isSameAs(p);
+        assertThat(vm.tables().planProperty().get()).isSameAs(p);
         // farther from the gateway, the fake's capacity label 1/(1 + d/100) must drop
-        assertThat(vm.findLink("s01", "gw").capacityBits()).isLessThan(before);
-        assertThat(vm.dirtyProperty().get()).isTrue();
+        assertThat(vm.tables().findLink("s01", "gw").capacityBits()).isLessThan(before);
+        assertThat(vm.document().dirtyProperty().get()).isTrue();
     }
 
     @Test
     void inspectorEditChangesRoleRadiusAndMolecules() throws Exception {
         opened();
-        vm.selectedNodeIdProperty().set("s03");
+        vm.editor().selectedNodeIdProperty().set("s03");
         // s03 sits at x = 150 µm in scenarios/culture-tank.json (beside relay-w)
-        assertThat(vm.inspector().xUmProperty().get()).isEqualTo("150");
-        vm.inspector().radiusUmProperty().set("3.5");
-        vm.inspector().moleculesPerSymbolProperty().set("12345");
-        assertThat(vm.applyInspector()).isTrue();
+        assertThat(vm.editor().inspector().xUmProperty().get()).isEqualTo("150");
+        vm.editor().inspector().radiusUmProperty().set("3.5");
+        vm.editor().inspector().moleculesPerSymbolProperty().set("12345");
+        assertThat(vm.editor().applyInspector()).isTrue();
         awaitPlan();
-        Node n = vm.nodeById("s03");
+        Node n = vm.editor().nodeById("s03");
         assertThat(n.radiusUm()).isEqualTo(3.5);
         assertThat(n.moleculesPerSymbol()).isEqualTo(12345);
         assertThat(fake.calls.get(fake.calls.size() - 1).nodesById().get("s03").radiusUm()).isEqualTo(3.5);
@@ -129,13 +130,13 @@ class PlannerViewModelTest {
     @Test
     void undoAndRedoRoundTrip() throws Exception {
         Scenario original = opened();
-        assertThat(vm.moveNode("s01", new Vec3(150, 240, 85))).isTrue();
+        assertThat(vm.editor().moveNode("s01", new Vec3(150, 240, 85))).isTrue();
         Scenario afterMove = vm.scenarioProperty().get();
-        vm.selectedNodeIdProperty().set("s02");
-        vm.inspector().radiusUmProperty().set("2.5");
-        assertThat(vm.applyInspector()).isTrue();
+        vm.editor().selectedNodeIdProperty().set("s02");
+        vm.editor().inspector().radiusUmProperty().set("2.5");
+        assertThat(vm.editor().applyInspector()).isTrue();
         Scenario afterRadius = vm.scenarioProperty().get();
-        assertThat(vm.deleteNode("s05")).isTrue();
+        assertThat(vm.editor().deleteNode("s05")).isTrue();
         Scenario afterDelete = vm.scenarioProperty().get();
         assertThat(afterDelete.demands()).noneMatch(d -> d.from().equals("s05"));
 
@@ -159,24 +160,24 @@ class PlannerViewModelTest {
     @Test
     void aNewEditClearsRedo() throws Exception {
         opened();
-        vm.moveNode("s01", new Vec3(150, 240, 85));
+        vm.editor().moveNode("s01", new Vec3(150, 240, 85));
         vm.undo();
-        assertThat(vm.undoStack().canRedoProperty().get()).isTrue();
-        vm.moveNode("s02", new Vec3(90, 240, 115));
-        assertThat(vm.undoStack().canRedoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canRedoProperty().get()).isTrue();
+        vm.editor().moveNode("s02", new Vec3(90, 240, 115));
+        assertThat(vm.document().undoStack().canRedoProperty().get()).isFalse();
     }
 
     @Test
     void negativeRadiusIsRefusedAndChangesNothing() throws Exception {
         Scenario s = opened();
         int calls = fake.calls.size();
-        vm.selectedNodeIdProperty().set("s01");
-        vm.inspector().radiusUmProperty().set("-2");
-        assertThat(vm.applyInspector()).isFalse();
+        vm.editor().selectedNodeIdProperty().set("s01");
+        vm.editor().inspector().radiusUmProperty().set("-2");
+        assertThat(vm.editor().applyInspector()).isFalse();
         assertThat(vm.messageProperty().get()).contains("refused").contains("radius");
         assertThat(vm.scenarioProperty().get()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
-        assertThat(vm.dirtyProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().dirtyProperty().get()).isFalse();
         assertThat(fake.calls).hasSize(calls);
     }
 
@@ -184,20 +185,20 @@ class PlannerViewModelTest {
     void nodeOutsideTheVolumeIsRefusedAndChangesNothing() throws Exception {
         Scenario s = opened();
         // the tank's box is [0,400]×[0,400]×[0,200] µm (scenarios/culture-tank.json)
-        assertThat(vm.moveNode("s01", new Vec3(150, 240, 250))).isFalse();
+        assertThat(vm.editor().moveNode("s01", new Vec3(150, 240, 250))).isFalse();
         assertThat(vm.messageProperty().get()).contains("refused").contains("s01");
         assertThat(vm.scenarioProperty().get()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     @Test
     void overlappingAndMalformedEditsAreRefused() throws Exception {
         Scenario s = opened();
         // gw sits at (200, 200, 100) with radius 10 µm: a node centred there overlaps it
-        assertThat(vm.moveNode("s01", new Vec3(200, 200, 100))).isFalse();
-        vm.selectedNodeIdProperty().set("s01");
-        vm.inspector().xUmProperty().set("abc");
-        assertThat(vm.applyInspector()).isFalse();
+        assertThat(vm.editor().moveNode("s01", new Vec3(200, 200, 100))).isFalse();
+        vm.editor().selectedNodeIdProperty().set("s01");
+        vm.editor().inspector().xUmProperty().set("abc");
+        assertThat(vm.editor().applyInspector()).isFalse();
         assertThat(vm.messageProperty().get()).contains("x");
         assertThat(vm.scenarioProperty().get()).isSameAs(s);
     }
@@ -205,16 +206,16 @@ class PlannerViewModelTest {
     @Test
     void addDuplicateAndDeleteKeepTheLayoutValid() throws Exception {
         Scenario s = opened();
-        assertThat(vm.addNode(Role.RECEIVER)).isTrue();
-        String added = vm.selectedNodeIdProperty().get();
-        assertThat(vm.nodeById(added).role()).isEqualTo(Role.RECEIVER);
-        assertThat(vm.duplicateNode("s01")).isTrue();
-        String copy = vm.selectedNodeIdProperty().get();
+        assertThat(vm.editor().addNode(Role.RECEIVER)).isTrue();
+        String added = vm.editor().selectedNodeIdProperty().get();
+        assertThat(vm.editor().nodeById(added).role()).isEqualTo(Role.RECEIVER);
+        assertThat(vm.editor().duplicateNode("s01")).isTrue();
+        String copy = vm.editor().selectedNodeIdProperty().get();
         assertThat(copy).isNotEqualTo("s01");
         assertThat(vm.scenarioProperty().get().nodes()).hasSize(s.nodes().size() + 2);
-        assertThat(vm.deleteNode(copy)).isTrue();
-        assertThat(vm.nodeById(copy)).isNull();
-        assertThat(vm.selectedNodeIdProperty().get()).isNull();
+        assertThat(vm.editor().deleteNode(copy)).isTrue();
+        assertThat(vm.editor().nodeById(copy)).isNull();
+        assertThat(vm.editor().selectedNodeIdProperty().get()).isNull();
         // every intermediate layout passed planner-core's validation: re-check the last one
         Scenario last = vm.scenarioProperty().get();
         assertThat(new Scenario(last.name(), last.volume(), last.medium(), last.species(), last.signalling(),
@@ -228,7 +229,7 @@ class PlannerViewModelTest {
         vm = new PlannerViewModel(fake, Runnable::run, bg, 300, new RecentFiles(null));
         vm.open(TANK);
         for (int i = 0; i < 5; i++) {
-            vm.moveNode("s01", new Vec3(150 + i, 230, 85));
+            vm.editor().moveNode("s01", new Vec3(150 + i, 230, 85));
         }
         Plan p = awaitPlan();
         assertThat(p.scenario().nodesById().get("s01").positionUm()).isEqualTo(new Vec3(154, 230, 85));
@@ -244,10 +245,10 @@ class PlannerViewModelTest {
         vm.open(TANK);
         try {
             awaitPlan();
-        } catch (java.util.concurrent.ExecutionException expected) {
+        } catch (ExecutionException expected) {
             assertThat(expected.getCause()).hasMessage("boom");
         }
-        assertThat(vm.busyProperty().get()).isFalse();
+        assertThat(vm.plans().busyProperty().get()).isFalse();
         assertThat(vm.messageProperty().get()).contains("boom");
     }
 
@@ -256,7 +257,7 @@ class PlannerViewModelTest {
         opened();
         Path out = dir.resolve("report.html");
         assertThat(vm.exportHtml(out)).isTrue();
-        String html = java.nio.file.Files.readString(out);
+        String html = Files.readString(out);
         assertThat(html).contains("<svg").contains("not validated for clinical use");
         assertThat(vm.messageProperty().get()).contains("report.html");
     }
@@ -264,12 +265,12 @@ class PlannerViewModelTest {
     @Test
     void saveAsWritesAFileThatReadsBackEqual(@TempDir Path dir) throws Exception {
         opened();
-        vm.moveNode("s01", new Vec3(150, 240, 85));
+        vm.editor().moveNode("s01", new Vec3(150, 240, 85));
         Path out = dir.resolve("edited.json");
         assertThat(vm.saveAs(out)).isTrue();
-        assertThat(vm.dirtyProperty().get()).isFalse();
+        assertThat(vm.document().dirtyProperty().get()).isFalse();
         assertThat(ScenarioReader.strict().read(out)).isEqualTo(vm.scenarioProperty().get());
-        assertThat(vm.recentFiles()).first().isEqualTo(out.toAbsolutePath().normalize());
+        assertThat(vm.document().recentFiles()).first().isEqualTo(out.toAbsolutePath().normalize());
         assertThat(Files.list(dir)).hasSize(1);
     }
 
@@ -287,12 +288,12 @@ class PlannerViewModelTest {
     void comparisonShowsKeptAndCurrentNumbers() throws Exception {
         opened();
         vm.keepForComparison();
-        double kept = vm.findLink("s01", "gw").capacityBits();
-        vm.moveNode("s01", new Vec3(60, 60, 60));
+        double kept = vm.tables().findLink("s01", "gw").capacityBits();
+        vm.editor().moveNode("s01", new Vec3(60, 60, 60));
         awaitPlan();
-        DemandComparison row = vm.comparison().stream().filter(r -> r.from().equals("s01")).findFirst().orElseThrow();
+        DemandComparison row = vm.tables().comparison().stream().filter(r -> r.from().equals("s01")).findFirst().orElseThrow();
         assertThat(row.baselineCapacity()).isEqualTo(kept);
-        assertThat(row.capacity()).isEqualTo(vm.findLink("s01", "gw").capacityBits());
+        assertThat(row.capacity()).isEqualTo(vm.tables().findLink("s01", "gw").capacityBits());
         // s01 releases 4000 molecules for a "1" at prior_one 0.05 (culture-tank.json): 200 per symbol on average
         assertThat(row.molPerBit()).isCloseTo(4000 * 0.05 / row.capacity(), org.assertj.core.data.Offset.offset(1e-9));
     }
@@ -310,7 +311,7 @@ class PlannerViewModelTest {
         assertThat(p.scenario().signalling().symbolTimeS()).isEqualTo(0.25);
         assertThat(fake.calls.get(fake.calls.size() - 1).signalling().symbolTimeS()).isEqualTo(0.25);
         assertThat(p.scenario().nodes()).isEqualTo(original.nodes());
-        assertThat(vm.dirtyProperty().get()).isTrue();
+        assertThat(vm.document().dirtyProperty().get()).isTrue();
 
         assertThat(vm.undo()).isTrue();
         assertThat(vm.scenarioProperty().get()).isEqualTo(original);
@@ -329,8 +330,8 @@ class PlannerViewModelTest {
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("refused").contains("species A").contains("diffusion");
         assertThat(vm.scenarioProperty().get()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
-        assertThat(vm.dirtyProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().dirtyProperty().get()).isFalse();
         assertThat(fake.calls).hasSize(calls);
     }
 
@@ -342,7 +343,7 @@ class PlannerViewModelTest {
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("refused").contains("prior");
         assertThat(vm.scenarioProperty().get()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
         assertThat(fake.calls).hasSize(calls);
     }
 
@@ -387,7 +388,7 @@ class PlannerViewModelTest {
         Scenario s = opened();
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.scenarioProperty().get()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     @Test

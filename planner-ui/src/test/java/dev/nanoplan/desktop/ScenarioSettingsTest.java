@@ -10,6 +10,7 @@ import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioProblem;
 import dev.nanoplan.scenario.ScenarioReader;
 import dev.nanoplan.scenario.ScenarioValidator;
+import dev.nanoplan.scenario.Schedule;
 import dev.nanoplan.scenario.Species;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -59,7 +60,7 @@ class ScenarioSettingsTest {
     }
 
     Plan awaitPlan() throws Exception {
-        return vm.planned().get(10, TimeUnit.SECONDS);
+        return vm.plans().planned().get(10, TimeUnit.SECONDS);
     }
 
     Scenario opened(Path file) throws Exception {
@@ -77,7 +78,7 @@ class ScenarioSettingsTest {
     @Test
     void addedSpeciesIsOfferedAndJoinsTheLayoutWhenANodeUsesIt() throws Exception {
         Scenario original = opened(TANK);
-        ScenarioSettings.SpeciesRow row = vm.settings().addSpecies();
+        SpeciesRow row = vm.settings().addSpecies();
         // culture-tank.json declares A and B, so the first free letter is offered
         assertThat(row.name()).isEqualTo("C");
         row.diffusionUm2PerSProperty().set("120");
@@ -85,29 +86,29 @@ class ScenarioSettingsTest {
         assertThat(vm.applySettings()).isTrue();
         // no node uses C yet: a valid layout cannot declare it, so it waits beside the layout
         assertThat(current()).isEqualTo(original);
-        assertThat(vm.unusedSpecies()).containsExactly(Species.ofDiffusion("C", 120, 4));
+        assertThat(vm.document().unusedSpecies()).containsExactly(Species.ofDiffusion("C", 120, 4));
         assertThat(vm.speciesNames()).containsExactly("A", "B", "C");
         assertThat(vm.settings().species("C").usageProperty().get()).isEqualTo("not used yet");
-        assertThat(vm.undoStack().canUndoProperty().get()).isTrue();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isTrue();
 
         int calls = fake.calls.size();
-        vm.selectedNodeIdProperty().set("s11");
-        vm.inspector().speciesProperty().set("C");
-        assertThat(vm.applyInspector()).isTrue();
+        vm.editor().selectedNodeIdProperty().set("s11");
+        vm.editor().inspector().speciesProperty().set("C");
+        assertThat(vm.editor().applyInspector()).isTrue();
         Plan p = awaitPlan();
         assertThat(fake.calls).hasSize(calls + 1);
         assertThat(p.scenario().speciesByName()).containsKeys("A", "B", "C");
         assertThat(p.scenario().speciesByName().get("C").diffusionUm2PerS()).isEqualTo(120.0);
         assertThat(p.scenario().nodesById().get("s11").species()).isEqualTo("C");
-        assertThat(vm.unusedSpecies()).isEmpty();
+        assertThat(vm.document().unusedSpecies()).isEmpty();
 
         // undo: C is unused again, then gone
         assertThat(vm.undo()).isTrue();
         assertThat(current()).isEqualTo(original);
-        assertThat(vm.unusedSpecies()).extracting(Species::name).containsExactly("C");
+        assertThat(vm.document().unusedSpecies()).extracting(Species::name).containsExactly("C");
         assertThat(vm.undo()).isTrue();
-        assertThat(vm.unusedSpecies()).isEmpty();
-        assertThat(vm.settings().species()).extracting(ScenarioSettings.SpeciesRow::name).containsExactly("A", "B");
+        assertThat(vm.document().unusedSpecies()).isEmpty();
+        assertThat(vm.settings().species()).extracting(SpeciesRow::name).containsExactly("A", "B");
         assertThat(vm.redo()).isTrue();
         assertThat(vm.redo()).isTrue();
         assertThat(awaitPlan().scenario().nodesById().get("s11").species()).isEqualTo("C");
@@ -116,23 +117,23 @@ class ScenarioSettingsTest {
     @Test
     void aSpeciesNoNodeUsesAnyMoreStaysDeclaredAsUnused() throws Exception {
         Scenario original = opened(Path.of("..", "scenarios", "relay-chain-direct.json"));
-        ScenarioSettings.SpeciesRow row = vm.settings().addSpecies();
+        SpeciesRow row = vm.settings().addSpecies();
         row.nameProperty().set("X");
         row.diffusionUm2PerSProperty().set("300");
         assertThat(vm.applySettings()).isTrue();
         for (String id : List.of("src", "dst")) {
-            vm.selectedNodeIdProperty().set(id);
-            vm.inspector().speciesProperty().set("X");
-            assertThat(vm.applyInspector()).as(vm.messageProperty().get()).isTrue();
+            vm.editor().selectedNodeIdProperty().set(id);
+            vm.editor().inspector().speciesProperty().set("X");
+            assertThat(vm.editor().applyInspector()).as(vm.messageProperty().get()).isTrue();
         }
         // relay-chain-direct.json has only src and dst, both on A before
         assertThat(current().speciesByName()).containsOnlyKeys("X");
-        assertThat(vm.unusedSpecies()).containsExactly(original.species().get(0));
+        assertThat(vm.document().unusedSpecies()).containsExactly(original.species().get(0));
         assertThat(vm.settings().species("A").usageProperty().get()).isEqualTo("not used yet");
         // now A can be removed
         assertThat(vm.removeSpecies(vm.settings().species("A"))).isTrue();
         assertThat(vm.applySettings()).isTrue();
-        assertThat(vm.unusedSpecies()).isEmpty();
+        assertThat(vm.document().unusedSpecies()).isEmpty();
         assertThat(vm.speciesNames()).containsExactly("X");
     }
 
@@ -154,11 +155,11 @@ class ScenarioSettingsTest {
         opened(TANK);
         vm.settings().temperatureKProperty().set(Double.toString(temperatureK));
         vm.settings().viscosityMPaSProperty().set(Double.toString(viscosityMPaS));
-        ScenarioSettings.SpeciesRow row = vm.settings().addSpecies();
+        SpeciesRow row = vm.settings().addSpecies();
         row.nameProperty().set("protein");
         row.hydrodynamicRadiusNmProperty().set(Double.toString(radiusNm));
         assertThat(vm.applySettings()).as(vm.messageProperty().get()).isTrue();
-        Species sp = vm.unusedSpecies().get(0);
+        Species sp = vm.document().unusedSpecies().get(0);
         assertThat(sp.hydrodynamicRadiusNm()).hasValue(radiusNm);
         assertThat(sp.isStable()).isTrue();
         // A. Einstein, Ann. Phys. 17 (1905) 549 / Stokes drag: D = k_B T / (6 π η r); k_B = 1.380649e-23 J/K
@@ -170,7 +171,7 @@ class ScenarioSettingsTest {
     @Test
     void aRowGivingBothDiffusionAndRadiusOrNeitherIsRefused() throws Exception {
         Scenario s = opened(TANK);
-        ScenarioSettings.SpeciesRow row = vm.settings().addSpecies();
+        SpeciesRow row = vm.settings().addSpecies();
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("new species row 3").contains("diffusion")
                 .contains("hydrodynamic radius");
@@ -179,8 +180,8 @@ class ScenarioSettingsTest {
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("not both");
         assertThat(current()).isSameAs(s);
-        assertThat(vm.unusedSpecies()).isEmpty();
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().unusedSpecies()).isEmpty();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     // ---------------------------------------------------------------- names
@@ -203,13 +204,13 @@ class ScenarioSettingsTest {
         assertThat(vm.messageProperty().get()).contains("species B").contains(coreMessage);
 
         vm.settings().load(s);
-        ScenarioSettings.SpeciesRow added = vm.settings().addSpecies();
+        SpeciesRow added = vm.settings().addSpecies();
         added.nameProperty().set("B");
         added.diffusionUm2PerSProperty().set("10");
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("species[2].name").contains("duplicate species name 'B'");
         assertThat(current()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     static String catchMessage(Runnable r) {
@@ -249,8 +250,8 @@ class ScenarioSettingsTest {
         // one undo step takes back the rename and the symbol time together
         assertThat(vm.undo()).isTrue();
         assertThat(current()).isEqualTo(original);
-        assertThat(vm.settings().species()).extracting(ScenarioSettings.SpeciesRow::name).containsExactly("A", "B");
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.settings().species()).extracting(SpeciesRow::name).containsExactly("A", "B");
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     @Test
@@ -277,7 +278,7 @@ class ScenarioSettingsTest {
     @Test
     void removingAUsedSpeciesIsRefusedNamingItsNodes() throws Exception {
         Scenario s = opened(TANK);
-        ScenarioSettings.SpeciesRow b = vm.settings().species("B");
+        SpeciesRow b = vm.settings().species("B");
         assertThat(vm.removeSpecies(b)).isFalse();
         String msg = vm.messageProperty().get();
         // culture-tank.json: gw absorbs B, the relays emit it, s11..s14 release it
@@ -285,21 +286,21 @@ class ScenarioSettingsTest {
         assertThat(vm.settings().species()).contains(b);
         assertThat(vm.applySettings()).isFalse();
         assertThat(current()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     @Test
     void removingAnUnusedSpeciesIsOneUndoStep() throws Exception {
         Scenario s = opened(TANK);
-        ScenarioSettings.SpeciesRow c = vm.settings().addSpecies();
+        SpeciesRow c = vm.settings().addSpecies();
         c.diffusionUm2PerSProperty().set("90");
         assertThat(vm.applySettings()).isTrue();
         assertThat(vm.removeSpecies(vm.settings().species("C"))).isTrue();
         assertThat(vm.applySettings()).isTrue();
-        assertThat(vm.unusedSpecies()).isEmpty();
+        assertThat(vm.document().unusedSpecies()).isEmpty();
         assertThat(current()).isEqualTo(s);
         assertThat(vm.undo()).isTrue();
-        assertThat(vm.unusedSpecies()).extracting(Species::name).containsExactly("C");
+        assertThat(vm.document().unusedSpecies()).extracting(Species::name).containsExactly("C");
     }
 
     // ---------------------------------------------------------------- flow and schedule
@@ -369,30 +370,30 @@ class ScenarioSettingsTest {
         assertThat(vm.applySettings()).isFalse();
         assertThat(vm.messageProperty().get()).contains("flow velocity y").contains("finite");
         assertThat(current()).isSameAs(s);
-        assertThat(vm.undoStack().canUndoProperty().get()).isFalse();
+        assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
 
     @Test
     void scheduleIsAChoiceThatReplansSavesAndUndoes(@TempDir Path dir) throws Exception {
         Scenario tank = opened(TANK);
         // culture-tank.json: "schedule": "all-active"
-        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(dev.nanoplan.scenario.Schedule.ALL_ACTIVE);
+        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(Schedule.ALL_ACTIVE);
         assertThat(ScenarioSettings.SCHEDULE_HELP).contains("every emitter").contains("every symbol slot")
                 .contains("round-robin").contains("take turns");
 
-        vm.settings().scheduleProperty().set(dev.nanoplan.scenario.Schedule.ROUND_ROBIN);
+        vm.settings().scheduleProperty().set(Schedule.ROUND_ROBIN);
         assertThat(vm.applySettings()).isTrue();
         // the layout handed to the planner has the new schedule, nothing else changed
         Plan p = awaitPlan();
-        assertThat(p.scenario().signalling().schedule()).isEqualTo(dev.nanoplan.scenario.Schedule.ROUND_ROBIN);
+        assertThat(p.scenario().signalling().schedule()).isEqualTo(Schedule.ROUND_ROBIN);
         assertThat(p.scenario().nodes()).isEqualTo(tank.nodes());
 
         Path file = dir.resolve("rr.json");
         assertThat(vm.saveAs(file)).isTrue();
         assertThat(ScenarioReader.strict().read(file).signalling().schedule())
-                .isEqualTo(dev.nanoplan.scenario.Schedule.ROUND_ROBIN);
+                .isEqualTo(Schedule.ROUND_ROBIN);
         assertThat(vm.undo()).isTrue();
         assertThat(current().signalling()).isEqualTo(tank.signalling());
-        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(dev.nanoplan.scenario.Schedule.ALL_ACTIVE);
+        assertThat(vm.settings().scheduleProperty().get()).isEqualTo(Schedule.ALL_ACTIVE);
     }
 }

@@ -27,15 +27,19 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.attribute.FileTime;
 import java.util.List;
-import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.BlockingQueue;
 import java.util.concurrent.CopyOnWriteArrayList;
+import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.Executor;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
+import java.util.concurrent.LinkedBlockingQueue;
+import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.Function;
 import javafx.beans.property.StringProperty;
+import javafx.collections.ListChangeListener;
 import org.apache.commons.numbers.gamma.Erfc;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
@@ -56,7 +60,7 @@ class SimulationViewModelTest {
     static final double D_UM2_PER_S = 100;
     static final double T_S = 1;
 
-    java.util.concurrent.ScheduledExecutorService planning;
+    ScheduledExecutorService planning;
     ExecutorService bgThread;
     AtomicInteger started;
     PlannerViewModel planner;
@@ -155,13 +159,13 @@ class SimulationViewModelTest {
     void stateChangesArriveOnTheUiExecutorAtMostOneProgressUpdateQueuedAtATime() throws Exception {
         // a slow "UI thread": this test thread drains a queue every 200 ms, as a busy FX thread would;
         // blocks finish every few tens of ms, so without coalescing several updates would pile up
-        java.util.concurrent.BlockingQueue<Runnable> ui = new java.util.concurrent.LinkedBlockingQueue<>();
+        BlockingQueue<Runnable> ui = new LinkedBlockingQueue<>();
         SimulationViewModel queued = new SimulationViewModel(planner, ui::add, bgThread::execute, 1);
         planner.load(pair(), null);
         Thread uiThread = Thread.currentThread();
         List<Thread> changedOn = new CopyOnWriteArrayList<>();
         queued.progressProperty().addListener((o, a, b) -> changedOn.add(Thread.currentThread()));
-        queued.rows().addListener((javafx.collections.ListChangeListener<SimulationRow>) c ->
+        queued.rows().addListener((ListChangeListener<SimulationRow>) c ->
                 changedOn.add(Thread.currentThread()));
         // 1e5 molecules = 25 blocks of 4096, each reporting progress from the simulator's worker
         queued.moleculesPerEmitterProperty().set("100000");
@@ -238,7 +242,7 @@ class SimulationViewModelTest {
         assertThat(runToEnd()).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
         assertThat(sim.staleProperty().get()).isFalse();
 
-        assertThat(planner.moveNode("rx2", new Vec3(0, 20, 0))).isTrue();
+        assertThat(planner.editor().moveNode("rx2", new Vec3(0, 20, 0))).isTrue();
         assertThat(sim.staleProperty().get()).isTrue();
         assertThat(sim.rows()).as("stale rows stay visible, marked").hasSize(2);
 
@@ -400,7 +404,7 @@ class SimulationViewModelTest {
 
         // the seed back but a node moved: a miss too
         vm.seedProperty().set("11");
-        assertThat(planner.moveNode("rx2", new Vec3(0, 14, 0))).isTrue();
+        assertThat(planner.editor().moveNode("rx2", new Vec3(0, 14, 0))).isTrue();
         assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
         assertThat(vm.statusProperty().get()).doesNotContain("from cache");
         assertThat(files(dir)).isEqualTo(3);
@@ -435,7 +439,7 @@ class SimulationViewModelTest {
     void thePlannersExactPlanOfTheSameLayoutIsReused() throws Exception {
         SimulationViewModel vm = new SimulationViewModel(planner, Runnable::run, bgThread::execute, 1, null, true);
         planner.load(pair(), null);
-        Plan plannersPlan = planner.planned().get(10, TimeUnit.SECONDS);
+        Plan plannersPlan = planner.plans().planned().get(10, TimeUnit.SECONDS);
         vm.moleculesPerEmitterProperty().set("2000");
 
         assertThat(runToEnd(vm)).isEqualTo(SimulationViewModel.Outcome.COMPLETE);
@@ -464,9 +468,9 @@ class SimulationViewModelTest {
         try {
             SimulationViewModel vm = new SimulationViewModel(blocking, Runnable::run, bgThread::execute, 1, null, true);
             blocking.load(first, null);
-            blocking.planned().get(10, TimeUnit.SECONDS);
+            blocking.plans().planned().get(10, TimeUnit.SECONDS);
             // the edited layout's plan is still running: the planner holds no plan of it
-            assertThat(blocking.moveNode("rx", new Vec3(12, 0, 0))).isTrue();
+            assertThat(blocking.editor().moveNode("rx", new Vec3(12, 0, 0))).isTrue();
             Scenario edited = blocking.scenarioProperty().get();
             vm.moleculesPerEmitterProperty().set("2000");
 

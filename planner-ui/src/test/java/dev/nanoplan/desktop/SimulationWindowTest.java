@@ -2,16 +2,21 @@ package dev.nanoplan.desktop;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.concurrent.TimeUnit;
 import javafx.geometry.Bounds;
+import javafx.scene.Parent;
 import javafx.scene.control.Button;
 import javafx.scene.control.CheckBox;
 import javafx.scene.control.Label;
 import javafx.scene.control.ProgressBar;
 import javafx.scene.control.Tab;
+import javafx.scene.control.TabPane;
 import javafx.scene.control.TableView;
 import javafx.scene.control.TextField;
 import javafx.scene.paint.Color;
@@ -42,12 +47,12 @@ class SimulationWindowTest extends FxWindowTestBase {
             assertThat(w.view().showTab("Simulation")).isTrue();
             return w.vm();
         });
-        vm.planned().get(150, TimeUnit.SECONDS);
+        vm.plans().planned().get(150, TimeUnit.SECONDS);
         WaitForAsyncUtils.waitForFxEvents();
 
         SimulationView sv = onFx(() -> {
-            var tabs = ((javafx.scene.Parent) stage.getScene().getRoot()).lookup(".tab-pane");
-            Tab tab = ((javafx.scene.control.TabPane) tabs).getSelectionModel().getSelectedItem();
+            var tabs = ((Parent) stage.getScene().getRoot()).lookup(".tab-pane");
+            Tab tab = ((TabPane) tabs).getSelectionModel().getSelectedItem();
             assertThat(tab.getText()).isEqualTo("Simulation");
             javafx.scene.Node content = tab.getContent();
             ProgressBar bar = (ProgressBar) content.lookup("#sim-progress");
@@ -90,7 +95,7 @@ class SimulationWindowTest extends FxWindowTestBase {
         assertThat(onFx(() -> ((Label) sv.node().lookup("#sim-status")).getText())).contains("from cache");
 
         // an edit after the run shows the stale mark
-        onFx(() -> vm.moveNode("dst", new dev.nanoplan.geometry.Vec3(150, 0, 0)));
+        onFx(() -> vm.editor().moveNode("dst", new Vec3(150, 0, 0)));
         WaitForAsyncUtils.waitForFxEvents();
         assertThat(onFx(() -> sv.node().lookup("#sim-stale").isVisible())).isTrue();
     }
@@ -122,12 +127,12 @@ class SimulationWindowTest extends FxWindowTestBase {
         });
     }
 
-    static java.util.List<Text> texts(javafx.scene.Parent p) {
-        java.util.List<Text> out = new java.util.ArrayList<>();
+    static List<Text> texts(Parent p) {
+        List<Text> out = new ArrayList<>();
         for (javafx.scene.Node n : p.getChildrenUnmodifiable()) {
             if (n instanceof Text t) {
                 out.add(t);
-            } else if (n instanceof javafx.scene.Parent q) {
+            } else if (n instanceof Parent q) {
                 out.addAll(texts(q));
             }
         }

@@ -50,7 +50,7 @@ public final class DragUpdateBench {
             shown.complete(null);
         });
         shown.get(60, TimeUnit.SECONDS);
-        vm.planned().get(600, TimeUnit.SECONDS);
+        vm.plans().planned().get(600, TimeUnit.SECONDS);
         Node mover = s.nodes().stream().filter(x -> x.role().emits() && !x.id().equals("gw")).skip(3).findFirst()
                 .orElseThrow();
         // latency of one FX-thread turn with nothing planned: the floor of any "applied" time here
@@ -73,13 +73,13 @@ public final class DragUpdateBench {
         long[] editSync = new long[repeats];
         for (int i = 0; i < repeats; i++) {
             double dx = (i % 2 == 0) ? 1.0 : -1.0;
-            Vec3 p = vm.nodeById(mover.id()).positionUm();
+            Vec3 p = vm.editor().nodeById(mover.id()).positionUm();
             Vec3 q = new Vec3(p.x() + dx, p.y(), p.z());
             CompletableFuture<Long> started = new CompletableFuture<>();
             final int idx = i;
             Platform.runLater(() -> {
                 long t0 = System.nanoTime();
-                if (!vm.moveNode(mover.id(), q)) {
+                if (!vm.editor().moveNode(mover.id(), q)) {
                     started.completeExceptionally(new IllegalStateException(vm.messageProperty().get()));
                 } else {
                     editSync[idx] = System.nanoTime() - t0;
@@ -87,8 +87,8 @@ public final class DragUpdateBench {
                 }
             });
             long t0 = started.get(60, TimeUnit.SECONDS);
-            CompletableFuture<Plan> previewed = vm.previewed();
-            CompletableFuture<Plan> planned = vm.planned();
+            CompletableFuture<Plan> previewed = vm.plans().previewed();
+            CompletableFuture<Plan> planned = vm.plans().planned();
             // stamped on the FX thread the moment the view model has applied the plan (tables and
             // scene graph updated); the runLater below adds the wait for the next FX turn (rendering)
             long[] appliedAt = new long[2];
@@ -100,19 +100,19 @@ public final class DragUpdateBench {
                 Platform.runLater(() -> shownPreview.complete(System.nanoTime()));
                 previewTotal[previews] = shownPreview.get(60, TimeUnit.SECONDS) - t0;
                 previewApplied[previews] = appliedAt[0] - t0;
-                previewOnly[previews++] = vm.lastPreviewNanos();
+                previewOnly[previews++] = vm.plans().lastPreviewNanos();
             }
             planned.get(600, TimeUnit.SECONDS);
             CompletableFuture<Long> applied = new CompletableFuture<>();
             Platform.runLater(() -> applied.complete(System.nanoTime()));
             total[i] = applied.get(60, TimeUnit.SECONDS) - t0;
             exactApplied[i] = appliedAt[1] - t0;
-            planOnly[i] = vm.lastPlanNanos();
+            planOnly[i] = vm.plans().lastPlanNanos();
         }
         Arrays.sort(total);
         Arrays.sort(planOnly);
         Arrays.sort(editSync);
-        System.out.printf("nodes=%d links=%d repeats=%d exact debounce=%d ms%n", n, vm.links().size(), repeats,
+        System.out.printf("nodes=%d links=%d repeats=%d exact debounce=%d ms%n", n, vm.tables().links().size(), repeats,
                 debounceMs);
         if (previews > 0) {
             long[] pt = Arrays.copyOf(previewTotal, previews);

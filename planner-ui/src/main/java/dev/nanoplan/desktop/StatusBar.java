@@ -1,0 +1,49 @@
+package dev.nanoplan.desktop;
+
+import dev.nanoplan.report.Cautions;
+import javafx.beans.binding.Bindings;
+import javafx.geometry.Insets;
+import javafx.scene.control.Label;
+import javafx.scene.control.Tooltip;
+import javafx.scene.layout.HBox;
+import javafx.scene.layout.Priority;
+import javafx.scene.layout.Region;
+
+/**
+ * The status bar (a View): the view model's message, the preview badge, the layout's counts and
+ * the standing caution with its full text as a tooltip.
+ */
+final class StatusBar {
+
+    private StatusBar() {
+    }
+
+    static Region create(PlannerViewModel vm) {
+        Label msg = new Label();
+        msg.textProperty().bind(vm.messageProperty());
+        msg.setId("status");
+        Label caution = new Label("Model estimates — not validated for clinical use");
+        caution.getStyleClass().add("caution");
+        caution.setTooltip(new Tooltip(String.join("\n", Cautions.FULL)));
+        Region grow = new Region();
+        HBox.setHgrow(grow, Priority.ALWAYS);
+        Label counts = new Label();
+        counts.textProperty().bind(Bindings.createStringBinding(() -> {
+            var s = vm.scenarioProperty().get();
+            return s == null ? "" : s.nodes().size() + " nodes · " + vm.tables().links().size() + " links · "
+                    + vm.tables().routes().size() + " routes";
+        }, vm.scenarioProperty(), vm.tables().links(), vm.tables().routes()));
+        // a preview (normal approximation) is on screen until the exact plan replaces it
+        Label preview = new Label("preview — exact plan running");
+        preview.setId("preview-badge");
+        preview.getStyleClass().add("preview-badge");
+        preview.setTooltip(new Tooltip("Links and routes from the normal approximation of the counts; "
+                + "budgets and advice are those of the last exact plan until it arrives"));
+        preview.visibleProperty().bind(vm.tables().previewShownProperty());
+        preview.managedProperty().bind(vm.tables().previewShownProperty());
+        HBox bar = new HBox(12, msg, preview, grow, counts, caution);
+        bar.getStyleClass().add("status-bar");
+        bar.setPadding(new Insets(4, 10, 4, 10));
+        return bar;
+    }
+}
