@@ -2,6 +2,7 @@ package dev.nanoplan.report;
 
 import dev.nanoplan.detect.BinaryDetection;
 import dev.nanoplan.detect.MultiLevelResult;
+import dev.nanoplan.network.LinkCapacity;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkSpec;
 import java.util.Arrays;
@@ -14,6 +15,15 @@ public final class LinkText {
     }
 
     public static String render(LinkEvaluation e, double eventualHitProbability) {
+        return render(e, eventualHitProbability, Double.NaN);
+    }
+
+    /**
+     * @param maxErrorProbability an error target to check (NaN: none); the text then says whether the
+     *                            operating point meets it and whether a detector that ignores the count
+     *                            would meet it too
+     */
+    public static String render(LinkEvaluation e, double eventualHitProbability, double maxErrorProbability) {
         LinkSpec s = e.spec();
         StringBuilder b = new StringBuilder();
         row(b, "hit probability F(T)", g(s.tap(0)), "fraction of one release counted in its own slot");
@@ -26,24 +36,45 @@ public final class LinkText {
                 g(e.signalMeanMolecules()), g(e.isiMeanMolecules()), g(e.backgroundMeanMolecules())), "per slot");
         BinaryDetection d = e.binary();
         MultiLevelResult m = e.multiLevel();
+        LinkCapacity c = e.capacity();
         if (d != null) {
-            row(b, "threshold τ", Long.toString(d.miThreshold()), "decide 1 iff count ≥ τ (best MI at prior "
+            row(b, "threshold τ", Long.toString(e.operatingThreshold()), "decide 1 iff count ≥ τ (best MI at prior "
                     + g(s.priorOne()) + ")");
-            row(b, "mutual information", bits(d.mutualInformationBits()), "bit/symbol at τ and the prior");
+            row(b, "mutual information", bits(e.mutualInformationBits()), "bit/symbol at τ and the prior"
+                    + " (operating point)");
+            row(b, "error probability", errText(e.errorProbability(), e.log10OperatingErrorProbability()), "at τ = "
+                    + e.operatingThreshold());
             row(b, "min error probability", errText(e), "at τ = " + e.minErrorThreshold());
-            row(b, "capacity", bits(d.capacityBits()), String.format(Locale.ROOT, "bit/symbol (τ = %d, prior one %.3f)",
-                    d.capacityThreshold(), d.capacityPriorOne()));
+            row(b, "capacity", bits(c.bits()), String.format(Locale.ROOT, "bit/symbol at prior one %.3f (τ = %d),"
+                    + " earlier symbols at the same prior; +%s over the operating point", c.priorOne(), c.threshold(),
+                    bits(Math.max(0, c.bits() - e.mutualInformationBits()))));
         } else {
-            row(b, "thresholds", Arrays.toString(m.thresholds()), "capacity-achieving, decide level j in cell j");
-            row(b, "input distribution", probs(m.inputDistribution()), "capacity-achieving");
-            row(b, "MI at uniform inputs", bits(m.uniformMutualInformationBits()), "best thresholds "
-                    + Arrays.toString(m.uniformThresholds()));
-            row(b, "symbol error (MAP)", errText(e), "uniform inputs");
-            row(b, "capacity", bits(m.capacityBits()), "bit/symbol (hard decisions)");
-            row(b, "soft capacity", bits(m.softCapacityBits()), "bit/symbol, unquantised counts (upper bound)");
+            row(b, "thresholds", Arrays.toString(e.operatingThresholds()), "best at uniform inputs (operating point)");
+            row(b, "mutual information", bits(e.mutualInformationBits()), "bit/symbol at uniform inputs"
+                    + " (operating point)");
+            row(b, "symbol error", errText(e.errorProbability(), e.log10OperatingErrorProbability()),
+                    "at those thresholds, uniform inputs");
+            row(b, "symbol error (MAP)", errText(e), "uniform inputs, best detector");
+            row(b, "capacity", bits(c.bits()), "bit/symbol (hard decisions), earlier symbols at the same input law; +"
+                    + bits(Math.max(0, c.bits() - e.mutualInformationBits())) + " over the operating point");
+            row(b, "capacity thresholds", Arrays.toString(c.thresholds()), "decide level j in cell j");
+            row(b, "input distribution", probs(c.inputDistribution()), "capacity-achieving");
+            row(b, "soft capacity", bits(m.softCapacityBits()), "bit/symbol, unquantised counts, uniform leftovers"
+                    + " (upper bound there)");
         }
-        row(b, "rate", String.format(Locale.ROOT, "%.4g bit/s", e.rateBitsPerS()), "capacity / symbol time "
-                + g(s.symbolTimeS()) + " s");
+        row(b, "rate", String.format(Locale.ROOT, "%.4g bit/s", e.operatingRateBitsPerS()), String.format(Locale.ROOT,
+                "operating point / symbol time %s s; %.4g bit/s at capacity", g(s.symbolTimeS()),
+                c.bits() / s.symbolTimeS()));
+        if (!Double.isNaN(maxErrorProbability)) {
+            row(b, "error target", g(maxErrorProbability), e.errorProbability() <= maxErrorProbability
+                    ? "met at τ" : "not met at τ");
+            if (e.countBlindMeets(maxErrorProbability)) {
+                b.append(String.format(Locale.ROOT, "Warning: the error target %s is met by a detector that ignores the"
+                        + " count (error %s = always deciding the likelier level): it says nothing about this link;"
+                        + " judge the link by its mutual information.%n", g(maxErrorProbability),
+                        g(e.countBlindErrorProbability())));
+            }
+        }
         b.append('\n').append(verdict(e)).append('\n');
         b.append("Note: ").append(Cautions.SHORT).append('\n');
         return b.toString();
@@ -51,7 +82,7 @@ public final class LinkText {
 
     /** One line saying whether the link is usable, and why not. */
     public static String verdict(LinkEvaluation e) {
-        double c = e.capacityBits();
+        double c = e.mutualInformationBits();
         double max = Math.log(e.spec().levels()) / Math.log(2);
         String word;
         if (c >= 0.9 * max) {
@@ -82,15 +113,18 @@ public final class LinkText {
             }
         }
         return String.format(Locale.ROOT, "%s: %.3f of %.0f bit/symbol, %.4g bit/s, error %s%s.", word, c, max,
-                e.rateBitsPerS(), errText(e), why);
+                e.operatingRateBitsPerS(), errText(e.errorProbability(), e.log10OperatingErrorProbability()), why);
     }
 
     static String errText(LinkEvaluation e) {
-        double p = e.minErrorProbability();
+        return errText(e.minErrorProbability(), e.log10ErrorProbability());
+    }
+
+    private static String errText(double p, double log10P) {
         if (p > 0 && p >= 1e-300) {
             return String.format(Locale.ROOT, "%.3g", p);
         }
-        return String.format(Locale.ROOT, "10^%.1f", e.log10ErrorProbability());
+        return String.format(Locale.ROOT, "10^%.1f", log10P);
     }
 
     private static String tapsText(double[] t) {
