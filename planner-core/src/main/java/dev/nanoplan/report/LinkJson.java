@@ -73,6 +73,7 @@ public final class LinkJson {
                 uth.add(t);
             }
             o.put("soft_capacity_bits", m.softCapacityBits());
+            putNullable(o, "quantizer_certified_gap_bits", m.certifiedGapBits());
         }
         o.put("rate_bits_per_s", c.bits() / s.symbolTimeS());
         o.put("operating_rate_bits_per_s", e.operatingRateBitsPerS());
