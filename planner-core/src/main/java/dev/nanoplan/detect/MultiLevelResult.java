@@ -15,11 +15,14 @@ package dev.nanoplan.detect;
  * @param rounds alternation rounds (threshold DP + Blahut–Arimoto) performed after the first
  * @param exactOverAllCuts true when every threshold DP ran over all integer cut points of the
  *     window (otherwise over a candidate set, see {@link MultiLevelQuantizer})
+ * @param certifiedGapBits proven bound on how far {@code capacityBits} may lie below the maximum over
+ *     every threshold set (over the cut set searched when {@code exactOverAllCuts} is false) of the
+ *     induced channel's capacity; 0 for two levels; NaN when the certificate was too costly
  */
 public record MultiLevelResult(long[] thresholds, double[] inputDistribution, double capacityBits,
                                double[][] channel, long[] uniformThresholds,
                                double uniformMutualInformationBits, double softCapacityBits,
-                               int rounds, boolean exactOverAllCuts) {
+                               int rounds, boolean exactOverAllCuts, double certifiedGapBits) {
 
     public MultiLevelResult {
         if (thresholds == null || inputDistribution == null || uniformThresholds == null
@@ -40,6 +43,9 @@ public record MultiLevelResult(long[] thresholds, double[] inputDistribution, do
             if (!(v >= 0 && v <= max)) {
                 throw new IllegalArgumentException("information values must be in [0, log2 M], got " + v);
             }
+        }
+        if (!(certifiedGapBits >= 0) && !Double.isNaN(certifiedGapBits)) {
+            throw new IllegalArgumentException("certifiedGapBits must be >= 0 or NaN, got " + certifiedGapBits);
         }
         if (rounds < 0) {
             throw new IllegalArgumentException("rounds must be >= 0, got " + rounds);

@@ -106,6 +106,16 @@ public final class BlahutArimoto {
      * @throws IllegalArgumentException on an empty, ragged or non-stochastic matrix
      */
     public Result compute(double[][] w) {
+        return compute(w, Double.NEGATIVE_INFINITY);
+    }
+
+    /**
+     * As {@link #compute(double[][])}, but stops early (not converged) as soon as the upper bound
+     * max_x D(W_x ‖ qW) falls to {@code abandonAtOrBelowBits} or below: the capacity is then proven
+     * not to exceed that value. For branch-and-bound searches over many channels.
+     */
+    public Result compute(double[][] w, double abandonAtOrBelowBits) {
+        double abandonNats = abandonAtOrBelowBits * LN2;
         double[][] m = checkedCopy(w);
         int nx = m.length;
         int ny = m[0].length;
@@ -162,7 +172,7 @@ public final class BlahutArimoto {
             upper = Math.max(lower, upper);
             double gap = upper - lower;
             boolean converged = gap < tolNats;
-            if (converged || iter >= maxIterations) {
+            if (converged || iter >= maxIterations || upper <= abandonNats) {
                 double cap = Math.min(lower, Math.log(Math.min(nx, ny))) / LN2;
                 return new Result(Math.max(0, cap), gap / LN2, q, iter, converged);
             }

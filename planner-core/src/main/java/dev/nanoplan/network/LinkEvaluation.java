@@ -4,9 +4,19 @@ import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.detect.BinaryDetection;
 import dev.nanoplan.detect.MultiLevelResult;
 import java.util.List;
+import java.util.function.Supplier;
 
 /**
  * The evaluated link.
+ *
+ * <p><b>Operating point</b> (what the link delivers at the file's input law): binary, the prior
+ * {@code prior_one} for the current and the earlier own symbols, the threshold τ that maximises the
+ * mutual information there ({@link #operatingThreshold()}), that mutual information
+ * ({@link #mutualInformationBits()}) and the error at that same τ ({@link #errorProbability()});
+ * more levels, uniform inputs (current and earlier symbols) with their best thresholds.
+ * <b>Consistent capacity</b> ({@link #capacity()}): the maximum over the emitter's own input law,
+ * its earlier symbols' leftovers included, computed on first call (it costs tens of count-pmf
+ * builds with ISI; see {@link ConsistentCapacitySearch}).
  *
  * @param spec                     what was evaluated
  * @param givenLevel               pmf of the slot count given each sent level
@@ -23,19 +33,104 @@ import java.util.List;
  * @param interferenceMeanMolecules mean count from other emitters
  * @param backgroundMeanMolecules  mean background count per slot
  * @param truncatedMass            largest probability mass dropped by truncation over the levels
+ * @param operatingThresholds      the thresholds of the operating point (binary: one τ, the
+ *                                 mutual-information maximiser at the prior; among thresholds of equal
+ *                                 mutual information the one of least error)
+ * @param errorProbability         error at the operating thresholds: binary (1−q)ε₀(τ) + qε₁(τ);
+ *                                 more levels the symbol error at uniform inputs. May underflow to 0
+ * @param log10OperatingErrorProbability log10 of the previous, finite even below 1e-300 (binary,
+ *                                 exact count model, by the log-space tails)
+ * @param capacitySupplier         computes the consistent capacity once, on first call
  */
 public record LinkEvaluation(LinkSpec spec, List<CountPmf> givenLevel, BinaryDetection binary,
         MultiLevelResult multiLevel, long minErrorThreshold, double minErrorProbability,
         double log10ErrorProbability, double signalMeanMolecules, double isiMeanMolecules,
-        double interferenceMeanMolecules, double backgroundMeanMolecules, double truncatedMass) {
+        double interferenceMeanMolecules, double backgroundMeanMolecules, double truncatedMass,
+        long[] operatingThresholds, double errorProbability, double log10OperatingErrorProbability,
+        Supplier<LinkCapacity> capacitySupplier) {
 
-    /** Capacity in bits per symbol (max over thresholds and inputs). */
+    public LinkEvaluation {
+        operatingThresholds = operatingThresholds.clone();
+    }
+
+    @Override
+    public long[] operatingThresholds() {
+        return operatingThresholds.clone();
+    }
+
+    /** Binary: the operating threshold τ (decide 1 iff Y ≥ τ); more levels: the first threshold. */
+    public long operatingThreshold() {
+        return operatingThresholds[0];
+    }
+
+    /**
+     * Mutual information at the operating point, bits per symbol: binary at the file's prior (own
+     * leftovers at the same prior) and {@link #operatingThreshold()}; more levels at uniform inputs
+     * with their best thresholds.
+     */
+    public double mutualInformationBits() {
+        return binary != null ? binary.mutualInformationBits() : multiLevel.uniformMutualInformationBits();
+    }
+
+    /** {@link #mutualInformationBits()} divided by the symbol time. */
+    public double operatingRateBitsPerS() {
+        return mutualInformationBits() / spec.symbolTimeS();
+    }
+
+    /**
+     * The consistent capacity: maximum over the emitter's own input law, with its earlier symbols'
+     * leftovers at that same law (computed on first call, then kept).
+     */
+    public LinkCapacity capacity() {
+        return capacitySupplier.get();
+    }
+
+    /**
+     * Former figure, kept for the planner: the capacity over the prior of the current symbol only,
+     * with the earlier own symbols at the file's prior (binary), or the quantizer capacity of the
+     * uniform-leftover pmfs (more levels). It is not an input law an emitter can use when there is
+     * ISI; see {@link #capacity()} for the consistent one and {@link #mutualInformationBits()} for
+     * the operating point.
+     */
     public double capacityBits() {
         return binary != null ? binary.capacityBits() : multiLevel.capacityBits();
     }
 
-    /** Capacity divided by the symbol time. */
+    /** {@link #capacityBits()} divided by the symbol time (former figure, see there). */
     public double rateBitsPerS() {
         return capacityBits() / spec.symbolTimeS();
+    }
+
+    /**
+     * Error of a detector that ignores the count and always decides the likelier level:
+     * min(q, 1 − q) for binary links, 1 − 1/M for M uniform levels.
+     */
+    public double countBlindErrorProbability() {
+        int m = spec.levels();
+        return m == 2 ? Math.min(spec.priorOne(), 1 - spec.priorOne()) : 1 - 1.0 / m;
+    }
+
+    /**
+     * Whether an error target is met without looking at the count at all
+     * ({@link #countBlindErrorProbability()} ≤ target): such a target says nothing about the link,
+     * and a planner should flag it and size budgets by the information target instead.
+     */
+    public boolean countBlindMeets(double maxErrorProbability) {
+        return countBlindErrorProbability() <= maxErrorProbability;
+    }
+
+    /** Memoising supplier: computes once, thread-safe. */
+    static Supplier<LinkCapacity> once(Supplier<LinkCapacity> compute) {
+        return new Supplier<>() {
+            private volatile LinkCapacity value;
+
+            @Override
+            public synchronized LinkCapacity get() {
+                if (value == null) {
+                    value = compute.get();
+                }
+                return value;
+            }
+        };
     }
 }

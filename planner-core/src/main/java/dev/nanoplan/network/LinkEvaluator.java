@@ -3,6 +3,7 @@ package dev.nanoplan.network;
 import dev.nanoplan.count.BinomialTerm;
 import dev.nanoplan.count.CountLaw;
 import dev.nanoplan.count.CountModel;
+import dev.nanoplan.count.CountModelKind;
 import dev.nanoplan.count.CountModels;
 import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.count.CountTerm;
@@ -16,6 +17,8 @@ import dev.nanoplan.detect.MultiLevelQuantizer;
 import dev.nanoplan.detect.MultiLevelResult;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.Function;
+import java.util.function.Supplier;
 
 /**
  * Evaluates one link: builds the law of the slot count given each sent level (docs/architecture.md §5.6),
@@ -122,14 +125,16 @@ public final class LinkEvaluator {
         for (int i = 0; i < m; i++) {
             own.add(CountLaw.of(new BinomialTerm(spec.molecules(i), spec.tap(0))));
         }
-        List<CountPmf> pmfs;
-        if (interferencePmf != null && model instanceof ExactCountModel exact) {
-            CountLaw rest = sharedLaw(spec, interference.subList(covered, interference.size()));
-            pmfs = interferencePmfB != null ? exact.pmfs(interferencePmf, interferencePmfB, rest, own)
-                    : exact.pmfs(interferencePmf, rest, own);
-        } else {
-            pmfs = model.pmfs(sharedLaw(spec, interference), own);
-        }
+        // the count pmfs with the own leftovers at the given level weights (other emitters fixed)
+        Function<double[], List<CountPmf>> pmfsAt = weights -> {
+            if (interferencePmf != null && model instanceof ExactCountModel exact) {
+                CountLaw rest = sharedLaw(spec, weights, interference.subList(covered, interference.size()));
+                return interferencePmfB != null ? exact.pmfs(interferencePmf, interferencePmfB, rest, own)
+                        : exact.pmfs(interferencePmf, rest, own);
+            }
+            return model.pmfs(sharedLaw(spec, weights, interference), own);
+        };
+        List<CountPmf> pmfs = pmfsAt.apply(isiWeights(spec));
         double truncated = 0;
         for (CountPmf p : pmfs) {
             truncated = Math.max(truncated, p.truncatedMass());
@@ -146,24 +151,100 @@ public final class LinkEvaluator {
             interferenceMean += t.mean();
         }
         double signalMean = (spec.molecules(m - 1) - spec.molecules(0)) * spec.tap(0);
+        boolean leftovers = hasLeftovers(spec);
 
         if (m == 2) {
             BinaryDetection d = curves ? BinaryThresholdSearch.search(pmfs.get(0), pmfs.get(1), spec.priorOne())
                     : BinaryThresholdSearch.searchBest(pmfs.get(0), pmfs.get(1), spec.priorOne());
             long minErrTau = d.minErrorThreshold();
             double log10Err = Math.log10(d.minErrorProbability());
-            if (!(d.minErrorProbability() >= LOG_REFINE_BELOW) && spec.countModel() == dev.nanoplan.count.CountModelKind.EXACT) {
+            boolean exactModel = spec.countModel() == CountModelKind.EXACT;
+            if (!(d.minErrorProbability() >= LOG_REFINE_BELOW) && exactModel) {
                 long[] best = refineInLogSpace(laws.get(0), laws.get(1), spec.priorOne(), minErrTau);
                 minErrTau = best[0];
                 log10Err = Double.longBitsToDouble(best[1]) / LN10;
             }
+            long opTau = operatingThreshold(d);
+            double[] errCurve = d.errorByThreshold();
+            double opErr = errCurve[(int) (opTau - d.firstThreshold())];
+            double opLog10 = Math.log10(opErr);
+            if (opTau == minErrTau) {
+                opLog10 = log10Err;
+                opErr = Math.pow(10, log10Err);
+            } else if (!(opErr >= LOG_REFINE_BELOW) && exactModel) {
+                opLog10 = lnErrorAt(laws.get(0), laws.get(1), spec.priorOne(), opTau) / LN10;
+                opErr = Math.pow(10, opLog10);
+            }
+            Supplier<LinkCapacity> cap = LinkEvaluation.once(
+                    () -> ConsistentCapacitySearch.binary(pmfsAt, d, spec.priorOne(), leftovers));
             return new LinkEvaluation(spec, List.copyOf(pmfs), d, null, minErrTau, Math.pow(10, log10Err), log10Err,
-                    signalMean, isiMean, interferenceMean, spec.backgroundMoleculesPerSlot(), truncated);
+                    signalMean, isiMean, interferenceMean, spec.backgroundMoleculesPerSlot(), truncated,
+                    new long[] {opTau}, opErr, opLog10, cap);
         }
         MultiLevelResult r = MultiLevelQuantizer.DEFAULT.optimise(pmfs);
         double symbolError = mapSymbolError(pmfs);
+        long[] opThresholds = r.uniformThresholds();
+        double opErr = symbolErrorAt(pmfs, opThresholds);
+        Supplier<LinkCapacity> cap = LinkEvaluation.once(
+                () -> ConsistentCapacitySearch.multiLevel(pmfsAt, r, leftovers));
         return new LinkEvaluation(spec, List.copyOf(pmfs), null, r, -1, symbolError, Math.log10(symbolError),
-                signalMean, isiMean, interferenceMean, spec.backgroundMoleculesPerSlot(), truncated);
+                signalMean, isiMean, interferenceMean, spec.backgroundMoleculesPerSlot(), truncated,
+                opThresholds, opErr, Math.log10(opErr), cap);
+    }
+
+    /** Whether the emitter's own earlier symbols leave anything in the current slot (some p_k > 0, k ≥ 1). */
+    static boolean hasLeftovers(LinkSpec spec) {
+        for (int k = 1; k < spec.taps().length; k++) {
+            if (spec.tap(k) > 0) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /**
+     * The mutual-information maximiser at the prior; when the minimum-error threshold has the same
+     * mutual information (equal in double precision, e.g. both saturated at h(q)), that one, so that
+     * the reported threshold and error are the better pair of the tie.
+     */
+    private static long operatingThreshold(BinaryDetection d) {
+        double[] mi = d.miBitsByThreshold();
+        int at = (int) (d.minErrorThreshold() - d.firstThreshold());
+        return mi[at] >= d.mutualInformationBits() ? d.minErrorThreshold() : d.miThreshold();
+    }
+
+    /** ln[(1−q)·P(Y ≥ τ | 0) + q·P(Y &lt; τ | 1)] from the exact log-space tails. */
+    static double lnErrorAt(CountLaw law0, CountLaw law1, double q, long tau) {
+        return lnError(tails(law0, law1, Math.log1p(-q), Math.log(q), tau, new Tails(law0, law1)));
+    }
+
+    /**
+     * Symbol error at uniform inputs of the interval detector with the given thresholds (decide j
+     * iff t_j ≤ Y &lt; t_{j+1}): (1/M)·Σ_i P(Y outside cell i | i), summed over the cells outside
+     * (no 1 − x cancellation); truncated mass counts on its own side.
+     */
+    static double symbolErrorAt(List<CountPmf> pmfs, long[] thresholds) {
+        int m = pmfs.size();
+        double err = 0;
+        for (int i = 0; i < m; i++) {
+            CountPmf p = pmfs.get(i);
+            long lo = i == 0 ? Long.MIN_VALUE : thresholds[i - 1];
+            long hi = i == m - 1 ? Long.MAX_VALUE : thresholds[i];
+            double out = 0;
+            if (i > 0) {
+                out += p.massBelow();
+            }
+            if (i < m - 1) {
+                out += p.massAbove();
+            }
+            for (long y = p.offset(); y <= p.last(); y++) {
+                if (y < lo || y >= hi) {
+                    out += p.probability(y);
+                }
+            }
+            err += out;
+        }
+        return Math.min(1, err / m);
     }
 
     /** Weights of earlier symbols' levels: the binary prior, or uniform for more levels. */
@@ -181,8 +262,12 @@ public final class LinkEvaluator {
 
     /** What every level's count shares: own leftovers, interference and background. */
     static CountLaw sharedLaw(LinkSpec spec, List<CountTerm> interference) {
+        return sharedLaw(spec, isiWeights(spec), interference);
+    }
+
+    /** As {@link #sharedLaw(LinkSpec, List)} with the own earlier symbols' levels at weights {@code w}. */
+    static CountLaw sharedLaw(LinkSpec spec, double[] w, List<CountTerm> interference) {
         List<CountTerm> terms = new ArrayList<>();
-        double[] w = isiWeights(spec);
         for (int k = 1; k < spec.taps().length; k++) {
             double p = spec.tap(k);
             if (p == 0) {

@@ -5,10 +5,20 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.nanoplan.detect.BinaryDetection;
 import dev.nanoplan.detect.MultiLevelResult;
+import dev.nanoplan.network.LinkCapacity;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkSpec;
 
-/** The {@code link --json} object of docs/architecture.md §4.3 (stable snake_case keys; more may be added). */
+/**
+ * The {@code link --json} object (stable snake_case keys; more may be added). The operating point is
+ * {@code threshold}, {@code mutual_information_bits}, {@code error_probability} (at that threshold) and
+ * {@code log10_error_probability_at_threshold}, at the file's prior with the emitter's own leftovers
+ * at the same prior (more levels: uniform inputs, {@code uniform_input_thresholds}); the capacity
+ * keys are the consistent capacity ({@link LinkEvaluation#capacity()}), {@code rate_bits_per_s} =
+ * {@code capacity_bits} / T and {@code operating_rate_bits_per_s} = mutual information / T;
+ * {@code min_error_probability} / {@code min_error_threshold} / {@code log10_error_probability} are the
+ * minimum-error point at the prior.
+ */
 public final class LinkJson {
 
     static final ObjectMapper MAPPER = new ObjectMapper();
@@ -31,38 +41,46 @@ public final class LinkJson {
         }
         BinaryDetection b = e.binary();
         MultiLevelResult m = e.multiLevel();
+        LinkCapacity c = e.capacity();
         if (b != null) {
-            o.put("threshold", b.miThreshold());
-            o.put("mutual_information_bits", b.mutualInformationBits());
-            o.put("capacity_bits", b.capacityBits());
-            o.put("capacity_prior_one", b.capacityPriorOne());
-            o.put("capacity_threshold", b.capacityThreshold());
+            o.put("threshold", e.operatingThreshold());
+            o.put("mutual_information_bits", e.mutualInformationBits());
+            o.put("error_probability", e.errorProbability());
+            o.put("capacity_bits", c.bits());
+            o.put("capacity_prior_one", c.priorOne());
+            o.put("capacity_threshold", c.threshold());
             o.put("min_error_probability", e.minErrorProbability());
             o.put("min_error_threshold", e.minErrorThreshold());
         } else {
             o.putNull("threshold");
-            o.put("mutual_information_bits", m.uniformMutualInformationBits());
-            o.put("capacity_bits", m.capacityBits());
+            o.put("mutual_information_bits", e.mutualInformationBits());
+            o.put("error_probability", e.errorProbability());
+            o.put("capacity_bits", c.bits());
             o.putNull("capacity_prior_one");
             o.putNull("capacity_threshold");
             o.put("min_error_probability", e.minErrorProbability());
             o.putNull("min_error_threshold");
             ArrayNode th = o.putArray("thresholds");
-            for (long t : m.thresholds()) {
+            for (long t : c.thresholds()) {
                 th.add(t);
             }
             ArrayNode in = o.putArray("input_distribution");
-            for (double p : m.inputDistribution()) {
+            for (double p : c.inputDistribution()) {
                 in.add(p);
             }
             ArrayNode uth = o.putArray("uniform_input_thresholds");
-            for (long t : m.uniformThresholds()) {
+            for (long t : e.operatingThresholds()) {
                 uth.add(t);
             }
             o.put("soft_capacity_bits", m.softCapacityBits());
+            putNullable(o, "quantizer_certified_gap_bits", m.certifiedGapBits());
         }
-        o.put("rate_bits_per_s", e.rateBitsPerS());
+        o.put("rate_bits_per_s", c.bits() / s.symbolTimeS());
+        o.put("operating_rate_bits_per_s", e.operatingRateBitsPerS());
         o.put("log10_error_probability", e.log10ErrorProbability());
+        o.put("log10_error_probability_at_threshold", e.log10OperatingErrorProbability());
+        o.put("count_blind_error_probability", e.countBlindErrorProbability());
+        o.put("capacity_search_converged", c.converged());
         o.put("prior_one", s.priorOne());
         o.put("levels", s.levels());
         ArrayNode lm = o.putArray("level_molecules");

@@ -45,17 +45,18 @@ public final class LinkPlotFiles {
         long chosen;
         String title;
         if (b != null) {
-            thresholds = new long[] {b.miThreshold()};
+            thresholds = new long[] {e.operatingThreshold()};
             mi = new LinkPlot.Series("MI", b.firstThreshold(), b.miBitsByThreshold());
-            chosen = b.miThreshold();
+            chosen = e.operatingThreshold();
             title = String.format(Locale.ROOT, "Link: capacity %.4f bit/symbol, MI %.4f bit at τ = %d (prior %.2f)",
-                    b.capacityBits(), b.mutualInformationBits(), b.miThreshold(), e.spec().priorOne());
+                    e.capacity().bits(), e.mutualInformationBits(), e.operatingThreshold(), e.spec().priorOne());
         } else {
             thresholds = m.thresholds();
             FirstThresholdSweep.Curve curve = FirstThresholdSweep.sweep(e.givenLevel(), thresholds, m.inputDistribution());
             mi = new LinkPlot.Series("MI", curve.firstThreshold(), curve.miBits());
             chosen = thresholds[0];
-            title = String.format(Locale.ROOT, "Link, %d levels: capacity %.4f bit/symbol", lm.length, m.capacityBits());
+            title = String.format(Locale.ROOT, "Link, %d levels: capacity %.4f bit/symbol", lm.length,
+                    e.capacity().bits());
         }
         String axis = b != null ? "threshold τ (decide 1 iff count ≥ τ)"
                 : "first threshold (the others fixed at their best)";

@@ -2,6 +2,7 @@ package dev.nanoplan.report;
 
 import dev.nanoplan.detect.BinaryDetection;
 import dev.nanoplan.detect.MultiLevelResult;
+import dev.nanoplan.network.LinkCapacity;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkSpec;
 import java.util.Arrays;
@@ -14,6 +15,15 @@ public final class LinkText {
     }
 
     public static String render(LinkEvaluation e, double eventualHitProbability) {
+        return render(e, eventualHitProbability, Double.NaN);
+    }
+
+    /**
+     * @param maxErrorProbability an error target to check (NaN: none); the text then says whether the
+     *                            operating point meets it and whether a detector that ignores the count
+     *                            would meet it too
+     */
+    public static String render(LinkEvaluation e, double eventualHitProbability, double maxErrorProbability) {
         LinkSpec s = e.spec();
         StringBuilder b = new StringBuilder();
         row(b, "hit probability F(T)", Numbers.probability(s.tap(0)), "fraction of one release counted in its own slot");
@@ -27,24 +37,47 @@ public final class LinkText {
                 + Numbers.quantity(e.backgroundMeanMolecules()), "per slot");
         BinaryDetection d = e.binary();
         MultiLevelResult m = e.multiLevel();
+        LinkCapacity c = e.capacity();
         if (d != null) {
-            row(b, "threshold τ", Numbers.threshold(d.miThreshold()), "decide 1 iff count ≥ τ (best MI at prior "
+            row(b, "threshold τ", Numbers.threshold(e.operatingThreshold()), "decide 1 iff count ≥ τ (best MI at prior "
                     + Numbers.probability(s.priorOne()) + ")");
-            row(b, "mutual information", Numbers.bits(d.mutualInformationBits()), "bit/symbol at τ and the prior");
+            row(b, "mutual information", Numbers.bits(e.mutualInformationBits()), "bit/symbol at τ and the prior"
+                    + " (operating point)");
+            row(b, "error probability", Numbers.errorProbability(e.errorProbability(), e.log10OperatingErrorProbability()),
+                    "at τ = " + Numbers.threshold(e.operatingThreshold()));
             row(b, "min error probability", errText(e), "at τ = " + Numbers.threshold(e.minErrorThreshold()));
-            row(b, "capacity", Numbers.bits(d.capacityBits()), "bit/symbol (τ = " + Numbers.threshold(d.capacityThreshold())
-                    + ", prior one " + Numbers.probability(d.capacityPriorOne()) + ")");
+            row(b, "capacity", Numbers.bits(c.bits()), "bit/symbol at prior one " + Numbers.probability(c.priorOne())
+                    + " (τ = " + Numbers.threshold(c.threshold()) + "), earlier symbols at the same prior; +"
+                    + Numbers.bits(Math.max(0, c.bits() - e.mutualInformationBits())) + " over the operating point");
         } else {
-            row(b, "thresholds", Arrays.toString(m.thresholds()), "capacity-achieving, decide level j in cell j");
-            row(b, "input distribution", probs(m.inputDistribution()), "capacity-achieving");
-            row(b, "MI at uniform inputs", Numbers.bits(m.uniformMutualInformationBits()), "best thresholds "
-                    + Arrays.toString(m.uniformThresholds()));
-            row(b, "symbol error (MAP)", errText(e), "uniform inputs");
-            row(b, "capacity", Numbers.bits(m.capacityBits()), "bit/symbol (hard decisions)");
-            row(b, "soft capacity", Numbers.bits(m.softCapacityBits()), "bit/symbol, unquantised counts (upper bound)");
+            row(b, "thresholds", Arrays.toString(e.operatingThresholds()), "best at uniform inputs (operating point)");
+            row(b, "mutual information", Numbers.bits(e.mutualInformationBits()), "bit/symbol at uniform inputs"
+                    + " (operating point)");
+            row(b, "symbol error", Numbers.errorProbability(e.errorProbability(), e.log10OperatingErrorProbability()),
+                    "at those thresholds, uniform inputs");
+            row(b, "symbol error (MAP)", errText(e), "uniform inputs, best detector");
+            row(b, "capacity", Numbers.bits(c.bits()), "bit/symbol (hard decisions), earlier symbols at the same input"
+                    + " law; +" + Numbers.bits(Math.max(0, c.bits() - e.mutualInformationBits()))
+                    + " over the operating point");
+            row(b, "capacity thresholds", Arrays.toString(c.thresholds()), "decide level j in cell j");
+            row(b, "input distribution", probs(c.inputDistribution()), "capacity-achieving");
+            row(b, "soft capacity", Numbers.bits(m.softCapacityBits()), "bit/symbol, unquantised counts, uniform"
+                    + " leftovers (upper bound there)");
         }
-        row(b, "rate", Numbers.quantity(e.rateBitsPerS()) + " bit/s", "capacity / symbol time "
-                + Numbers.quantity(s.symbolTimeS()) + " s");
+        row(b, "rate", Numbers.quantity(e.operatingRateBitsPerS()) + " bit/s", "operating point / symbol time "
+                + Numbers.quantity(s.symbolTimeS()) + " s; " + Numbers.quantity(c.bits() / s.symbolTimeS())
+                + " bit/s at capacity");
+        if (!Double.isNaN(maxErrorProbability)) {
+            row(b, "error target", Numbers.probability(maxErrorProbability),
+                    e.errorProbability() <= maxErrorProbability ? "met at τ" : "not met at τ");
+            if (e.countBlindMeets(maxErrorProbability)) {
+                b.append("Warning: the error target ").append(Numbers.probability(maxErrorProbability))
+                        .append(" is met by a detector that ignores the count (error ")
+                        .append(Numbers.probability(e.countBlindErrorProbability()))
+                        .append(" = always deciding the likelier level): it says nothing about this link;"
+                                + " judge the link by its mutual information.").append(System.lineSeparator());
+            }
+        }
         b.append('\n').append(verdict(e)).append('\n');
         b.append("Note: ").append(Cautions.SHORT).append('\n');
         return b.toString();
@@ -52,7 +85,7 @@ public final class LinkText {
 
     /** One line saying whether the link is usable, and why not. */
     public static String verdict(LinkEvaluation e) {
-        double c = e.capacityBits();
+        double c = e.mutualInformationBits();
         double max = Math.log(e.spec().levels()) / Math.log(2);
         String word;
         if (c >= 0.9 * max) {
@@ -83,7 +116,8 @@ public final class LinkText {
             }
         }
         return String.format(Locale.ROOT, "%s: %s of %s bit/symbol, %s bit/s, error %s%s.", word, Numbers.bits(c),
-                Numbers.quantity(Math.rint(max)), Numbers.quantity(e.rateBitsPerS()), errText(e), why);
+                Numbers.quantity(Math.rint(max)), Numbers.quantity(e.operatingRateBitsPerS()),
+                Numbers.errorProbability(e.errorProbability(), e.log10OperatingErrorProbability()), why);
     }
 
     static String errText(LinkEvaluation e) {

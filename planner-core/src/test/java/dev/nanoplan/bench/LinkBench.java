@@ -1,6 +1,7 @@
 package dev.nanoplan.bench;
 
 import dev.nanoplan.count.CountModelKind;
+import dev.nanoplan.network.LinkCapacity;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkEvaluator;
 import dev.nanoplan.network.LinkSpec;
@@ -19,7 +20,8 @@ import org.openjdk.jmh.annotations.Warmup;
 
 /**
  * One whole link (count pmfs, threshold search, capacity) at N = 10⁶ molecules, exact count
- * model: without ISI (target ≤ 1 ms) and with ISI memory 50 (target ≤ 20 ms).
+ * model: without ISI (target ≤ 1 ms) and with ISI memory 50 (target ≤ 20 ms); and the consistent
+ * capacity of the ISI link on top (own leftovers re-weighted at every prior the search tries).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -48,5 +50,15 @@ public class LinkBench {
     @Benchmark
     public LinkEvaluation millionMoleculesIsi50() {
         return LinkEvaluator.evaluate(isi50);
+    }
+
+    @Benchmark
+    public LinkCapacity millionMoleculesIsi50Capacity() {
+        return LinkEvaluator.evaluate(isi50).capacity();
+    }
+
+    @Benchmark
+    public LinkCapacity millionMoleculesNoIsiCapacity() {
+        return LinkEvaluator.evaluate(noIsi).capacity();
     }
 }

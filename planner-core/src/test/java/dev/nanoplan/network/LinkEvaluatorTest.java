@@ -30,6 +30,58 @@ class LinkEvaluatorTest {
     }
 
     @Test
+    void errorAtAGivenThresholdIsExactInLogSpaceFarBelowDoubleRange() {
+        // Y|0 ~ Poisson(1), Y|1 ~ Bin(5000, 0.3) + Poisson(1); at τ = 300 both tails are far below 1e-300
+        LinkSpec s = LinkSpec.binary(new double[] {0.3}, 0, 5000, 0.4, 1, CountModelKind.EXACT, 1);
+        var law0 = LinkEvaluator.lawGivenLevel(s, 0, List.of());
+        var law1 = LinkEvaluator.lawGivenLevel(s, 1, List.of());
+        long tau = 300;
+        // Reference: log-sum-exp of Commons Statistics log pmfs: ln P(Pois(1) ≥ τ) over y = τ..τ+400, and
+        // ln P(Bin + Pois < τ) over every pair j + k < τ (sum of independent terms, Feller 1968, §XI.2)
+        PoissonDistribution pois = PoissonDistribution.of(1);
+        BinomialDistribution bin = BinomialDistribution.of(5000, 0.3);
+        List<Double> up = new java.util.ArrayList<>();
+        for (int y = (int) tau; y < tau + 400; y++) {
+            up.add(pois.logProbability(y));
+        }
+        List<Double> low = new java.util.ArrayList<>();
+        for (int j = 0; j < tau; j++) {
+            for (int k = 0; j + k < tau; k++) {
+                low.add(bin.logProbability(j) + pois.logProbability(k));
+            }
+        }
+        double expected = logSumExp(List.of(Math.log(0.6) + logSumExp(up), Math.log(0.4) + logSumExp(low)));
+        assertThat(expected).isLessThan(-300 * Math.log(10));
+        assertThat(LinkEvaluator.lnErrorAt(law0, law1, 0.4, tau)).isCloseTo(expected, within(1e-9 * Math.abs(expected)));
+    }
+
+    private static double logSumExp(List<Double> v) {
+        double max = Double.NEGATIVE_INFINITY;
+        for (double x : v) {
+            max = Math.max(max, x);
+        }
+        double s = 0;
+        for (double x : v) {
+            s += Math.exp(x - max);
+        }
+        return max + Math.log(s);
+    }
+
+    @Test
+    void operatingThresholdAndErrorAreOnePair() {
+        // the README example: MI is best at τ = 56, the error is least at τ = 57
+        LinkSpec s = LinkSpec.binary(OpenSphereHitting.of(15, 5, 100).taps(0.5, 5), 0, 500, 0.5, 0,
+                CountModelKind.EXACT, 0.5);
+        LinkEvaluation e = LinkEvaluator.evaluate(s);
+        double[] err = e.binary().errorByThreshold();
+        // the error reported is the error curve at the operating threshold, not its minimum
+        assertThat(e.errorProbability()).isEqualTo(err[(int) (e.operatingThreshold() - e.binary().firstThreshold())]);
+        assertThat(e.operatingThreshold()).isEqualTo(e.binary().miThreshold());
+        assertThat(e.minErrorThreshold()).isNotEqualTo(e.operatingThreshold());
+        assertThat(e.errorProbability()).isGreaterThan(e.minErrorProbability());
+    }
+
+    @Test
     void logSpaceRefinementAgreesWithWindowSumsWhereBothHold() {
         // error ≈ 1e-11: inside the window's resolution, so both exact paths must agree
         LinkSpec s = LinkSpec.binary(new double[] {0.3, 0.02}, 0, 70, 0.5, 0.4, CountModelKind.EXACT, 1);

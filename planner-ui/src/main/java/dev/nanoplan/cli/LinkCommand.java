@@ -82,6 +82,10 @@ public final class LinkCommand implements Callable<Integer> {
     @Option(names = "--taps", split = ",", description = "Per-slot hit probabilities p0,p1,... instead of geometry.")
     double[] taps;
 
+    @Option(names = "--max-error", description = "Error target to check at the threshold; also says whether a"
+            + " detector that ignores the count meets it (then the target says nothing about the link).")
+    Double maxError;
+
     @Option(names = "--json", description = "Print one JSON object on stdout.")
     boolean json;
 
@@ -104,6 +108,9 @@ public final class LinkCommand implements Callable<Integer> {
             throw new BadInputException("--levels: must be between 2 and " + LinkSpec.MAX_LEVELS + ", got " + levels);
         }
         requireNonNegative("--background-per-s", backgroundPerS);
+        if (maxError != null && !(maxError > 0 && maxError < 1)) {
+            throw new BadInputException("--max-error: must be strictly between 0 and 1, got " + maxError);
+        }
         if (moleculesZero < 0) {
             throw new BadInputException("--molecules-zero: must be >= 0, got " + moleculesZero);
         }
@@ -147,9 +154,14 @@ public final class LinkCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         if (json) {
             ObjectNode o = LinkJson.of(ev, eventual);
+            if (maxError != null) {
+                o.put("max_error_probability", maxError);
+                o.put("meets_error_target", ev.errorProbability() <= maxError);
+                o.put("count_blind_meets_error_target", ev.countBlindMeets(maxError));
+            }
             out.println(o.toString());
         } else {
-            out.print(LinkText.render(ev, eventual));
+            out.print(LinkText.render(ev, eventual, maxError == null ? Double.NaN : maxError));
             if (plot != null) {
                 out.println("plot written to " + plot);
             }

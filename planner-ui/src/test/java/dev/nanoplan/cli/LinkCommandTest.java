@@ -29,7 +29,8 @@ class LinkCommandTest {
         JsonNode j = new ObjectMapper().readTree(r.out());
         for (String key : new String[] {"hit_probability", "eventual_hit_probability", "taps", "threshold",
             "mutual_information_bits", "capacity_bits", "capacity_prior_one", "capacity_threshold",
-            "min_error_probability", "min_error_threshold", "rate_bits_per_s", "log10_error_probability"}) {
+            "min_error_probability", "min_error_threshold", "rate_bits_per_s", "log10_error_probability",
+            "error_probability", "operating_rate_bits_per_s", "log10_error_probability_at_threshold"}) {
             assertThat(j.has(key)).as(key).isTrue();
         }
         assertThat(j.get("taps").size()).isEqualTo(6);
@@ -39,6 +40,11 @@ class LinkCommandTest {
         assertThat(c).isBetween(0.0, 1.0);
         assertThat(j.get("mutual_information_bits").asDouble()).isLessThanOrEqualTo(c + 1e-12);
         assertThat(j.get("rate_bits_per_s").asDouble()).isCloseTo(c / 0.5, Offset.offset(1e-12));
+        // the minimum over thresholds is at most the error at the operating threshold (definition of a minimum)
+        assertThat(j.get("error_probability").asDouble())
+                .isGreaterThanOrEqualTo(j.get("min_error_probability").asDouble());
+        assertThat(Math.pow(10, j.get("log10_error_probability_at_threshold").asDouble()))
+                .isCloseTo(j.get("error_probability").asDouble(), Offset.offset(1e-12));
         assertThat(r.err()).isEmpty();
     }
 
@@ -55,8 +61,27 @@ class LinkCommandTest {
             assertThat(j.get("input_distribution").size()).isEqualTo(levels);
             double cap = j.get("capacity_bits").asDouble();
             assertThat(cap).isLessThanOrEqualTo(Math.log(levels) / Math.log(2) + 1e-12);
-            assertThat(j.get("soft_capacity_bits").asDouble()).isGreaterThanOrEqualTo(cap - 1e-9);
+            // hard decisions at uniform inputs carry at most what the unquantised counts carry there
+            // (data-processing inequality, Cover and Thomas 2006, Theorem 2.8.1)
+            assertThat(j.get("soft_capacity_bits").asDouble())
+                    .isGreaterThanOrEqualTo(j.get("mutual_information_bits").asDouble() - 1e-9);
+            assertThat(cap).isGreaterThanOrEqualTo(j.get("mutual_information_bits").asDouble());
         }
+    }
+
+    @Test
+    void maxErrorFlagsATargetThatACountBlindDetectorMeets() throws Exception {
+        String[] args = Arrays.copyOf(EXAMPLE, EXAMPLE.length + 4);
+        System.arraycopy(new String[] {"--prior-one", "0.05", "--max-error", "0.06"}, 0, args, EXAMPLE.length, 4);
+        JsonNode j = new ObjectMapper().readTree(run(args).out());
+        // always deciding "0" errs with probability prior_one = 0.05 <= 0.06 (definition)
+        assertThat(j.get("count_blind_meets_error_target").asBoolean()).isTrue();
+        assertThat(j.get("count_blind_error_probability").asDouble()).isEqualTo(0.05);
+        CliRun text = run(Arrays.stream(args).filter(a -> !a.equals("--json")).toArray(String[]::new));
+        assertThat(text.out()).contains("ignores the count");
+        args[args.length - 1] = "0.04";
+        j = new ObjectMapper().readTree(run(args).out());
+        assertThat(j.get("count_blind_meets_error_target").asBoolean()).isFalse();
     }
 
     @Test
@@ -105,6 +130,7 @@ class LinkCommandTest {
         "--distance-um 10 --radius-um 1 --symbol-time-s 1 --molecules 10 | --diffusion-um2-per-s",
         "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 --half-life-s -3 | --half-life-s",
         "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 --plot x.gif | --plot",
+        "--distance-um 10 --radius-um 1 --diffusion-um2-per-s 100 --symbol-time-s 1 --molecules 10 --max-error 1.5 | --max-error",
     })
     void badInputIsOneLineNamingTheOption(String args, String option) {
         String[] a = ("link " + args).trim().split("\\s+");
