@@ -383,7 +383,7 @@ public final class MainView {
             var sh = vm.sharedRate(r);
             if (sh != null && sh.limitedAt() != null && sh.sharedWith() > 1) {
                 sb.append("\nShared: ").append(Formats.sig(sh.rateBitsPerS())).append(" bit/s, because ")
-                        .append(sh.limitedAt()).append("'s stream carries ").append(sh.sharedWith())
+                        .append(sh.limitedAt()).append("'s slots carry ").append(sh.sharedWith())
                         .append(" demands (max-min fair time-sharing).");
             }
             return sb.toString();
