@@ -39,14 +39,15 @@ import java.util.function.DoubleConsumer;
  * deliver less) — or, when no rate target is set, they are not sized; the budget is flagged
  * ({@link BudgetReport#countBlindTarget()}) and {@link #warnings} says so.
  *
- * <p><b>Search per hop</b> (everything else fixed). (1) The scenario's model at the file N, the value
- * of the link table. (2) An estimate with the what-if model ({@link LinkContext#whatIfModel()}: the
- * moment-matched Gaussian instead of exact convolution): doubling from 1, then bisection to 1 %; if it
- * misses even at 2^20 molecules (about 1.05e6, already a large release for one machine) and the file
- * N misses too, the hop is out of reach and the reason gives that floor and what sets it (own ISI,
- * crosstalk of the others at their file budgets, background: the floor without each). (3) With the
- * scenario's model, from the estimate up in growing steps until the target is met and down until it
- * is missed, then bisection on integers until N meets and N − 1 misses.
+ * <p><b>Search per hop</b> (everything else fixed; every decision with the scenario's count model).
+ * (1) The file N, the value of the link table. If it misses, 2^20 molecules (about 1.05e6, already a
+ * large release for one machine): if that misses too, the hop is out of reach and the reason gives
+ * that floor and what sets it (the floor without own ISI, without the crosstalk of the others at
+ * their file budgets, without background). (2) Only when the scenario asks for the exact model: an
+ * estimate with the what-if model ({@link LinkContext#whatIfModel()}, the moment-matched Gaussian,
+ * much cheaper than exact convolution), doubling from 1, then bisection to 1 %. (3) From the estimate
+ * (else the file N) up in growing steps until the target is met and down until it is missed, then
+ * bisection on integers until N meets and N − 1 misses.
  *
  * <p><b>Monotonicity.</b> The bisection assumes the criterion is monotone in N (error non-increasing,
  * information non-decreasing) with the rest fixed. More own molecules raise the current symbol's
@@ -61,7 +62,8 @@ import java.util.function.DoubleConsumer;
  * route still releases its configured N (it is an interferer): its needed N is reported as 0 and its
  * rate at the configured N.
  *
- * <p>Cost per hop: about 25 what-if evaluations and 10 to 15 with the scenario's model.
+ * <p>Cost per hop: about 25 what-if evaluations (exact model only) and 10 to 25 with the scenario's
+ * model, four more at 2^20 molecules for a hop out of reach.
  */
 final class MoleculeBudgets {
 
@@ -230,8 +232,10 @@ final class MoleculeBudgets {
             return error ? "min error" : "rate";
         }
 
+        /** Six significant digits: the values at N and N − 1 differ in the last few. */
         String describe(double v) {
-            return error ? String.format(Locale.ROOT, "%.3g", v) : String.format(Locale.ROOT, "%.3g bit/s", v);
+            String n = v == 0 ? "0" : String.format(Locale.ROOT, "%.6g", v);
+            return error ? n : n + " bit/s";
         }
 
         String targetText() {
@@ -264,10 +268,12 @@ final class MoleculeBudgets {
         long estimate = hi > 0 ? hi : lo + 1;
         boolean sameModel = ctx.whatIfModel() == ctx.signalling().countModel();
         if (hi < 0) {
-            LinkEvaluation atCap = ctx.withMolecules(MAX_MOLECULES);
+            // the file N misses: settle a floor of the node's own budget, with the scenario's model
+            LinkEvaluation atCap = exact.apply(MAX_MOLECULES);
             if (!c.meets(atCap)) {
                 return new HopBudget(-1, floorReason(ctx, c, atCap));
             }
+            estimate = lo + 1;
         }
         if (!sameModel) {
             estimate = whatIfEstimate(ctx, c, levels - 1);
@@ -282,13 +288,8 @@ final class MoleculeBudgets {
         long step = Math.max(1, lo / 10);
         while (hi < 0) {
             long next = lo + step;
-            if (next > MAX_MOLECULES) {
-                LinkEvaluation atCap = exact.apply(MAX_MOLECULES);
-                if (!c.meets(atCap)) {
-                    return new HopBudget(-1, floorReason(ctx, c, atCap) + " (scenario's count model)");
-                }
-                next = MAX_MOLECULES;
-            }
+            // the cap is known to meet
+            next = Math.min(next, MAX_MOLECULES);
             if (c.meets(exact.apply(next))) {
                 hi = next;
             } else {
@@ -352,22 +353,22 @@ final class MoleculeBudgets {
 
     /**
      * Why the node's own budget cannot reach the target on this hop: the value at 2^20 molecules (the
-     * others at their file budgets) and the same without each impairment, what-if model.
+     * others at their file budgets) and the same without each impairment, with the scenario's model.
      */
     private static String floorReason(LinkContext ctx, Criterion c, LinkEvaluation atCap) {
         double bg = ctx.scenario.medium().backgroundMoleculesPerS();
         double[] taps = ctx.entry.taps();
         List<String> without = new ArrayList<>();
         if (!ctx.interferers.isEmpty()) {
-            without.add("crosstalk " + c.describe(c.value(ctx.whatIf(taps, MAX_MOLECULES, ctx.symbolTimeS(), bg,
+            without.add("crosstalk " + c.describe(c.value(ctx.evaluate(taps, MAX_MOLECULES, ctx.symbolTimeS(), bg,
                     List.<Crosstalk.Interferer>of()))));
         }
         if (taps.length > 1) {
-            without.add("own ISI " + c.describe(c.value(ctx.whatIf(new double[] {taps[0]}, MAX_MOLECULES,
+            without.add("own ISI " + c.describe(c.value(ctx.evaluate(new double[] {taps[0]}, MAX_MOLECULES,
                     ctx.symbolTimeS(), bg, ctx.interferers))));
         }
         if (bg > 0) {
-            without.add("background " + c.describe(c.value(ctx.whatIf(taps, MAX_MOLECULES, ctx.symbolTimeS(), 0,
+            without.add("background " + c.describe(c.value(ctx.evaluate(taps, MAX_MOLECULES, ctx.symbolTimeS(), 0,
                     ctx.interferers))));
         }
         return String.format(Locale.ROOT, "this node's own budget cannot reach the %s: at 2^20 molecules (others at "
