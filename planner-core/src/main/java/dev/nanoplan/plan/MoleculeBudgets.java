@@ -358,21 +358,28 @@ final class MoleculeBudgets {
     private static String floorReason(LinkContext ctx, Criterion c, LinkEvaluation atCap) {
         double bg = ctx.scenario.medium().backgroundMoleculesPerS();
         double[] taps = ctx.entry.taps();
-        List<String> without = new ArrayList<>();
+        double t = ctx.symbolTimeS();
+        Map<String, LinkEvaluation> without = new LinkedHashMap<>();
         if (!ctx.interferers.isEmpty()) {
-            without.add("crosstalk " + c.describe(c.value(ctx.evaluate(taps, MAX_MOLECULES, ctx.symbolTimeS(), bg,
-                    List.<Crosstalk.Interferer>of()))));
+            without.put("crosstalk", ctx.evaluate(taps, MAX_MOLECULES, t, bg, List.<Crosstalk.Interferer>of()));
         }
         if (taps.length > 1) {
-            without.add("own ISI " + c.describe(c.value(ctx.evaluate(new double[] {taps[0]}, MAX_MOLECULES,
-                    ctx.symbolTimeS(), bg, ctx.interferers))));
+            without.put("own ISI", ctx.evaluate(new double[] {taps[0]}, MAX_MOLECULES, t, bg, ctx.interferers));
         }
         if (bg > 0) {
-            without.add("background " + c.describe(c.value(ctx.evaluate(taps, MAX_MOLECULES, ctx.symbolTimeS(), 0,
-                    ctx.interferers))));
+            without.put("background", ctx.evaluate(taps, MAX_MOLECULES, t, 0, ctx.interferers));
+        }
+        List<String> parts = new ArrayList<>();
+        String setBy = null;
+        for (Map.Entry<String, LinkEvaluation> w : without.entrySet()) {
+            parts.add("without " + w.getKey() + " " + c.describe(c.value(w.getValue())));
+            if (c.meets(w.getValue())) {
+                setBy = setBy == null ? w.getKey() : setBy + " or " + w.getKey();
+            }
         }
         return String.format(Locale.ROOT, "this node's own budget cannot reach the %s: at 2^20 molecules (others at "
-                + "their file budgets) the %s is %s%s", c.targetText(), c.name(), c.describe(c.value(atCap)),
-                without.isEmpty() ? "" : "; without " + String.join(", without ", without));
+                + "their file budgets) the %s is %s%s%s", c.targetText(), c.name(), c.describe(c.value(atCap)),
+                parts.isEmpty() ? "" : " (" + String.join(", ", parts) + ")",
+                setBy == null ? "" : "; removing " + setBy + " would meet it");
     }
 }
