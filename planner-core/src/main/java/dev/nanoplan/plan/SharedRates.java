@@ -91,9 +91,11 @@ public final class SharedRates {
         List<Share> out = new ArrayList<>(routes.size());
         for (int f = 0; f < routes.size(); f++) {
             int e = limit[f];
-            // a demand that gets its alone rate is limited by its own route, not by sharing
-            boolean alone = e < 0 || rates[f] >= routes.get(f).rateBitsPerS() * (1 - 1e-9);
-            out.add(new Share(rates[f], alone ? null : names[e], alone ? 1 : count[e]));
+            // a demand that gets its alone rate is limited by its own route, not by sharing (the rate is then
+            // the route's own, without the rounding of 1/(1/r))
+            double own = routes.get(f).rateBitsPerS();
+            boolean alone = e < 0 || rates[f] >= own * (1 - 1e-9);
+            out.add(alone ? new Share(e < 0 ? rates[f] : own, null, 1) : new Share(rates[f], names[e], count[e]));
         }
         return out;
     }
