@@ -36,7 +36,9 @@ import java.util.function.DoubleConsumer;
  * at any N, so it cannot size a budget: the budgets are then sized for {@code targets.min_rate_bits_per_s}
  * instead — each hop's mutual information at the operating prior per symbol period (bits per K·T for a
  * frame of K slots) must reach that rate, a necessary condition (the route's cascade and shared rates
- * deliver less) — or, when no rate target is set, they are not sized; the budget is flagged
+ * deliver less; no N reaches a rate above the input entropy H(w) per symbol period, I(X;Y) ≤ H(X),
+ * C. E. Shannon, "A mathematical theory of communication", 1948) — or, when no rate target is set,
+ * they are not sized; the budget is flagged
  * ({@link BudgetReport#countBlindTarget()}) and {@link #warnings} says so.
  *
  * <p><b>Search per hop</b> (everything else fixed; every decision with the scenario's count model).
@@ -251,6 +253,19 @@ final class MoleculeBudgets {
 
     /** The search of one hop (see the class comment). */
     static HopBudget hop(LinkContext ctx, Criterion c) {
+        if (!c.error()) {
+            // at the operating prior no N carries more than the input entropy H(w) bits per symbol
+            double periodS = ctx.symbolTimeS() * ctx.frameSlots;
+            double entropyBits = 0;
+            for (double w : LinkContext.weights(ctx.signalling())) {
+                entropyBits -= w > 0 ? w * Math.log(w) / Math.log(2) : 0;
+            }
+            if (c.target() * periodS > entropyBits) {
+                return new HopBudget(-1, String.format(Locale.ROOT, "no budget reaches the %s: it needs %.4g bit per "
+                        + "symbol (%.3g s), above the %.4g bit the input entropy at the file's prior allows at any N",
+                        c.targetText(), c.target() * periodS, periodS, entropyBits));
+            }
+        }
         Map<Long, LinkEvaluation> memo = new HashMap<>();
         java.util.function.LongFunction<LinkEvaluation> exact = n -> memo.computeIfAbsent(n, ctx::withMoleculesExact);
         int levels = ctx.signalling().levels();

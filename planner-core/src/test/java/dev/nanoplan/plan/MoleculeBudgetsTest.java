@@ -89,7 +89,7 @@ class MoleculeBudgetsTest {
      * Count-blind error target: with prior 1/2, deciding without counting errs with 1/2, so a target of
      * 0.5 is met at any N. The budgets are then sized for the rate target: each hop's mutual information
      * at the operating prior per symbol time meets 0.1 bit/s at N and misses it at N − 1, recomputed
-     * independently; without a rate target they are not sized.
+     * independently; without a rate target they are not sized; above the input entropy they are out of reach.
      */
     @Test
     void countBlindTargetIsFlaggedAndBudgetsAreSizedForTheRate() throws Exception {
@@ -108,6 +108,14 @@ class MoleculeBudgetsTest {
             assertThat(b.countBlindTarget()).isTrue();
             assertThat(b.moleculesPerSymbolNeeded()).isEqualTo(-1);
             assertThat(b.reason()).startsWith("not sized");
+        }
+        // at prior 1/2 no N carries more than H(1/2) = 1 bit per symbol (Shannon, 1948: I(X;Y) ≤ H(X)), so 0.25 bit/s
+        // over T = 5 s (1.25 bit per symbol) is out of reach for every node, whatever its N
+        Plan tooFast = NetworkPlanner.plan(withTargets(file, new Targets(0.5, 0.25, 3600)), PlanOptions.DEFAULT);
+        assertThat(file.signalling().symbolTimeS()).isEqualTo(5.0);
+        for (BudgetReport b : tooFast.budgets()) {
+            assertThat(b.feasible()).isFalse();
+            assertThat(b.reason()).contains("input entropy");
         }
         // below min(q, 1 − q) = 0.5 the target is not count-blind
         assertThat(MoleculeBudgets.countBlind(withTargets(file, new Targets(0.49, 0, 3600)))).isFalse();
