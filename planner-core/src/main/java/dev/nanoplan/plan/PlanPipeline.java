@@ -131,6 +131,7 @@ final class PlanPipeline {
         progress.accept(0.9);
         List<BudgetReport> budgets = evaluator.budgets(in, routeHops, f -> progress.accept(0.9 + 0.1 * f));
         progress.accept(1.0);
+        warnings.addAll(MoleculeBudgets.warnings(scenario));
         Plan plan = new Plan(scenario, channel.source(), linkReports, routes, budgets, warnings);
         List<String> shared = SharedRates.warnings(plan);
         if (shared.isEmpty()) {

@@ -232,7 +232,7 @@ public final class PlanHtml {
             boolean slowShared = r.reachable() && sh.rateBitsPerS() < target;
             h.append("<td class=\"n").append(slowShared ? " bad" : "").append("\"");
             if (sh.limitedAt() != null && sh.sharedWith() > 1) {
-                h.append(" title=\"").append(esc(sh.limitedAt() + "'s stream carries " + sh.sharedWith() + " demands"))
+                h.append(" title=\"").append(esc(sh.limitedAt() + "'s slots carry " + sh.sharedWith() + " demands"))
                         .append("\"");
             }
             h.append(">").append(r.reachable() ? esc(Numbers.quantity(sh.rateBitsPerS())) : "0").append("</td>");

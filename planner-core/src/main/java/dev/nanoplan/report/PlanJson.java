@@ -138,6 +138,8 @@ public final class PlanJson {
         number(o, "molecules_per_mission", b.moleculesPerMission());
         o.put("feasible", b.feasible());
         text(o, "reason", b.reason());
+        o.put("method", b.method());
+        o.put("count_blind_target", b.countBlindTarget());
         return o;
     }
 

@@ -72,11 +72,11 @@ public final class PlanText {
                             : ", direct " + Numbers.bits(r.directCapacityBits()) + " bit",
                     r.advice()));
             if (sh.limitedAt() != null && sh.sharedWith() > 1) {
-                sb.append(String.format(Locale.ROOT, "      shared: %s bit/s (%s's stream carries %d demands)%n",
+                sb.append(String.format(Locale.ROOT, "      shared: %s bit/s (%s's slots carry %d demands)%n",
                         Numbers.quantity(sh.rateBitsPerS()), sh.limitedAt(), sh.sharedWith()));
             }
         }
-        sb.append("\nBudgets\n");
+        sb.append("\nBudgets (method independent: each node alone, every other emitter at its file budget)\n");
         sb.append(String.format(Locale.ROOT, "%-12s %14s %14s %16s %-8s %s%n", "node", "N needed", "molecules/s",
                 "per mission", "feasible", "reason"));
         for (BudgetReport b : plan.budgets()) {

@@ -7,10 +7,21 @@ import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioReader;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.LongStream;
+import org.apache.commons.math3.optim.MaxIter;
+import org.apache.commons.math3.optim.PointValuePair;
+import org.apache.commons.math3.optim.linear.LinearConstraint;
+import org.apache.commons.math3.optim.linear.LinearConstraintSet;
+import org.apache.commons.math3.optim.linear.LinearObjectiveFunction;
+import org.apache.commons.math3.optim.linear.NonNegativeConstraint;
+import org.apache.commons.math3.optim.linear.Relationship;
+import org.apache.commons.math3.optim.linear.SimplexSolver;
+import org.apache.commons.math3.optim.nonlinear.scalar.GoalType;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
 import org.junit.jupiter.api.Test;
@@ -20,42 +31,64 @@ import org.junit.jupiter.params.provider.MethodSource;
 class SharedRatesTest {
 
     @Test
-    void twoFlowsThroughOneRelaySplitItsStream() {
-        // derived by hand: equal shares of a stream of 1 bit/s, the route ceilings (5) never bind
-        int[] limit = new int[2];
-        double[] r = SharedRates.maxMinFair(new double[] {5, 5}, new double[] {1}, new int[][] {{0}, {0}}, limit);
-        assertThat(r).containsExactly(new double[] {0.5, 0.5}, within(1e-15));
-        assertThat(limit).containsExactly(0, 0);
+    void fiveDemandsThroughOneRelayGetTheHarmonicShareOfItsSlots() {
+        // derived by hand: demands with alone-rates r = 1, 0.5, 0.25, 0.5, 1 bit/s all pass relay 0 and each its
+        // own sensor (resources 1..5). Demand i takes x/r_i of the relay's slots, so Σ x/r_i = 10·x ≤ 1 gives
+        // x = 1/Σ(1/r_i) = 0.1 bit/s each; a sensor's own slots only bound x ≤ r_i ≥ 0.25, never binding.
+        double[] r = {1, 0.5, 0.25, 0.5, 1};
+        double[][] w = new double[5][];
+        int[][] uses = new int[5][];
+        for (int i = 0; i < 5; i++) {
+            uses[i] = new int[] {1 + i, 0};
+            w[i] = new double[] {1 / r[i], 1 / r[i]};
+        }
+        double[] cap = new double[6];
+        Arrays.fill(cap, 1);
+        int[] limit = new int[5];
+        double[] x = SharedRates.maxMinFair(w, uses, cap, limit);
+        assertThat(x).containsExactly(new double[] {0.1, 0.1, 0.1, 0.1, 0.1}, within(1e-15));
+        assertThat(limit).containsOnly(0);
     }
 
     @Test
-    void aSlowFlowLeavesTheRestToTheOther() {
-        // derived by hand: flow 0 stops at its own ceiling 0.2, flow 1 takes the remaining 0.8
+    void aDemandAloneOnItsRouteGetsItsOwnRate() {
+        // derived by hand: one demand of alone-rate 0.7 bit/s through two emitters: x/0.7 ≤ 1 at both, so x = 0.7
+        int[] limit = new int[1];
+        double[] x = SharedRates.maxMinFair(new double[][] {{1 / 0.7, 1 / 0.7}}, new int[][] {{0, 1}},
+                new double[] {1, 1}, limit);
+        assertThat(x[0]).isCloseTo(0.7, within(1e-15));
+    }
+
+    @Test
+    void theSlowerEmitterFreezesItsDemandsFirst() {
+        // derived by hand: demand A (r = 1) uses emitter X, B (r = 1) uses X and Y, C (r = 0.5) uses Y.
+        // Growing together at t: X binds at t + t = 1 (t = 1/2), Y at t/1 + t/0.5 = 3t = 1 (t = 1/3): Y first,
+        // B = C = 1/3. Then A alone on X: x_A + 1/3 = 1, x_A = 2/3. Bottlenecks (Bertsekas and Gallager, Data
+        // Networks, 1992, §6.5.2): A's is X (saturated, A fastest there), B's and C's is Y (saturated, 1/3 = max).
+        int[] limit = new int[3];
+        double[] x = SharedRates.maxMinFair(new double[][] {{1}, {1, 1}, {2}}, new int[][] {{0}, {0, 1}, {1}},
+                new double[] {1, 1}, limit);
+        assertThat(x).containsExactly(new double[] {2.0 / 3, 1.0 / 3, 1.0 / 3}, within(1e-15));
+        assertThat(limit).containsExactly(0, 1, 1);
+    }
+
+    @Test
+    void aDemandWithoutRouteGetsNothing() {
+        // from the definition: a flow through no resource has rate 0 (unreachable demand)
         int[] limit = new int[2];
-        double[] r = SharedRates.maxMinFair(new double[] {0.2, 5}, new double[] {1}, new int[][] {{0}, {0}}, limit);
-        assertThat(r).containsExactly(new double[] {0.2, 0.8}, within(1e-15));
+        double[] x = SharedRates.maxMinFair(new double[][] {{}, {2}}, new int[][] {{}, {0}}, new double[] {1}, limit);
+        assertThat(x).containsExactly(0, 0.5);
         assertThat(limit).containsExactly(-1, 0);
     }
 
-    @Test
-    void chainOfResources() {
-        // derived by hand (the classic line network of Bertsekas and Gallager, Data Networks, 1992, §6.5.2):
-        // flow 0 crosses both resources (capacity 1 and 2), flow 1 only the first, flows 2 and 3 only the second.
-        // Resource 0 saturates first at 1/2 each; flows 2 and 3 then share 2 − 1/2 = 3/2.
-        int[] limit = new int[4];
-        double[] r = SharedRates.maxMinFair(new double[] {9, 9, 9, 9}, new double[] {1, 2},
-                new int[][] {{0, 1}, {0}, {1}, {1}}, limit);
-        assertThat(r).containsExactly(new double[] {0.5, 0.5, 0.75, 0.75}, within(1e-15));
-        assertThat(limit).containsExactly(0, 0, 1, 1);
-    }
-
     /**
-     * The bundled culture tank sends 14 sensors' reports to one gateway through two relays, so the
-     * relays' streams are shared: checked against the definition of a feasible allocation
-     * (Bertsekas and Gallager 1992, §6.5.2) on the real plan.
+     * The bundled culture tank sends five sensors through relay-w and five through relay-e to one
+     * gateway: with symbol forwarding, when a relay's slots are the only bottleneck every demand through
+     * it gets 1/Σ(1/r_i) of the route rates r_i (the worked example above, derived by hand); s11..s14
+     * send directly, alone on their emitters, and keep their route rates.
      */
     @Test
-    void cultureTankRelaysAreShared() throws Exception {
+    void cultureTankRelaysAreTimeShared() throws Exception {
         Path dir = Path.of("").toAbsolutePath();
         while (!Files.isDirectory(dir.resolve("scenarios"))) {
             dir = dir.getParent();
@@ -64,34 +97,38 @@ class SharedRatesTest {
         Plan plan = NetworkPlanner.plan(s, PlanOptions.DEFAULT);
         List<SharedRates.Share> shares = SharedRates.of(plan);
         assertThat(shares).hasSize(plan.routes().size());
-        Map<String, Double> load = new HashMap<>();
-        Map<String, Double> stream = new HashMap<>();
-        boolean anyShared = false;
-        for (int i = 0; i < shares.size(); i++) {
-            RouteReport r = plan.routes().get(i);
-            SharedRates.Share sh = shares.get(i);
-            assertThat(sh.rateBitsPerS()).isLessThanOrEqualTo(r.rateBitsPerS());
-            anyShared |= sh.rateBitsPerS() < r.rateBitsPerS() * 0.99 && sh.sharedWith() > 1;
-            for (int h = 0; h + 1 < r.hops().size(); h++) {
-                String from = r.hops().get(h);
-                String to = r.hops().get(h + 1);
-                double rate = plan.links().stream().filter(l -> l.from().equals(from) && l.to().equals(to))
-                        .findFirst().orElseThrow().rateBitsPerS();
-                load.merge(from, sh.rateBitsPerS(), Double::sum);
-                stream.merge(from, rate, Math::min);
+        Map<String, Double> inverseSum = new HashMap<>();
+        for (RouteReport r : plan.routes()) {
+            if (r.hops().size() == 3) {
+                inverseSum.merge(r.hops().get(1), 1 / r.rateBitsPerS(), Double::sum);
             }
         }
-        load.forEach((e, l) -> assertThat(l).as("load on %s", e).isLessThanOrEqualTo(stream.get(e) * (1 + 1e-9)));
-        assertThat(anyShared).isTrue();
-        // the file asks 0.3 bit/s per demand: every demand through a relay that meets it alone but not shared is
-        // named in one warning per relay
+        assertThat(inverseSum).containsOnlyKeys("relay-w", "relay-e");
+        for (int i = 0; i < shares.size(); i++) {
+            RouteReport r = plan.routes().get(i);
+            SharedRates.Share sh = shares.get(i);
+            if (r.hops().size() == 3) {
+                String relay = r.hops().get(1);
+                // the worked example's formula 1/Σ(1/r_i) over the relay's five demands
+                assertThat(sh.rateBitsPerS()).as(r.from()).isCloseTo(1 / inverseSum.get(relay), within(1e-12));
+                assertThat(sh.limitedAt()).isEqualTo(relay);
+                assertThat(sh.sharedWith()).isEqualTo(5);
+            } else {
+                // alone on its emitter: its own route rate
+                assertThat(sh.rateBitsPerS()).as(r.from()).isCloseTo(r.rateBitsPerS(), within(1e-12));
+                assertThat(sh.limitedAt()).isNull();
+            }
+        }
+        // the file asks 0.3 bit/s per demand: every demand that meets it alone but not shared is named in one
+        // warning per relay
+        double target = s.targets().minRateBitsPerS();
         for (int i = 0; i < shares.size(); i++) {
             SharedRates.Share sh = shares.get(i);
             RouteReport r = plan.routes().get(i);
-            boolean starved = sh.limitedAt() != null && sh.rateBitsPerS() < 0.3 && r.rateBitsPerS() >= 0.3;
+            boolean starved = sh.limitedAt() != null && sh.rateBitsPerS() < target && r.rateBitsPerS() >= target;
             String demand = r.from() + " -> " + r.to();
-            assertThat(plan.warnings().stream().anyMatch(w -> w.startsWith(sh.limitedAt() + "'s stream carries")
-                    && w.contains(demand + ",") || w.contains(demand + " get"))).as(demand).isEqualTo(starved);
+            assertThat(plan.warnings().stream().anyMatch(w -> w.startsWith(sh.limitedAt() + "'s slots carry")
+                    && (w.contains(demand + ",") || w.contains(demand + " get")))).as(demand).isEqualTo(starved);
         }
     }
 
@@ -99,70 +136,188 @@ class SharedRatesTest {
         return LongStream.range(0, 200);
     }
 
+    /** A random instance: flows through random subsets of resources with positive weights. */
+    record Instance(double[][] weight, int[][] uses, double[] capacity) {
+
+        static Instance random(long seed) {
+            UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+            int flows = 1 + rng.nextInt(8);
+            int resources = 1 + rng.nextInt(6);
+            double[] cap = new double[resources];
+            for (int e = 0; e < resources; e++) {
+                cap[e] = 0.1 + 10 * rng.nextDouble();
+            }
+            double[][] w = new double[flows][];
+            int[][] uses = new int[flows][];
+            for (int f = 0; f < flows; f++) {
+                int k = rng.nextInt(6) == 0 ? 0 : 1 + rng.nextInt(resources);
+                int[] order = new int[resources];
+                for (int e = 0; e < resources; e++) {
+                    order[e] = e;
+                }
+                for (int e = resources - 1; e > 0; e--) {
+                    int j = rng.nextInt(e + 1);
+                    int t = order[e];
+                    order[e] = order[j];
+                    order[j] = t;
+                }
+                uses[f] = Arrays.copyOf(order, k);
+                w[f] = new double[k];
+                for (int h = 0; h < k; h++) {
+                    w[f][h] = 0.1 + 10 * rng.nextDouble();
+                }
+            }
+            return new Instance(w, uses, cap);
+        }
+
+        double[] load(double[] x) {
+            double[] load = new double[capacity.length];
+            for (int f = 0; f < uses.length; f++) {
+                for (int h = 0; h < uses[f].length; h++) {
+                    load[uses[f][h]] += weight[f][h] * x[f];
+                }
+            }
+            return load;
+        }
+    }
+
     /**
      * Bertsekas and Gallager, Data Networks, 2nd ed., 1992, §6.5.2: a feasible allocation is max-min
      * fair iff every flow has a bottleneck — a saturated resource on its path where no other flow is
-     * faster. A flow's own ceiling is a private resource here.
+     * faster (the proof carries over to positive weights in the resource constraints).
      */
     @ParameterizedTest
     @MethodSource("seeds")
     void everyFlowHasABottleneck(long seed) {
-        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
-        int flows = 1 + rng.nextInt(8);
-        int resources = 1 + rng.nextInt(6);
-        double[] cap = new double[resources];
-        for (int e = 0; e < resources; e++) {
-            cap[e] = 0.01 + 10 * rng.nextDouble();
-        }
-        double[] own = new double[flows];
-        int[][] uses = new int[flows][];
-        for (int f = 0; f < flows; f++) {
-            own[f] = rng.nextInt(4) == 0 ? 0 : 0.01 + 10 * rng.nextDouble();
-            int[] perm = rng.ints(0, 1 << 20).limit(resources).toArray();
-            int k = 1 + rng.nextInt(resources);
-            Integer[] order = new Integer[resources];
-            for (int e = 0; e < resources; e++) {
-                order[e] = e;
-            }
-            java.util.Arrays.sort(order, (a, b) -> Integer.compare(perm[a], perm[b]));
-            uses[f] = new int[k];
-            for (int i = 0; i < k; i++) {
-                uses[f][i] = order[i];
-            }
-        }
+        Instance in = Instance.random(seed);
+        int flows = in.uses().length;
         int[] limit = new int[flows];
-        double[] r = SharedRates.maxMinFair(own, cap, uses, limit);
-        double[] load = new double[resources];
-        for (int f = 0; f < flows; f++) {
-            assertThat(r[f]).isBetween(0.0, own[f] * (1 + 1e-12));
-            for (int e : uses[f]) {
-                load[e] += r[f];
-            }
-        }
-        for (int e = 0; e < resources; e++) {
-            assertThat(load[e]).isLessThanOrEqualTo(cap[e] * (1 + 1e-9));
+        double[] x = SharedRates.maxMinFair(in.weight(), in.uses(), in.capacity(), limit);
+        double[] load = in.load(x);
+        for (int e = 0; e < load.length; e++) {
+            assertThat(load[e]).isLessThanOrEqualTo(in.capacity()[e] * (1 + 1e-9));
         }
         for (int f = 0; f < flows; f++) {
-            if (own[f] == 0 || r[f] >= own[f] * (1 - 1e-9)) {
+            if (in.uses()[f].length == 0) {
+                assertThat(x[f]).isZero();
                 continue;
             }
             boolean bottleneck = false;
-            for (int e : uses[f]) {
-                if (load[e] < cap[e] * (1 - 1e-9)) {
+            for (int e : in.uses()[f]) {
+                if (load[e] < in.capacity()[e] * (1 - 1e-9)) {
                     continue;
                 }
                 boolean fastest = true;
                 for (int g = 0; g < flows; g++) {
-                    for (int x : uses[g]) {
-                        if (x == e && r[g] > r[f] * (1 + 1e-9)) {
+                    for (int y : in.uses()[g]) {
+                        if (y == e && x[g] > x[f] * (1 + 1e-9)) {
                             fastest = false;
                         }
                     }
                 }
                 bottleneck |= fastest;
             }
-            assertThat(bottleneck).as("flow %d (rate %s) has a bottleneck", f, r[f]).isTrue();
+            assertThat(bottleneck).as("flow %d (rate %s) has a bottleneck", f, x[f]).isTrue();
             assertThat(limit[f]).isGreaterThanOrEqualTo(0);
         }
+    }
+
+    /**
+     * Independent computation of the max-min fair allocation by linear programming (Commons Math3
+     * SimplexSolver): maximise the smallest free rate t; every free flow that cannot exceed t while the
+     * others keep at least t is fixed at t; repeat (the lexicographic max-min LP, Bertsekas and
+     * Gallager 1992, §6.5.2).
+     */
+    @ParameterizedTest
+    @MethodSource("seeds")
+    void progressiveFillingEqualsTheLexicographicLinearProgram(long seed) {
+        Instance in = Instance.random(seed);
+        int flows = in.uses().length;
+        double[] x = SharedRates.maxMinFair(in.weight(), in.uses(), in.capacity(), new int[flows]);
+        double[] lp = lexicographicMaxMin(in);
+        assertThat(x).containsExactly(lp, within(1e-7));
+    }
+
+    private static double[] lexicographicMaxMin(Instance in) {
+        int flows = in.uses().length;
+        double[] value = new double[flows];
+        boolean[] fixed = new boolean[flows];
+        for (int f = 0; f < flows; f++) {
+            fixed[f] = in.uses()[f].length == 0;
+        }
+        while (true) {
+            boolean anyFree = false;
+            for (boolean b : fixed) {
+                anyFree |= !b;
+            }
+            if (!anyFree) {
+                return value;
+            }
+            // variables x_0..x_{F-1}, t
+            List<LinearConstraint> base = resourceAndFixedConstraints(in, fixed, value, flows + 1);
+            List<LinearConstraint> withT = new ArrayList<>(base);
+            for (int f = 0; f < flows; f++) {
+                if (!fixed[f]) {
+                    double[] c = new double[flows + 1];
+                    c[f] = 1;
+                    c[flows] = -1;
+                    withT.add(new LinearConstraint(c, Relationship.GEQ, 0));
+                }
+            }
+            double[] obj = new double[flows + 1];
+            obj[flows] = 1;
+            double t = solve(obj, withT).getValue();
+            boolean progressed = false;
+            for (int g = 0; g < flows; g++) {
+                if (fixed[g]) {
+                    continue;
+                }
+                List<LinearConstraint> floor = new ArrayList<>(base);
+                for (int f = 0; f < flows; f++) {
+                    if (!fixed[f]) {
+                        double[] c = new double[flows + 1];
+                        c[f] = 1;
+                        floor.add(new LinearConstraint(c, Relationship.GEQ, t * (1 - 1e-10)));
+                    }
+                }
+                double[] og = new double[flows + 1];
+                og[g] = 1;
+                if (solve(og, floor).getValue() <= t * (1 + 1e-8) + 1e-12) {
+                    fixed[g] = true;
+                    value[g] = t;
+                    progressed = true;
+                }
+            }
+            assertThat(progressed).as("the LP fixes a flow every round").isTrue();
+        }
+    }
+
+    private static List<LinearConstraint> resourceAndFixedConstraints(Instance in, boolean[] fixed, double[] value,
+            int vars) {
+        List<LinearConstraint> out = new ArrayList<>();
+        for (int e = 0; e < in.capacity().length; e++) {
+            double[] c = new double[vars];
+            for (int f = 0; f < in.uses().length; f++) {
+                for (int h = 0; h < in.uses()[f].length; h++) {
+                    if (in.uses()[f][h] == e) {
+                        c[f] = in.weight()[f][h];
+                    }
+                }
+            }
+            out.add(new LinearConstraint(c, Relationship.LEQ, in.capacity()[e]));
+        }
+        for (int f = 0; f < in.uses().length; f++) {
+            if (fixed[f]) {
+                double[] c = new double[vars];
+                c[f] = 1;
+                out.add(new LinearConstraint(c, Relationship.EQ, value[f]));
+            }
+        }
+        return out;
+    }
+
+    private static PointValuePair solve(double[] objective, List<LinearConstraint> constraints) {
+        return new SimplexSolver().optimize(new MaxIter(10_000), new LinearObjectiveFunction(objective, 0),
+                new LinearConstraintSet(constraints), GoalType.MAXIMIZE, new NonNegativeConstraint(true));
     }
 }

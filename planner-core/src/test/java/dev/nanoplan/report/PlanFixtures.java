@@ -56,9 +56,10 @@ final class PlanFixtures {
                 new RouteReport(oddId, "relay", List.of(), 0, null, null, 0, 0, 0, null, null,
                         "no path: relay senses A, " + oddId + " emits B"));
         List<BudgetReport> budgets = List.of(
-                new BudgetReport("s1", 3100, 1550, 5.58e6, true, "route hop s1 → relay"),
-                new BudgetReport("relay", 9000, 9000, 3.24e7, true, "forwards s1, s2"),
-                new BudgetReport(oddId, -1, Double.NaN, Double.POSITIVE_INFINITY, false, "target out of reach"));
+                new BudgetReport("s1", 3100, 1550, 5.58e6, true, "route hop s1 → relay", "independent", false),
+                new BudgetReport("relay", 9000, 9000, 3.24e7, true, "forwards s1, s2", "independent", false),
+                new BudgetReport(oddId, -1, Double.NaN, Double.POSITIVE_INFINITY, false, "target out of reach", "independent",
+                        false));
         return new Plan(s, "analytic", links, routes, budgets,
                 List.of("walls ignored by the closed form", "node <" + oddId + "> is far"));
     }

@@ -77,10 +77,11 @@ class PlanJsonTest {
         assertThat(unreachable.get("hops").size()).isZero();
         assertThat(unreachable.get("bottleneck_link").isNull()).isTrue();
         assertThat(unreachable.get("reachable").asBoolean()).isFalse();
-        // derived by hand (max-min fair sharing, Bertsekas and Gallager, Data Networks, 1992, §6.5.2): s1 and s2
-        // both pass the relay, whose stream carries 0.97 bit/s; both route ceilings (0.80, 0.53) are above 0.97/2
+        // derived by hand (max-min fair time-share of the relay's slots, Bertsekas and Gallager, Data Networks,
+        // 1992, §6.5.2): s1 (alone 0.80 bit/s) and s2 (alone 0.53 bit/s) both pass the relay; x/0.80 + x/0.53 = 1
+        // gives x = 0.80·0.53/1.33 = 0.318797 bit/s each
         for (int i = 0; i < 2; i++) {
-            assertThat(routes.get(i).get("shared_rate_bits_per_s").asDouble()).isCloseTo(0.485, within(1e-12));
+            assertThat(routes.get(i).get("shared_rate_bits_per_s").asDouble()).isCloseTo(0.424 / 1.33, within(1e-12));
             assertThat(routes.get(i).get("shared_at").asText()).isEqualTo("relay");
             assertThat(routes.get(i).get("shared_with").asInt()).isEqualTo(2);
         }
@@ -97,7 +98,8 @@ class PlanJsonTest {
             // key list and types: docs/architecture.md §4.3, plan --json, budgets
             assertKeys(b, Map.of("node", JsonNodeType.STRING, "molecules_per_symbol_needed", JsonNodeType.NUMBER,
                     "molecules_per_s", JsonNodeType.NUMBER, "molecules_per_mission", JsonNodeType.NUMBER,
-                    "feasible", JsonNodeType.BOOLEAN, "reason", JsonNodeType.STRING));
+                    "feasible", JsonNodeType.BOOLEAN, "reason", JsonNodeType.STRING, "method", JsonNodeType.STRING,
+                    "count_blind_target", JsonNodeType.BOOLEAN));
         }
         assertThat(root.get("budgets").get(0).get("molecules_per_symbol_needed").asLong()).isEqualTo(3100);
         JsonNode bad = root.get("budgets").get(2);

@@ -43,7 +43,7 @@ final class RouteSummary {
                 .append(". ").append(r.advice() == null ? "" : r.advice());
         if (share != null && share.limitedAt() != null && share.sharedWith() > 1) {
             sb.append("\nShared: ").append(Formats.sig(share.rateBitsPerS())).append(" bit/s, because ")
-                    .append(share.limitedAt()).append("'s stream carries ").append(share.sharedWith())
+                    .append(share.limitedAt()).append("'s slots carry ").append(share.sharedWith())
                     .append(" demands (max-min fair time-sharing).");
         }
         return sb.toString();

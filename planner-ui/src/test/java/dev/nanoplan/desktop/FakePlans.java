@@ -37,7 +37,7 @@ final class FakePlans implements PlanService {
                     c / s.signalling().symbolTimeS(), s.signalling().symbolTimeS(), c, Impairment.SIGNAL, "move closer"));
         }
         List<BudgetReport> budgets = s.nodes().stream().filter(n -> n.role().emits())
-                .map(n -> new BudgetReport(n.id(), n.moleculesPerSymbol(), 1, 3600, true, "fake")).toList();
+                .map(n -> new BudgetReport(n.id(), n.moleculesPerSymbol(), 1, 3600, true, "fake", "independent", false)).toList();
         return new Plan(s, "analytic", links, routes, budgets, List.of());
     }
 }
