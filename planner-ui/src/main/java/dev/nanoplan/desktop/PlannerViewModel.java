@@ -36,8 +36,8 @@ import javafx.collections.ObservableList;
  *
  * <p>Progressive update: after each edit the service's fast preview is shown first with
  * {@link #previewShownProperty()} true; the exact plan then replaces it. A newer edit drops and
- * cancels both. Threading: all methods except {@link #planned()} and {@link #previewed()} are
- * called on the UI thread.
+ * cancels both. Threading: all methods are called on the UI thread (the futures of
+ * {@link PlanScheduler} may be waited on from any thread).
  */
 public final class PlannerViewModel {
 
