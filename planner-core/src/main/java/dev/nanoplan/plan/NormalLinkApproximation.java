@@ -431,21 +431,12 @@ public final class NormalLinkApproximation {
         double[] terms = new double[2 * n];
         double lnQ0 = Math.log1p(-q);
         double lnQ1 = Math.log(q);
-        double max = Double.NEGATIVE_INFINITY;
         for (int c = 0; c < n; c++) {
             double lw = Math.log(mix.weights[c]);
             terms[2 * c] = lnQ0 + lw + logUpperTail(m0 + mix.means[c], v0 + mix.variances[c], tau);
             terms[2 * c + 1] = lnQ1 + lw + logLowerTail(m1 + mix.means[c], v1 + mix.variances[c], tau);
-            max = Math.max(max, Math.max(terms[2 * c], terms[2 * c + 1]));
         }
-        if (max == Double.NEGATIVE_INFINITY) {
-            return max;
-        }
-        double sum = 0;
-        for (double t : terms) {
-            sum += Math.exp(t - max);
-        }
-        return max + Math.log(sum);
+        return LogSpace.logSumExp(terms);
     }
 
     /** Best integer thresholds of the capacity (maximised) and, optionally, of the error (minimised). */
