@@ -37,12 +37,13 @@ import java.util.List;
  * coordinate ascent and can stop at a local optimum, so it runs from two starts (uniform inputs,
  * and the capacity-achieving input of the unquantised count channel).
  *
- * <p><b>Global search with a certificate.</b> When M &gt; 2 and M²·K² ≤ 2^26 for K threshold
+ * <p><b>Global search with a certificate.</b> When M &gt; 2 and M²·K² ≤ 2^24 for K threshold
  * positions, the best of the two ascents seeds a branch and bound over every threshold set (see
  * {@code branchAndBound}): the result is then the maximum over all integer threshold sets of the
  * induced channel's capacity, up to {@link MultiLevelResult#certifiedGapBits()} (a proven bound,
- * 0 up to 1e-11 bit when the search completes; tested against exhaustive enumeration for 3 and 4
- * levels). Larger problems keep the ascent result, with the gap NaN (not certified).
+ * 0 up to 1e-11 bit when the search completes within its work budget, otherwise the bound of what
+ * was left; tested against exhaustive enumeration for 3 and 4 levels). Larger problems keep the
+ * ascent result, with the gap NaN (not certified).
  */
 public final class MultiLevelQuantizer {
 
@@ -176,9 +177,9 @@ public final class MultiLevelQuantizer {
     /** Slack of the branch and bound of the 3-level search, bits. */
     static final double PAIR_SLACK_BITS = 1e-11;
     /** Blahut–Arimoto iterations per visited pair of the 3-level search. */
-    static final int PAIR_ITERATIONS = 5000;
+    static final int PAIR_ITERATIONS = 2000;
     /** Largest M²·positions² for which the global search runs (its bound tables cost that much). */
-    static final double GLOBAL_SEARCH_WORK = 1 << 26;
+    static final double GLOBAL_SEARCH_WORK = 1 << 24;
 
     /** A result of coordinate ascent or of the global search. */
     private record Ascent(Cut cut, double[] pi, double capBits, int rounds, boolean exact, double gapBits) {
@@ -252,7 +253,8 @@ public final class MultiLevelQuantizer {
      * set below the prefix. Prefixes whose bound is within {@value #PAIR_SLACK_BITS} bit of the best
      * capacity found are pruned; at a full set Blahut–Arimoto runs, abandoned as soon as its own upper
      * bound (same theorem, current iterate) is within that slack, and stopped after
-     * {@value #PAIR_ITERATIONS} iterations. After {@value #NODE_BUDGET} nodes the search stops. The
+     * {@value #PAIR_ITERATIONS} iterations. After {@value #WORK_BUDGET} nodes and iterations together
+     * the search stops. The
      * certified gap is the largest bound left unexplored or of a visited set, minus the result: 0 up
      * to the slack when the search finished and every Blahut–Arimoto run settled.
      */
@@ -276,8 +278,11 @@ public final class MultiLevelQuantizer {
         return new Ascent(st.bestCut, st.bestPi, bits, start.rounds, true, gap);
     }
 
-    /** Largest number of branch-and-bound nodes visited. */
-    static final int NODE_BUDGET = 5_000_000;
+    /**
+     * Work budget of the branch and bound: nodes visited plus Blahut–Arimoto iterations at full
+     * threshold sets. When it runs out, the bounds of what is left go into the certified gap.
+     */
+    static final long WORK_BUDGET = 400_000;
 
     /** Mutable state of {@link #branchAndBound}. */
     private static final class Search {
@@ -286,7 +291,7 @@ public final class MultiLevelQuantizer {
         double[] bestPi;
         double upper;
         double left;
-        long nodes;
+        long work;
     }
 
     /** Chooses cut {@code j} (cells before it fixed, their divergence terms per row in {@code prefix}). */
@@ -306,7 +311,7 @@ public final class MultiLevelQuantizer {
             if (bound <= st.best + slack) {
                 continue;
             }
-            if (++st.nodes > NODE_BUDGET) {
+            if (++st.work > WORK_BUDGET) {
                 st.left = Math.max(st.left, bound);
                 continue;
             }
@@ -314,6 +319,7 @@ public final class MultiLevelQuantizer {
             if (j == m - 2) {
                 Cut cut = new Cut(cuts.clone(), 0, true);
                 BlahutArimoto.Result r = solver.compute(cut.channel(w), (st.best + slack) / LN2);
+                st.work += r.iterations();
                 st.upper = Math.max(st.upper, r.upperBoundBits());
                 if (r.capacityBits() * LN2 > st.best) {
                     st.best = r.capacityBits() * LN2;
