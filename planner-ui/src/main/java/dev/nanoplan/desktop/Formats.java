@@ -1,37 +1,29 @@
 package dev.nanoplan.desktop;
 
+import dev.nanoplan.report.Numbers;
 import java.util.Locale;
 
 /**
- * Every number the desktop shows is formatted here, so the window can follow one shared formatter
- * by changing this class alone. All formats use {@link Locale#ROOT} (a dot for decimals).
+ * Every number the desktop shows is formatted here; table values and error probabilities follow the
+ * shared {@link Numbers} format of the text and HTML reports. All formats use {@link Locale#ROOT} (a dot for decimals).
  */
 final class Formats {
 
     private Formats() {
     }
 
-    /** Three significant digits, scientific below 1e-3 and from 1e5; "—" for NaN. Table cells and messages. */
+    /**
+     * A table cell or message value: the shared {@link Numbers#quantity} format of the text and HTML
+     * reports (whole numbers as such, else 4 significant digits, scientific outside [1e-3, 1e4)),
+     * {@value Numbers#MISSING} for NaN.
+     */
     static String sig(double v) {
-        if (Double.isNaN(v)) {
-            return "—";
-        }
-        if (v == 0) {
-            return "0";
-        }
-        double a = Math.abs(v);
-        if (a >= 1e5 || a < 1e-3) {
-            return String.format(Locale.ROOT, "%.2e", v);
-        }
-        return String.format(Locale.ROOT, "%.3g", v);
+        return Numbers.quantity(v);
     }
 
-    /** An error probability, from its log10 when it underflows. */
+    /** An error probability in the shared {@link Numbers#errorProbability} format (from its log10 when it underflows). */
     static String error(double p, double log10) {
-        if (p > 0) {
-            return sig(p);
-        }
-        return Double.isFinite(log10) ? String.format(Locale.ROOT, "1e%.0f", log10) : "0";
+        return Numbers.errorProbability(p, log10);
     }
 
     /** Two significant digits: a rough size (work estimates). */

@@ -10,6 +10,7 @@ import dev.nanoplan.sim.ChannelCache;
 import dev.nanoplan.sim.LinkComparison;
 import dev.nanoplan.sim.ParticleSimulator;
 import dev.nanoplan.sim.SimulatedChannel;
+import dev.nanoplan.sim.SimulatedChannels;
 import dev.nanoplan.sim.SimulatedChannelMatrix;
 import dev.nanoplan.sim.SimulationComparison;
 import dev.nanoplan.sim.SimulationProgress;
@@ -68,28 +69,9 @@ final class SimulationRun {
      */
     Obtained obtain(ChannelCache cache, SimulationProgress progress) {
         ParticleSimulator simulator = new ParticleSimulator(settings);
-        String key = null;
-        if (cache != null) {
-            key = ChannelCache.key(scenario, settings.moleculesPerEmitter(), settings.seed(),
-                    simulator.timeStepS(scenario));
-            if (!ignoreCache) {
-                var cached = cache.load(scenario, key);
-                if (cached.isPresent()) {
-                    return new Obtained(cached.get(), "from cache");
-                }
-            }
-        }
-        SimulatedChannel channel = simulator.simulate(scenario, progress,
-                cancelled::get);
-        if (cache == null || !channel.complete() || cancelled.get()) {
-            return new Obtained(channel, "simulated");
-        }
-        try {
-            cache.store(key, channel);
-            return new Obtained(channel, ignoreCache ? "re-simulated, cache updated" : "simulated, cached");
-        } catch (IOException | RuntimeException e) {
-            return new Obtained(channel, "simulated (not cached: " + e.getMessage() + ")");
-        }
+        SimulatedChannels.Obtained o = SimulatedChannels.obtain(scenario, settings, cache, ignoreCache,
+                sc -> simulator.simulate(sc, progress, cancelled::get), cancelled::get, dt -> { });
+        return new Obtained(o.channel(), o.source());
     }
 
     /** The capacity of the link compared in {@code c} in plan {@code p}, or NaN when the plan lacks it. */
