@@ -38,8 +38,9 @@ import java.util.Set;
  * receivers within the cutoff of its old or new position; an edit of one species re-evaluates that
  * species' receivers; a change of the schedule (or symbol time, memory, prior, levels, count model)
  * all of them. The rest of the plan — link graph, routes, advice, budgets, shared rates, warnings —
- * is rebuilt from all receivers' links ({@link PlanPipeline#assemble}); for the exact plan the budgets'
- * searches are then most of a re-plan's cost.
+ * is rebuilt from all receivers' links ({@link PlanPipeline#assemble}), reusing the decode-and-forward
+ * cascade capacity of every route whose hop matrices are unchanged (a deterministic function of them);
+ * for the exact plan the advice and the budgets' searches are then most of a re-plan's cost.
  *
  * <p>A kept link's {@link LinkContext} still refers to the scenario it was evaluated in; it reads only
  * the signalling and the medium from it, which are equal by the rules above.
@@ -56,6 +57,8 @@ public final class IncrementalPlanner {
     private Map<String, ReceiverLinks> links;
     private Plan plan;
     private int reevaluated;
+    /** Cascade capacities of the current plan's routes, by hop matrices ({@link RouteAssembler.Cascade}). */
+    private final Map<RouteAssembler.Cascade, Double> cascades = new HashMap<>();
 
     private IncrementalPlanner(Scenario scenario, PlanOptions options, ReceiverEvaluator evaluator) {
         this.options = options;
@@ -64,7 +67,7 @@ public final class IncrementalPlanner {
         this.channel = PlanPipeline.channel(inputs, f -> { });
         this.links = PlanPipeline.evaluate(inputs, channel, channel.receivers(), evaluator, f -> { });
         this.reevaluated = links.size();
-        this.plan = PlanPipeline.assemble(inputs, channel, links, evaluator);
+        this.plan = PlanPipeline.assemble(inputs, channel, links, evaluator, cascades);
     }
 
     /**
@@ -139,7 +142,7 @@ public final class IncrementalPlanner {
             }
         }
         Map<String, ReceiverLinks> fresh = PlanPipeline.evaluate(next, nextChannel, redo, evaluator, f -> { });
-        Plan nextPlan = PlanPipeline.assemble(next, nextChannel, merge(kept, fresh), evaluator);
+        Plan nextPlan = PlanPipeline.assemble(next, nextChannel, merge(kept, fresh), evaluator, cascades);
         kept.putAll(fresh);
         inputs = next;
         channel = nextChannel;

@@ -47,7 +47,7 @@ final class PlanPipeline {
         List<String> receivers = channel.receivers();
         Map<String, ReceiverLinks> links = evaluate(in, channel, receivers, evaluator,
                 f -> progress.accept(0.2 + 0.65 * f));
-        return assemble(in, channel, links, evaluator);
+        return assemble(in, channel, links, evaluator, new HashMap<>());
     }
 
     /**
@@ -93,9 +93,12 @@ final class PlanPipeline {
     /**
      * The plan from the channel and the evaluated links of every receiver of the channel (taken in
      * the channel's receiver order): link graph, routes, budgets, shared rates and warnings.
+     *
+     * @param cascades cascade capacities of routes of an earlier plan, reused where a route has the same
+     *                 hop matrices; replaced by those of this plan's routes on return
      */
     static Plan assemble(PlanInputs in, ChannelMatrix channel, Map<String, ReceiverLinks> byReceiver,
-            ReceiverEvaluator evaluator) {
+            ReceiverEvaluator evaluator, Map<RouteAssembler.Cascade, Double> cascades) {
         Scenario scenario = in.scenario();
         PlanOptions options = in.options();
         DoubleConsumer progress = options.progress();
@@ -120,7 +123,8 @@ final class PlanPipeline {
         addLinkWarnings(linkReports, sig, warnings);
         LinkGraph graph = LinkGraph.of(in.nodes().keySet(), edges, options.capacityFloorBits());
 
-        RouteAssembler assembler = new RouteAssembler(in, graph, byPair, evaluatedCapacity, evaluator);
+        RouteAssembler assembler = new RouteAssembler(in, graph, byPair, evaluatedCapacity, evaluator,
+                Map.copyOf(cascades));
         List<RouteReport> routes = new ArrayList<>();
         List<List<EvaluatedLink>> routeHops = new ArrayList<>();
         for (Demand d : scenario.demands()) {
@@ -128,6 +132,8 @@ final class PlanPipeline {
             routes.add(assembler.route(d, hops, warnings));
             routeHops.add(hops);
         }
+        cascades.clear();
+        cascades.putAll(assembler.cascades());
         progress.accept(0.9);
         List<BudgetReport> budgets = evaluator.budgets(in, routeHops, f -> progress.accept(0.9 + 0.1 * f));
         progress.accept(1.0);

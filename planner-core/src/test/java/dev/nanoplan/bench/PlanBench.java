@@ -4,7 +4,6 @@ import dev.nanoplan.plan.NetworkPlanner;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.PlanOptions;
 import dev.nanoplan.scenario.Scenario;
-import dev.nanoplan.scenario.SwarmGenerator;
 import java.util.concurrent.TimeUnit;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
@@ -16,7 +15,7 @@ import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
 
 /**
- * Whole-plan timings on generated swarms (SwarmGenerator, seed 1). JMH, e.g.
+ * Whole-plan timings on generated swarms ({@link BenchSwarms}, seed 1). JMH, e.g.
  * {@code java -Xmx2g -cp target/test-classes:target/classes:<deps> org.openjdk.jmh.Main PlanBench -f 1 -wi 1 -i 3};
  * the 10,000-node single shot: {@code java -Xmx2g -Xlog:gc -cp ... dev.nanoplan.bench.PlanBench 10000} (prints wall
  * time, process CPU time, the heap pools' peak usage and the load average; the machine is shared, so read wall
@@ -34,7 +33,7 @@ public class PlanBench {
 
     @Setup
     public void setup() {
-        scenario = SwarmGenerator.generate(nodes, 1);
+        scenario = BenchSwarms.swarm(nodes, 1);
     }
 
     @Benchmark
@@ -51,7 +50,7 @@ public class PlanBench {
     public static void main(String[] args) {
         int n = args.length > 0 ? Integer.parseInt(args[0]) : 10_000;
         int warmups = args.length > 1 ? Integer.parseInt(args[1]) : 0;
-        Scenario s = SwarmGenerator.generate(n, 1);
+        Scenario s = BenchSwarms.swarm(n, 1);
         com.sun.management.OperatingSystemMXBean os = java.lang.management.ManagementFactory
                 .getPlatformMXBean(com.sun.management.OperatingSystemMXBean.class);
         for (int i = 0; i < warmups; i++) {

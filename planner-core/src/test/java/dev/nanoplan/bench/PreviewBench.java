@@ -6,7 +6,6 @@ import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.PlanOptions;
 import dev.nanoplan.plan.PreviewPlanner;
 import dev.nanoplan.scenario.Scenario;
-import dev.nanoplan.scenario.SwarmGenerator;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashMap;
@@ -26,7 +25,7 @@ import org.openjdk.jmh.annotations.State;
 import org.openjdk.jmh.annotations.Warmup;
 
 /**
- * The preview planner alone on generated swarms (SwarmGenerator, seed 42). JMH:
+ * The preview planner alone on generated swarms ({@link BenchSwarms}, seed 42). JMH:
  * {@code java -cp target/test-classes:target/classes:<deps> org.openjdk.jmh.Main PreviewBench};
  * or {@code java -cp ... dev.nanoplan.bench.PreviewBench [nodes...]} for a plain timing loop (median of
  * 200 runs after 200 warm-up runs up to 200 nodes, else 20 and 20; wall time, so read it with the load) plus, with {@code --compare}, the link capacities of the preview against the
@@ -48,7 +47,7 @@ public class PreviewBench {
 
     @Setup
     public void setup() {
-        scenario = SwarmGenerator.generate(nodes, 42);
+        scenario = BenchSwarms.swarm(nodes, 42);
     }
 
     @Benchmark
@@ -68,7 +67,7 @@ public class PreviewBench {
             sizes = List.of(100, 1000);
         }
         for (int n : sizes) {
-            Scenario s = SwarmGenerator.generate(n, 42);
+            Scenario s = BenchSwarms.swarm(n, 42);
             Plan p = null;
             int reps = n <= 200 ? 200 : 20;
             for (int i = 0; i < reps; i++) {

@@ -27,16 +27,7 @@ class SwarmGeneratorTest {
     @Test
     void noBodiesOverlapByBruteForce() {
         List<Node> nodes = SwarmGenerator.generate(1_000, 99L).nodes();
-        int overlaps = 0;
-        for (int i = 0; i < nodes.size(); i++) {
-            for (int j = 0; j < i; j++) {
-                Node a = nodes.get(i);
-                Node b = nodes.get(j);
-                if (a.positionUm().distance(b.positionUm()) < a.radiusUm() + b.radiusUm()) {
-                    overlaps++;
-                }
-            }
-        }
+        int overlaps = overlaps(nodes);
         assertThat(overlaps).isZero();
     }
 
@@ -61,5 +52,44 @@ class SwarmGeneratorTest {
     void rejectsTooFewNodes() {
         assertThatThrownBy(() -> SwarmGenerator.generate(2, 1)).isInstanceOf(IllegalArgumentException.class)
                 .hasMessageContaining("nodes");
+    }
+
+    @ParameterizedTest
+    @ValueSource(ints = {3, 27, 100, 1_000})
+    void designedLayoutValidatesAndHasEveryRole(int n) throws ScenarioException {
+        Scenario s = SwarmGenerator.designed(n, 3L);
+
+        assertThat(s.nodes()).hasSize(n);
+        // source: the project's own validator (the checks of the scenario file format), and the reader
+        assertThat(ScenarioValidator.check(s.volume(), s.medium().flow(), s.species(), s.nodes(), s.demands()))
+                .isEmpty();
+        assertThat(ScenarioReader.strict().parse(ScenarioWriter.toJson(s)).scenario()).isEqualTo(s);
+        assertThat(s.nodes()).extracting(Node::role).contains(Role.TRANSMITTER, Role.RECEIVER, Role.RELAY);
+        assertThat(SwarmGenerator.designed(n, 3L)).isEqualTo(s);
+    }
+
+    @Test
+    void designedLayoutHasNoOverlapsByBruteForceAndOneDemandPerSensor() {
+        List<Node> nodes = SwarmGenerator.designed(1_000, 99L).nodes();
+        int overlaps = overlaps(nodes);
+        // source: brute force over all pairs
+        assertThat(overlaps).isZero();
+        long sensors = nodes.stream().filter(x -> x.role() == Role.TRANSMITTER).count();
+        assertThat(SwarmGenerator.designed(1_000, 99L).demands()).hasSize((int) sensors);
+    }
+
+    /** Pairs of bodies that overlap, by brute force over all pairs. */
+    private static int overlaps(List<Node> nodes) {
+        int overlaps = 0;
+        for (int i = 0; i < nodes.size(); i++) {
+            for (int j = 0; j < i; j++) {
+                Node a = nodes.get(i);
+                Node b = nodes.get(j);
+                if (a.positionUm().distance(b.positionUm()) < a.radiusUm() + b.radiusUm()) {
+                    overlaps++;
+                }
+            }
+        }
+        return overlaps;
     }
 }
