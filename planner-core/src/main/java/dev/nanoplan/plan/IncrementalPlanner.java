@@ -121,7 +121,40 @@ public final class IncrementalPlanner {
         }
         PlanInputs next = PlanInputs.of(edited, options);
         ChannelMatrix nextChannel = PlanPipeline.channel(next, f -> { });
+        Relinked r = relink(inputs, channel, links, next, nextChannel, evaluator);
+        Plan nextPlan = PlanPipeline.assemble(next, nextChannel, r.links(), evaluator);
+        inputs = next;
+        channel = nextChannel;
+        links = r.links();
+        plan = nextPlan;
+        reevaluated = r.reevaluated();
+        return nextPlan;
+    }
+
+    /**
+     * The plan of {@code edited} without budgets or advice ({@link PlanPipeline#whatIf}), re-evaluating
+     * only the receivers of the class comment against the plan state ({@code before}, {@code channel},
+     * {@code links}), which is left as it was: what the advice check re-plans each proposed change with.
+     *
+     * @param links the evaluated links of every receiver of {@code channel}
+     */
+    static Plan whatIf(PlanInputs before, ChannelMatrix channel, Map<String, ReceiverLinks> links,
+            ReceiverEvaluator evaluator, Scenario edited) {
+        PlanInputs next = PlanInputs.of(edited, before.options());
+        ChannelMatrix nextChannel = PlanPipeline.channel(next, f -> { });
+        return PlanPipeline.whatIf(next, nextChannel,
+                relink(before, channel, links, next, nextChannel, evaluator).links(), evaluator);
+    }
+
+    /** The links of every receiver of a re-plan, and how many receivers were re-evaluated. */
+    private record Relinked(Map<String, ReceiverLinks> links, int reevaluated) {
+    }
+
+    /** Keeps each receiver's links unless one of the rules of the class comment re-evaluates it. */
+    private static Relinked relink(PlanInputs inputs, ChannelMatrix channel, Map<String, ReceiverLinks> links,
+            PlanInputs next, ChannelMatrix nextChannel, ReceiverEvaluator evaluator) {
         Scenario before = inputs.scenario();
+        Scenario edited = next.scenario();
         boolean all = !before.signalling().equals(edited.signalling()) || !before.medium().equals(edited.medium())
                 || !before.volume().equals(edited.volume()) || !inputs.slots().equals(next.slots());
         Set<String> changedNodes = changedNodes(inputs.nodes(), next.nodes());
@@ -138,21 +171,8 @@ public final class IncrementalPlanner {
                 redo.add(r);
             }
         }
-        Map<String, ReceiverLinks> fresh = PlanPipeline.evaluate(next, nextChannel, redo, evaluator, f -> { });
-        Plan nextPlan = PlanPipeline.assemble(next, nextChannel, merge(kept, fresh), evaluator);
-        kept.putAll(fresh);
-        inputs = next;
-        channel = nextChannel;
-        links = kept;
-        plan = nextPlan;
-        reevaluated = redo.size();
-        return nextPlan;
-    }
-
-    private static Map<String, ReceiverLinks> merge(Map<String, ReceiverLinks> a, Map<String, ReceiverLinks> b) {
-        Map<String, ReceiverLinks> out = new HashMap<>(a);
-        out.putAll(b);
-        return out;
+        kept.putAll(PlanPipeline.evaluate(next, nextChannel, redo, evaluator, f -> { }));
+        return new Relinked(kept, redo.size());
     }
 
     /** Ids of nodes added, removed or changed in any field. */
