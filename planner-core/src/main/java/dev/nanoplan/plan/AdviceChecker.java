@@ -38,9 +38,14 @@ import java.util.stream.IntStream;
  *
  * <p><b>Cost.</b> One re-plan per distinct change, at most {@link #maxReplans(int)} per plan:
  * {@value #MAX_REPLANS} for small layouts, fewer as the number of nodes grows so that re-plans ×
- * nodes stays within {@value #NODE_BUDGET} (none beyond that many nodes: a full re-plan of a
- * large swarm costs about as much as the plan itself, e.g. 25 s for a generated 1,000-node swarm
- * against 0.15 s for the 17-node culture tank). Routes are served weakest first; a route whose
+ * nodes stays within {@value #NODE_BUDGET} (none beyond that many nodes). The plan re-plans a change
+ * incrementally ({@link IncrementalPlanner#whatIf}: only the receivers the change reaches are
+ * re-evaluated, no budgets, no advice), which cost per re-plan, incremental against from scratch, on a
+ * shared 2-core machine at load 12–15 ({@code AdviceCheckBench}): 65 against 95 ms for the 17-node
+ * culture tank, 0.68 against 2.8 s for a generated 200-node swarm, 22 against 40 s for a generated
+ * 1,000-node swarm (whose plan takes 70 s); the bound is twice the one for re-plans from scratch
+ * (480), the smallest gain measured, so the check costs at most what it did then
+ * (one re-plan per 960 nodes is about a third of the plan). Routes are served weakest first; a route whose
  * changes were not re-planned within the bound states its proposals as not checked.
  */
 public final class AdviceChecker {
@@ -50,7 +55,7 @@ public final class AdviceChecker {
     /** Most re-plans per plan. */
     public static final int MAX_REPLANS = 24;
     /** Re-plans × nodes of the layout beyond which no more re-plans run. */
-    public static final int NODE_BUDGET = 480;
+    public static final int NODE_BUDGET = 960;
 
     private AdviceChecker() {
     }
@@ -103,10 +108,10 @@ public final class AdviceChecker {
      * @param edit       the change
      * @param invalid    why the changed layout is not valid, or null
      * @param effects    one per demand in the scenario's order (empty when invalid)
-     * @param hopBits    capacity of each proposing route's hop after the change, by "from\0to";
-     *                   0 when the link fell below the floor
+     * @param hopBits    capacity of each proposing route's hop after the change, bit/symbol; 0 when
+     *                   the link fell below the floor
      */
-    public record Outcome(ScenarioEdit edit, String invalid, List<Effect> effects, Map<String, Double> hopBits) {
+    public record Outcome(ScenarioEdit edit, String invalid, List<Effect> effects, Map<LinkKey, Double> hopBits) {
 
         public Outcome {
             effects = List.copyOf(effects);
@@ -181,7 +186,7 @@ public final class AdviceChecker {
         }
     }
 
-    /** The re-plan bound for a layout of {@code nodes} nodes: min(24, ⌊480 / nodes⌋). */
+    /** The re-plan bound for a layout of {@code nodes} nodes: min(24, ⌊960 / nodes⌋). */
     public static int maxReplans(int nodes) {
         return Math.min(MAX_REPLANS, NODE_BUDGET / Math.max(1, nodes));
     }
@@ -261,12 +266,12 @@ public final class AdviceChecker {
             effects.add(new Effect(b.from(), b.to(), b.reachable(), a.reachable(), b.endToEndCapacityBits(),
                     a.endToEndCapacityBits(), b.rateBitsPerS(), a.rateBitsPerS()));
         }
-        Map<String, Double> hopBits = new HashMap<>();
+        Map<LinkKey, Double> hopBits = new HashMap<>();
         for (Advice a : aims) {
-            hopBits.put(a.hopFrom() + '\u0000' + a.hopTo(), 0.0);
+            hopBits.put(new LinkKey(a.hopFrom(), a.hopTo()), 0.0);
         }
         for (LinkReport l : after.links()) {
-            hopBits.computeIfPresent(l.from() + '\u0000' + l.to(), (k, v) -> l.capacityBits());
+            hopBits.computeIfPresent(LinkKey.of(l), (k, v) -> l.capacityBits());
         }
         return new Outcome(edit, null, effects, hopBits);
     }
@@ -323,7 +328,7 @@ public final class AdviceChecker {
         Effect own = o.effects().get(demand);
         List<String> reasons = new ArrayList<>();
         List<String> says = new ArrayList<>();
-        double hop = o.hopBits().getOrDefault(a.hopFrom() + '\u0000' + a.hopTo(), 0.0);
+        double hop = o.hopBits().getOrDefault(new LinkKey(a.hopFrom(), a.hopTo()), 0.0);
         if (!a.hopFrom().equals(own.from()) || !a.hopTo().equals(own.to())) {
             says.add(hop > 0 ? String.format(Locale.ROOT, "%s -> %s then carries %s bit/symbol", a.hopFrom(),
                     a.hopTo(), fmt(hop)) : a.hopFrom() + " -> " + a.hopTo() + " falls below the capacity floor");

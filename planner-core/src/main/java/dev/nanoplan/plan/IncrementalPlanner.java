@@ -132,6 +132,20 @@ public final class IncrementalPlanner {
     }
 
     /**
+     * The plan {@code edited} would have, without budgets or advice, re-evaluating only the receivers of
+     * the class comment; this planner stays at {@link #scenario()} (what the advice check re-plans each
+     * proposed change with).
+     *
+     * @throws IllegalArgumentException as the full planner
+     */
+    public Plan whatIf(Scenario edited) {
+        if (evaluator == NormalReceiverEvaluator.INSTANCE) {
+            checkPreview(edited);
+        }
+        return whatIf(inputs, channel, links, evaluator, edited);
+    }
+
+    /**
      * The plan of {@code edited} without budgets or advice ({@link PlanPipeline#whatIf}), re-evaluating
      * only the receivers of the class comment against the plan state ({@code before}, {@code channel},
      * {@code links}), which is left as it was: what the advice check re-plans each proposed change with.

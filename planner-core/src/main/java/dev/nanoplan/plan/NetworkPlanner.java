@@ -55,8 +55,13 @@ public final class NetworkPlanner {
         return PlanPipeline.plan(scenario, options, ExactReceiverEvaluator.INSTANCE);
     }
 
-    /** The plan with the verdicts of its advice check ({@link AdviceChecker}). */
-    static AdviceChecker.Result planChecked(Scenario scenario, PlanOptions options) {
+    /**
+     * The plan with the verdicts of its advice check ({@link AdviceChecker}): {@link #plan} with what
+     * each proposed change did when re-planned.
+     *
+     * @throws IllegalArgumentException as {@link #plan}
+     */
+    public static AdviceChecker.Result planChecked(Scenario scenario, PlanOptions options) {
         return PlanPipeline.planChecked(scenario, options, ExactReceiverEvaluator.INSTANCE);
     }
 }

@@ -2,7 +2,6 @@ package dev.nanoplan.plan;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioReader;
 import dev.nanoplan.scenario.SwarmGenerator;
@@ -61,10 +60,7 @@ class AdviceCheckerTest {
 
     /** A full (not incremental) plan without budgets or advice: every receiver evaluated afresh. */
     private static Plan replan(Scenario s) {
-        PlanInputs in = PlanInputs.of(s, PlanOptions.DEFAULT);
-        ChannelMatrix channel = PlanPipeline.channel(in, f -> { });
-        return PlanPipeline.whatIf(in, channel, PlanPipeline.evaluate(in, channel, channel.receivers(),
-                ExactReceiverEvaluator.INSTANCE, f -> { }), ExactReceiverEvaluator.INSTANCE);
+        return IncrementalPlannerTest.whatIfFromScratch(s, ExactReceiverEvaluator.INSTANCE);
     }
 
     @ParameterizedTest
@@ -246,7 +242,7 @@ class AdviceCheckerTest {
 
     private static AdviceChecker.Verdict judge(List<AdviceChecker.Effect> effects, double minRate) {
         ScenarioEdit edit = new ScenarioEdit.Molecules("a", 100);
-        AdviceChecker.Outcome o = new AdviceChecker.Outcome(edit, null, effects, Map.of("a\u0000gw", 0.9));
+        AdviceChecker.Outcome o = new AdviceChecker.Outcome(edit, null, effects, Map.of(new LinkKey("a", "gw"), 0.9));
         return AdviceChecker.judge(new Advice(edit, "", "a", "gw"), 0, o, minRate);
     }
 
@@ -298,9 +294,10 @@ class AdviceCheckerTest {
 
     @Test
     void theReplanBoundShrinksWithTheNumberOfNodes() {
-        // the stated rule min(24, floor(480 / nodes))
+        // the stated rule min(24, floor(960 / nodes)), worked by hand
         assertThat(AdviceChecker.maxReplans(17)).isEqualTo(24);
-        assertThat(AdviceChecker.maxReplans(100)).isEqualTo(4);
-        assertThat(AdviceChecker.maxReplans(481)).isZero();
+        assertThat(AdviceChecker.maxReplans(100)).isEqualTo(9);
+        assertThat(AdviceChecker.maxReplans(960)).isEqualTo(1);
+        assertThat(AdviceChecker.maxReplans(961)).isZero();
     }
 }
