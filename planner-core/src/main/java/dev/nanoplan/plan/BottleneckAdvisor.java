@@ -1,13 +1,17 @@
 package dev.nanoplan.plan;
 
 import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.Species;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.function.Function;
 
 /**
- * Turns a weak link into an action a device engineer can take, by searching the one quantity that
- * would fix it with everything else held fixed:
+ * Proposes changes that would fix a route's weak link, by searching the one quantity that would
+ * fix it with everything else held fixed:
  * <ul>
  *   <li>distance: bisection on the centre distance between touching and the current one for the
  *       distance at which the link reaches the target capacity (analytic channels only);</li>
@@ -15,11 +19,15 @@ import java.util.Map;
  *       recomputed, memory L kept) — for ISI-limited links (analytic only);</li>
  *   <li>molecules: doubling then bisection on the emitter's molecules per symbol, interference
  *       fixed — for signal- and noise-limited links;</li>
- *   <li>crosstalk: the top interferer gets its own species.</li>
+ *   <li>crosstalk: the top interferer gets its own species, and the nodes that decode it on the
+ *       plan's routes follow it (analytic only: a given channel was obtained for the current
+ *       species).</li>
  * </ul>
  * Capacity is taken as non-decreasing in each searched direction (closer, longer T, more
  * molecules), which holds for the models here away from pathological ISI; the answer is the
- * bisection bracket's safe end, rounded outward.
+ * bisection bracket's safe end, rounded outward. Each proposal only looks at the one link; what
+ * it does to the route and to every other demand is found by {@link AdviceChecker}, which
+ * re-plans the layout with the change applied.
  */
 final class BottleneckAdvisor {
 
@@ -30,41 +38,81 @@ final class BottleneckAdvisor {
     private BottleneckAdvisor() {
     }
 
-    static String advise(LinkContext ctx, LinkReport link, double targetBits, Map<String, Node> nodes) {
+    /**
+     * What one route's weakest hop could use.
+     *
+     * @param candidates changes to check, in the order proposed
+     * @param note       a statement that is not a change (the hop already meets the target, or no
+     *                   single quantity reaches it), or empty
+     * @param targetBits the hop capacity the searches aimed at, bit/symbol
+     */
+    record Proposal(List<Advice> candidates, String note, double targetBits) {
+
+        Proposal {
+            candidates = List.copyOf(candidates);
+        }
+    }
+
+    /**
+     * The proposals for the weakest hop {@code link} of a route.
+     *
+     * @param scenario  the planned layout (a kept link's context may refer to an earlier one)
+     * @param followers the ids of the nodes that decode a given emitter on the plan's routes
+     */
+    static Proposal propose(Scenario scenario, LinkContext ctx, LinkReport link, double targetBits,
+            Function<String, List<String>> followers) {
         String hop = link.from() + " -> " + link.to();
         if (link.capacityBits() >= targetBits) {
-            return String.format(Locale.ROOT, "weakest hop %s already carries %.3f bit/symbol (target %.2f)", hop,
-                    link.capacityBits(), targetBits);
+            return new Proposal(List.of(), String.format(Locale.ROOT,
+                    "weakest hop %s already carries %.3f bit/symbol (target %.2f)", hop, link.capacityBits(),
+                    targetBits), targetBits);
         }
-        StringBuilder sb = new StringBuilder();
+        List<Advice> candidates = new ArrayList<>();
+        String note = "";
         switch (link.limitedBy()) {
-            case CROSSTALK -> sb.append(String.format(Locale.ROOT,
-                    "give %s its own species (it brings %.0f%% of the crosstalk at %s)", link.topInterferer(),
-                    100 * link.topInterfererShare(), link.to()));
+            case CROSSTALK -> {
+                String top = link.topInterferer();
+                String why = String.format(Locale.ROOT, "it brings %.0f%% of the crosstalk at %s",
+                        100 * link.topInterfererShare(), link.to());
+                if (ctx.analytic) {
+                    String species = scenario.nodesById().get(top).emitsSpecies();
+                    candidates.add(new Advice(new ScenarioEdit.OwnSpecies(top,
+                            ScenarioEdit.OwnSpecies.freshName(scenario, species, top), followers.apply(top)), why,
+                            link.from(), link.to()));
+                } else {
+                    note = "crosstalk limits " + hop + " (" + why + "); a change of species is not checked on a "
+                            + "simulated channel";
+                }
+            }
             case ISI -> {
-                Double t = ctx.analytic ? symbolTimeFor(ctx, targetBits, nodes) : null;
-                sb.append(t != null
-                        ? String.format(Locale.ROOT, "lengthen the symbol time to %.3g s (ISI limits %s)", t, hop)
-                        : "ISI limits " + hop + ": lengthening the symbol time alone does not reach the target; "
-                                + isiRemedy(ctx.species));
+                Double t = ctx.analytic ? symbolTimeFor(ctx, targetBits, scenario.nodesById()) : null;
+                if (t != null) {
+                    candidates.add(new Advice(new ScenarioEdit.SymbolTime(t), "ISI limits " + hop, link.from(),
+                            link.to()));
+                } else {
+                    note = "ISI limits " + hop + ": lengthening the symbol time alone does not reach the target; "
+                            + isiRemedy(ctx.species);
+                }
             }
             case SIGNAL, NOISE -> {
                 Long n = moleculesFor(ctx, targetBits);
-                sb.append(n != null
-                        ? String.format(Locale.ROOT, "release more molecules (>= %d per symbol at %s)", n,
-                                link.from())
-                        : "more molecules alone do not reach the target at " + hop);
+                if (n != null) {
+                    candidates.add(new Advice(new ScenarioEdit.Molecules(link.from(), n), "", link.from(),
+                            link.to()));
+                } else {
+                    note = "more molecules alone do not reach the target at " + hop;
+                }
             }
             default -> throw new IllegalStateException();
         }
         if (ctx.analytic) {
             Double d = distanceFor(ctx, targetBits);
             if (d != null) {
-                sb.append(String.format(Locale.ROOT, "; or move %s within %.1f µm of %s", link.from(), d, link.to()));
+                candidates.add(new Advice(new ScenarioEdit.MoveToward(link.from(), link.to(), d), "",
+                        link.from(), link.to()));
             }
         }
-        sb.append(String.format(Locale.ROOT, " (to reach %.2f bit/symbol)", targetBits));
-        return sb.toString();
+        return new Proposal(candidates, note, targetBits);
     }
 
     /**

@@ -13,6 +13,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.function.DoubleConsumer;
+import java.util.function.Function;
 
 /**
  * The exact per-receiver evaluator of {@link NetworkPlanner}: every emitter → receiver pair of the
@@ -34,7 +35,7 @@ import java.util.function.DoubleConsumer;
  * removed, and background removed, with the what-if model ({@link LinkContext#whatIfModel()});
  * {@link Impairment#limitedBy} names the impairment.
  *
- * <p>Advice: {@link BottleneckAdvisor}; budgets: {@link MoleculeBudgets}. Receivers are evaluated in
+ * <p>Advice: proposed by {@link BottleneckAdvisor}, checked by {@link AdviceChecker}; budgets: {@link MoleculeBudgets}. Receivers are evaluated in
  * parallel.
  */
 final class ExactReceiverEvaluator implements ReceiverEvaluator {
@@ -54,10 +55,17 @@ final class ExactReceiverEvaluator implements ReceiverEvaluator {
         return List.of();
     }
 
+    /** None before the check: the route's line is the checked one ({@link #propose}). */
     @Override
     public String advice(PlanInputs in, EvaluatedLink weakest) {
-        return BottleneckAdvisor.advise(weakest.context(), weakest.report(), in.options().adviceTargetBits(),
-                in.nodes());
+        return null;
+    }
+
+    @Override
+    public BottleneckAdvisor.Proposal propose(PlanInputs in, EvaluatedLink weakest,
+            Function<String, List<String>> followers) {
+        return BottleneckAdvisor.propose(in.scenario(), weakest.context(), weakest.report(),
+                in.options().adviceTargetBits(), followers);
     }
 
     @Override

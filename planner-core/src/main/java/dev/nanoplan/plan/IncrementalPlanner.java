@@ -38,9 +38,8 @@ import java.util.Set;
  * receivers within the cutoff of its old or new position; an edit of one species re-evaluates that
  * species' receivers; a change of the schedule (or symbol time, memory, prior, levels, count model)
  * all of them. The rest of the plan — link graph, routes, advice, budgets, shared rates, warnings —
- * is rebuilt from all receivers' links ({@link PlanPipeline#assemble}), reusing the decode-and-forward
- * cascade capacity of every route whose hop matrices are unchanged (a deterministic function of them);
- * for the exact plan the advice and the budgets' searches are then most of a re-plan's cost.
+ * is rebuilt from all receivers' links ({@link PlanPipeline#assemble}); for the exact plan the budgets'
+ * searches are then most of a re-plan's cost.
  *
  * <p>A kept link's {@link LinkContext} still refers to the scenario it was evaluated in; it reads only
  * the signalling and the medium from it, which are equal by the rules above.
@@ -57,8 +56,6 @@ public final class IncrementalPlanner {
     private Map<String, ReceiverLinks> links;
     private Plan plan;
     private int reevaluated;
-    /** Cascade capacities of the current plan's routes, by hop matrices ({@link RouteAssembler.Cascade}). */
-    private final Map<RouteAssembler.Cascade, Double> cascades = new HashMap<>();
 
     private IncrementalPlanner(Scenario scenario, PlanOptions options, ReceiverEvaluator evaluator) {
         this.options = options;
@@ -67,7 +64,7 @@ public final class IncrementalPlanner {
         this.channel = PlanPipeline.channel(inputs, f -> { });
         this.links = PlanPipeline.evaluate(inputs, channel, channel.receivers(), evaluator, f -> { });
         this.reevaluated = links.size();
-        this.plan = PlanPipeline.assemble(inputs, channel, links, evaluator, cascades);
+        this.plan = PlanPipeline.assemble(inputs, channel, links, evaluator);
     }
 
     /**
@@ -124,7 +121,54 @@ public final class IncrementalPlanner {
         }
         PlanInputs next = PlanInputs.of(edited, options);
         ChannelMatrix nextChannel = PlanPipeline.channel(next, f -> { });
+        Relinked r = relink(inputs, channel, links, next, nextChannel, evaluator);
+        Plan nextPlan = PlanPipeline.assemble(next, nextChannel, r.links(), evaluator);
+        inputs = next;
+        channel = nextChannel;
+        links = r.links();
+        plan = nextPlan;
+        reevaluated = r.reevaluated();
+        return nextPlan;
+    }
+
+    /**
+     * The plan {@code edited} would have, without budgets or advice, re-evaluating only the receivers of
+     * the class comment; this planner stays at {@link #scenario()} (what the advice check re-plans each
+     * proposed change with).
+     *
+     * @throws IllegalArgumentException as the full planner
+     */
+    public Plan whatIf(Scenario edited) {
+        if (evaluator == NormalReceiverEvaluator.INSTANCE) {
+            checkPreview(edited);
+        }
+        return whatIf(inputs, channel, links, evaluator, edited);
+    }
+
+    /**
+     * The plan of {@code edited} without budgets or advice ({@link PlanPipeline#whatIf}), re-evaluating
+     * only the receivers of the class comment against the plan state ({@code before}, {@code channel},
+     * {@code links}), which is left as it was: what the advice check re-plans each proposed change with.
+     *
+     * @param links the evaluated links of every receiver of {@code channel}
+     */
+    static Plan whatIf(PlanInputs before, ChannelMatrix channel, Map<String, ReceiverLinks> links,
+            ReceiverEvaluator evaluator, Scenario edited) {
+        PlanInputs next = PlanInputs.of(edited, before.options());
+        ChannelMatrix nextChannel = PlanPipeline.channel(next, f -> { });
+        return PlanPipeline.whatIf(next, nextChannel,
+                relink(before, channel, links, next, nextChannel, evaluator).links(), evaluator);
+    }
+
+    /** The links of every receiver of a re-plan, and how many receivers were re-evaluated. */
+    private record Relinked(Map<String, ReceiverLinks> links, int reevaluated) {
+    }
+
+    /** Keeps each receiver's links unless one of the rules of the class comment re-evaluates it. */
+    private static Relinked relink(PlanInputs inputs, ChannelMatrix channel, Map<String, ReceiverLinks> links,
+            PlanInputs next, ChannelMatrix nextChannel, ReceiverEvaluator evaluator) {
         Scenario before = inputs.scenario();
+        Scenario edited = next.scenario();
         boolean all = !before.signalling().equals(edited.signalling()) || !before.medium().equals(edited.medium())
                 || !before.volume().equals(edited.volume()) || !inputs.slots().equals(next.slots());
         Set<String> changedNodes = changedNodes(inputs.nodes(), next.nodes());
@@ -141,21 +185,8 @@ public final class IncrementalPlanner {
                 redo.add(r);
             }
         }
-        Map<String, ReceiverLinks> fresh = PlanPipeline.evaluate(next, nextChannel, redo, evaluator, f -> { });
-        Plan nextPlan = PlanPipeline.assemble(next, nextChannel, merge(kept, fresh), evaluator, cascades);
-        kept.putAll(fresh);
-        inputs = next;
-        channel = nextChannel;
-        links = kept;
-        plan = nextPlan;
-        reevaluated = redo.size();
-        return nextPlan;
-    }
-
-    private static Map<String, ReceiverLinks> merge(Map<String, ReceiverLinks> a, Map<String, ReceiverLinks> b) {
-        Map<String, ReceiverLinks> out = new HashMap<>(a);
-        out.putAll(b);
-        return out;
+        kept.putAll(PlanPipeline.evaluate(next, nextChannel, redo, evaluator, f -> { }));
+        return new Relinked(kept, redo.size());
     }
 
     /** Ids of nodes added, removed or changed in any field. */

@@ -6,7 +6,8 @@ import dev.nanoplan.scenario.Scenario;
  * Plans a layout end to end with the exact per-receiver evaluator ({@link ExactReceiverEvaluator}) in the
  * one plan skeleton ({@link PlanPipeline}): channel → every link under all-active crosstalk →
  * link graph → one widest route per demand with decode-and-forward cascade capacity →
- * bottleneck advice → molecule budgets → shared rates.
+ * molecule budgets → shared rates → bottleneck advice, each proposed change checked by re-planning
+ * the layout with it ({@link AdviceChecker}).
  *
  * <p><b>Links.</b> Every emitter → receiver pair of the channel is a candidate. A pair is skipped
  * without evaluation when its capacity provably stays below the floor: the capacity of a binary
@@ -38,7 +39,7 @@ import dev.nanoplan.scenario.Scenario;
  * crosstalk). A link's rate is capacity / (K·T) for a frame of K slots, a route's latency Σ K_h·T
  * over its hops and its rate the end-to-end capacity over the longest frame K_max·T.
  *
- * <p>Progress: the channel is 20 % of the work, links 65 %, routes and advice 5 %, budgets 10 %.
+ * <p>Progress: the channel is 20 % of the work, links 65 %, routes 5 %, budgets 5 %, the advice check 5 %.
  */
 public final class NetworkPlanner {
 
@@ -52,5 +53,15 @@ public final class NetworkPlanner {
      */
     public static Plan plan(Scenario scenario, PlanOptions options) {
         return PlanPipeline.plan(scenario, options, ExactReceiverEvaluator.INSTANCE);
+    }
+
+    /**
+     * The plan with the verdicts of its advice check ({@link AdviceChecker}): {@link #plan} with what
+     * each proposed change did when re-planned.
+     *
+     * @throws IllegalArgumentException as {@link #plan}
+     */
+    public static AdviceChecker.Result planChecked(Scenario scenario, PlanOptions options) {
+        return PlanPipeline.planChecked(scenario, options, ExactReceiverEvaluator.INSTANCE);
     }
 }

@@ -11,6 +11,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.function.DoubleConsumer;
+import java.util.function.Function;
 
 /**
  * The per-receiver evaluator of the preview ({@link PreviewPlanner}, where the model is described):
@@ -36,6 +37,12 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
     @Override
     public String advice(PlanInputs in, EvaluatedLink weakest) {
         return PreviewPlanner.ADVICE;
+    }
+
+    @Override
+    public BottleneckAdvisor.Proposal propose(PlanInputs in, EvaluatedLink weakest,
+            Function<String, List<String>> followers) {
+        return null;
     }
 
     @Override

@@ -31,7 +31,12 @@ import java.util.stream.IntStream;
  * memory notes, the links' notes (model caveats, levels &gt; 2), per demand (unreachable, below the
  * rate target), then the shared-rate ones.
  *
- * <p>Progress: the channel is 20 % of the work, links 65 %, routes and advice 5 %, budgets 10 %.
+ * <p><b>Advice</b> is proposed per route by the evaluator and checked by re-planning the layout with each
+ * proposed change ({@link AdviceChecker}); those re-plans ({@link #whatIf}) re-evaluate only the
+ * receivers the change reaches ({@link IncrementalPlanner#whatIf}) and skip budgets and advice.
+ *
+ * <p>Progress: the channel is 20 % of the work, links 65 %, routes 5 %, budgets 5 %, the advice
+ * check 5 %.
  */
 final class PlanPipeline {
 
@@ -40,14 +45,7 @@ final class PlanPipeline {
 
     /** Plans the scenario with the given evaluator. */
     static Plan plan(Scenario scenario, PlanOptions options, ReceiverEvaluator evaluator) {
-        DoubleConsumer progress = options.progress();
-        progress.accept(0);
-        PlanInputs in = PlanInputs.of(scenario, options);
-        ChannelMatrix channel = channel(in, f -> progress.accept(0.2 * f));
-        List<String> receivers = channel.receivers();
-        Map<String, ReceiverLinks> links = evaluate(in, channel, receivers, evaluator,
-                f -> progress.accept(0.2 + 0.65 * f));
-        return assemble(in, channel, links, evaluator, new HashMap<>());
+        return planChecked(scenario, options, evaluator).plan();
     }
 
     /**
@@ -92,16 +90,93 @@ final class PlanPipeline {
 
     /**
      * The plan from the channel and the evaluated links of every receiver of the channel (taken in
-     * the channel's receiver order): link graph, routes, budgets, shared rates and warnings.
-     *
-     * @param cascades cascade capacities of routes of an earlier plan, reused where a route has the same
-     *                 hop matrices; replaced by those of this plan's routes on return
+     * the channel's receiver order): link graph, routes, budgets, shared rates, warnings and the
+     * checked advice.
      */
     static Plan assemble(PlanInputs in, ChannelMatrix channel, Map<String, ReceiverLinks> byReceiver,
-            ReceiverEvaluator evaluator, Map<RouteAssembler.Cascade, Double> cascades) {
+            ReceiverEvaluator evaluator) {
+        return assembleChecked(in, channel, byReceiver, evaluator).plan();
+    }
+
+    /** {@link #assemble}, with the verdicts of the advice check. */
+    static AdviceChecker.Result assembleChecked(PlanInputs in, ChannelMatrix channel,
+            Map<String, ReceiverLinks> byReceiver, ReceiverEvaluator evaluator) {
+        List<List<EvaluatedLink>> routeHops = new ArrayList<>();
+        Plan plan = assemble(in, channel, byReceiver, evaluator, true, routeHops);
+        return checkAdvice(in, channel, byReceiver, evaluator, plan, routeHops);
+    }
+
+    /**
+     * A plan to judge a change by: links and routes as {@link #assemble} gives them, without budgets
+     * and with the routes' advice unchecked (null for the exact evaluator).
+     */
+    static Plan whatIf(PlanInputs in, ChannelMatrix channel, Map<String, ReceiverLinks> byReceiver,
+            ReceiverEvaluator evaluator) {
+        return assemble(in, channel, byReceiver, evaluator, false, new ArrayList<>());
+    }
+
+    /** The full plan of {@code scenario} with the verdicts of its advice check. */
+    static AdviceChecker.Result planChecked(Scenario scenario, PlanOptions options, ReceiverEvaluator evaluator) {
+        DoubleConsumer progress = options.progress();
+        progress.accept(0);
+        PlanInputs in = PlanInputs.of(scenario, options);
+        ChannelMatrix channel = channel(in, f -> progress.accept(0.2 * f));
+        Map<String, ReceiverLinks> links = evaluate(in, channel, channel.receivers(), evaluator,
+                f -> progress.accept(0.2 + 0.65 * f));
+        return assembleChecked(in, channel, links, evaluator);
+    }
+
+    /**
+     * Proposes changes for each reachable route's weakest hop ({@link ReceiverEvaluator#propose}) and
+     * checks them ({@link AdviceChecker}), re-planning each change incrementally from this plan's links
+     * ({@link IncrementalPlanner#whatIf}).
+     */
+    private static AdviceChecker.Result checkAdvice(PlanInputs in, ChannelMatrix channel,
+            Map<String, ReceiverLinks> byReceiver, ReceiverEvaluator evaluator, Plan plan,
+            List<List<EvaluatedLink>> routeHops) {
+        DoubleConsumer progress = in.options().progress();
+        Map<String, List<String>> followers = new HashMap<>();
+        for (RouteReport r : plan.routes()) {
+            for (int i = 0; i + 1 < r.hops().size(); i++) {
+                List<String> f = followers.computeIfAbsent(r.hops().get(i), k -> new ArrayList<>());
+                if (!f.contains(r.hops().get(i + 1))) {
+                    f.add(r.hops().get(i + 1));
+                }
+            }
+        }
+        List<BottleneckAdvisor.Proposal> proposals = new ArrayList<>();
+        for (int i = 0; i < plan.routes().size(); i++) {
+            RouteReport r = plan.routes().get(i);
+            EvaluatedLink weakest = routeHops.get(i).stream().filter(e -> e.report().from().equals(r.bottleneckFrom())
+                    && e.report().to().equals(r.bottleneckTo())).findFirst().orElse(null);
+            proposals.add(weakest == null ? null
+                    : evaluator.propose(in, weakest, id -> followers.getOrDefault(id, List.of())));
+        }
+        if (proposals.stream().allMatch(p -> p == null)) {
+            progress.accept(1.0);
+            return new AdviceChecker.Result(plan, proposals.stream().map(p -> (AdviceChecker.RouteAdvice) null)
+                    .toList(), 0, 0);
+        }
+        int bound = Math.max(1, AdviceChecker.maxReplans(in.scenario().nodes().size()));
+        AtomicInteger replans = new AtomicInteger();
+        AdviceChecker.Result checked = AdviceChecker.check(plan, proposals, s -> {
+            Plan p = IncrementalPlanner.whatIf(in, channel, byReceiver, evaluator, s);
+            progress.accept(0.95 + 0.05 * Math.min(1.0, replans.incrementAndGet() / (double) bound));
+            return p;
+        });
+        progress.accept(1.0);
+        return checked;
+    }
+
+    /**
+     * The plan's links, routes (their hops to {@code routeHopsOut}), budgets when {@code complete},
+     * shared rates and warnings.
+     */
+    private static Plan assemble(PlanInputs in, ChannelMatrix channel, Map<String, ReceiverLinks> byReceiver,
+            ReceiverEvaluator evaluator, boolean complete, List<List<EvaluatedLink>> routeHopsOut) {
         Scenario scenario = in.scenario();
         PlanOptions options = in.options();
-        DoubleConsumer progress = options.progress();
+        DoubleConsumer progress = complete ? options.progress() : f -> { };
         Signalling sig = scenario.signalling();
         List<String> warnings = new ArrayList<>(evaluator.leadingWarnings());
         warnings.addAll(channel.notes());
@@ -123,20 +198,18 @@ final class PlanPipeline {
         addLinkWarnings(linkReports, sig, warnings);
         LinkGraph graph = LinkGraph.of(in.nodes().keySet(), edges, options.capacityFloorBits());
 
-        RouteAssembler assembler = new RouteAssembler(in, graph, byPair, evaluatedCapacity, evaluator,
-                Map.copyOf(cascades));
+        RouteAssembler assembler = new RouteAssembler(in, graph, byPair, evaluatedCapacity, evaluator);
         List<RouteReport> routes = new ArrayList<>();
-        List<List<EvaluatedLink>> routeHops = new ArrayList<>();
+        List<List<EvaluatedLink>> routeHops = routeHopsOut;
         for (Demand d : scenario.demands()) {
             List<EvaluatedLink> hops = new ArrayList<>();
             routes.add(assembler.route(d, hops, warnings));
             routeHops.add(hops);
         }
-        cascades.clear();
-        cascades.putAll(assembler.cascades());
         progress.accept(0.9);
-        List<BudgetReport> budgets = evaluator.budgets(in, routeHops, f -> progress.accept(0.9 + 0.1 * f));
-        progress.accept(1.0);
+        List<BudgetReport> budgets = complete ? evaluator.budgets(in, routeHops, f -> progress.accept(0.9 + 0.05 * f))
+                : List.of();
+        progress.accept(0.95);
         warnings.addAll(MoleculeBudgets.warnings(scenario));
         Plan plan = new Plan(scenario, channel.source(), linkReports, routes, budgets, warnings);
         List<String> shared = SharedRates.warnings(plan);

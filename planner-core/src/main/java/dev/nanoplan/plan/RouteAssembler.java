@@ -5,8 +5,6 @@ import dev.nanoplan.network.LinkGraph;
 import dev.nanoplan.scenario.Demand;
 import dev.nanoplan.scenario.Node;
 import java.util.ArrayList;
-import java.util.Arrays;
-import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -31,45 +29,18 @@ final class RouteAssembler {
     private final Map<LinkKey, EvaluatedLink> byPair;
     private final Map<LinkKey, Double> evaluatedCapacity;
     private final ReceiverEvaluator evaluator;
-    private final Map<Cascade, Double> previousCascades;
-    private final Map<Cascade, Double> cascades = new HashMap<>();
-
-    /**
-     * The hops' transition matrices of a route, compared by value: the key of the cascade capacities
-     * kept from one plan to the next ({@link ChannelCascade#capacityBits} is a deterministic function of
-     * them, so a kept value is the one a new computation gives).
-     */
-    record Cascade(List<double[][]> matrices) {
-
-        @Override
-        public boolean equals(Object o) {
-            return o instanceof Cascade c && Arrays.deepEquals(matrices.toArray(), c.matrices.toArray());
-        }
-
-        @Override
-        public int hashCode() {
-            return Arrays.deepHashCode(matrices.toArray());
-        }
-    }
 
     /**
      * @param byPair            the plan's links (those in {@code graph})
      * @param evaluatedCapacity capacity of every evaluated pair, the routes' "direct" capacity
-     * @param previousCascades  cascade capacities of an earlier plan ({@link #cascades()}), or empty
      */
     RouteAssembler(PlanInputs in, LinkGraph graph, Map<LinkKey, EvaluatedLink> byPair,
-            Map<LinkKey, Double> evaluatedCapacity, ReceiverEvaluator evaluator, Map<Cascade, Double> previousCascades) {
+            Map<LinkKey, Double> evaluatedCapacity, ReceiverEvaluator evaluator) {
         this.in = in;
         this.graph = graph;
         this.byPair = byPair;
         this.evaluatedCapacity = evaluatedCapacity;
         this.evaluator = evaluator;
-        this.previousCascades = previousCascades;
-    }
-
-    /** The cascade capacities of the routes assembled so far (multi-hop routes only). */
-    Map<Cascade, Double> cascades() {
-        return cascades;
     }
 
     /**
@@ -117,7 +88,8 @@ final class RouteAssembler {
         }
         double symbolT = in.scenario().signalling().symbolTimeS();
         double endToEnd = matrices.size() == 1 ? weakest.report().capacityBits()
-                : Math.min(cascadeBits(matrices), weakest.report().capacityBits());
+                : Math.min(ChannelCascade.capacityBits(matrices.toArray(new double[0][][])),
+                        weakest.report().capacityBits());
         String advice = evaluator.advice(in, weakest);
         double rate = endToEnd / (frameSlotsMax * symbolT);
         double minRate = in.scenario().targets().minRateBitsPerS();
@@ -128,20 +100,6 @@ final class RouteAssembler {
         return new RouteReport(d.from(), d.to(), v, weakest.report().capacityBits(), weakest.report().from(),
                 weakest.report().to(), endToEnd, rate, frameSlotsSum * symbolT, direct,
                 weakest.report().limitedBy(), advice);
-    }
-
-    /** {@link ChannelCascade#capacityBits} of the hops, kept from the previous plan when it had the same hops. */
-    private double cascadeBits(List<double[][]> matrices) {
-        Cascade key = new Cascade(matrices);
-        Double c = cascades.get(key);
-        if (c == null) {
-            c = previousCascades.get(key);
-        }
-        if (c == null) {
-            c = ChannelCascade.capacityBits(matrices.toArray(new double[0][][]));
-        }
-        cascades.put(key, c);
-        return c;
     }
 
     /** A capacity in bits for the "why unreachable" text: three significant digits. */

@@ -3,6 +3,7 @@ package dev.nanoplan.plan;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import dev.nanoplan.geometry.Vec3;
+import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
@@ -60,6 +61,38 @@ class IncrementalPlannerTest {
             assertThat(PlanGoldenTest.render(incremental)).as("edit %d of seed %d", i, seed)
                     .isEqualTo(PlanGoldenTest.render(full.apply(s)));
         }
+    }
+
+    /**
+     * The what-if of the advice check: after each seeded random edit of the planned scenario it equals
+     * the plan without budgets or advice computed from scratch, and the planner stays where it was.
+     */
+    @ParameterizedTest
+    @MethodSource("seeds")
+    void aWhatIfEqualsTheFromScratchPlanWithoutBudgetsAndLeavesThePlannerAsItWas(long seed) throws Exception {
+        boolean exact = seed % 2 == 1;
+        ReceiverEvaluator evaluator = exact ? ExactReceiverEvaluator.INSTANCE : NormalReceiverEvaluator.INSTANCE;
+        Scenario s = exact ? SwarmGenerator.generate(20, seed) : SwarmGenerator.designed(110, seed);
+        IncrementalPlanner planner = exact ? IncrementalPlanner.exact(s, PlanOptions.DEFAULT)
+                : IncrementalPlanner.preview(s, PlanOptions.DEFAULT);
+        String planned = PlanGoldenTest.render(planner.plan());
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+        for (int i = 0; i < 3; i++) {
+            Scenario edited = edit(s, rng, exact);
+            // source: the same what-if from scratch, every receiver of the edited scenario evaluated afresh
+            assertThat(PlanGoldenTest.render(planner.whatIf(edited))).as("edit %d of seed %d", i, seed)
+                    .isEqualTo(PlanGoldenTest.render(whatIfFromScratch(edited, evaluator)));
+        }
+        assertThat(planner.scenario()).isSameAs(s);
+        assertThat(PlanGoldenTest.render(planner.plan())).isEqualTo(planned);
+    }
+
+    /** The plan without budgets or advice ({@link PlanPipeline#whatIf}), every receiver evaluated afresh. */
+    static Plan whatIfFromScratch(Scenario s, ReceiverEvaluator evaluator) {
+        PlanInputs in = PlanInputs.of(s, PlanOptions.DEFAULT);
+        ChannelMatrix channel = PlanPipeline.channel(in, f -> { });
+        return PlanPipeline.whatIf(in, channel, PlanPipeline.evaluate(in, channel, channel.receivers(), evaluator,
+                f -> { }), evaluator);
     }
 
     @Test
