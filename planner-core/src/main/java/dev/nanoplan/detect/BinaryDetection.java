@@ -1,5 +1,8 @@
 package dev.nanoplan.detect;
 
+import java.util.Arrays;
+import java.util.Objects;
+
 /**
  * Result of a binary threshold search: decide 1 iff count Y ≥ τ.
  *
@@ -59,6 +62,44 @@ public record BinaryDetection(long miThreshold, double mutualInformationBits,
     @Override
     public double[] errorByThreshold() {
         return errorByThreshold.clone();
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        // every component, arrays by content
+        return o instanceof BinaryDetection other
+                && miThreshold == other.miThreshold
+                && Double.compare(mutualInformationBits, other.mutualInformationBits) == 0
+                && minErrorThreshold == other.minErrorThreshold
+                && Double.compare(minErrorProbability, other.minErrorProbability) == 0
+                && capacityThreshold == other.capacityThreshold
+                && Double.compare(capacityBits, other.capacityBits) == 0
+                && Double.compare(capacityPriorOne, other.capacityPriorOne) == 0
+                && Double.compare(e0AtCapacity, other.e0AtCapacity) == 0
+                && Double.compare(e1AtCapacity, other.e1AtCapacity) == 0
+                && firstThreshold == other.firstThreshold
+                && Arrays.equals(miBitsByThreshold, other.miBitsByThreshold)
+                && Arrays.equals(errorByThreshold, other.errorByThreshold);
+    }
+
+    @Override
+    public int hashCode() {
+        int h = Objects.hash(miThreshold, mutualInformationBits, minErrorThreshold, minErrorProbability,
+                capacityThreshold, capacityBits, capacityPriorOne, e0AtCapacity, e1AtCapacity, firstThreshold);
+        h = 31 * h + Arrays.hashCode(miBitsByThreshold);
+        h = 31 * h + Arrays.hashCode(errorByThreshold);
+        return h;
+    }
+
+    @Override
+    public String toString() {
+        return "BinaryDetection[miThreshold=" + miThreshold + ", mutualInformationBits=" + mutualInformationBits
+                + ", minErrorThreshold=" + minErrorThreshold + ", minErrorProbability=" + minErrorProbability
+                + ", capacityThreshold=" + capacityThreshold + ", capacityBits=" + capacityBits
+                + ", capacityPriorOne=" + capacityPriorOne + ", e0AtCapacity=" + e0AtCapacity + ", e1AtCapacity="
+                + e1AtCapacity + ", firstThreshold=" + firstThreshold + ", miBitsByThreshold="
+                + Arrays.toString(miBitsByThreshold) + ", errorByThreshold=" + Arrays.toString(errorByThreshold)
+                + "]";
     }
 
     private static void checkThreshold(String name, long t, long first, long last) {

@@ -3,6 +3,8 @@ package dev.nanoplan.detect;
 import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.info.BinaryCapacity;
 import dev.nanoplan.info.BinaryChannel;
+import dev.nanoplan.info.Entropy;
+import java.util.Arrays;
 import java.util.List;
 
 /**
@@ -178,10 +180,10 @@ public final class BinaryThresholdSearch {
             int bestDelta) {
         int n = s0.length;
         double[] mi = new double[n];
-        java.util.Arrays.fill(mi, Double.NaN);
+        Arrays.fill(mi, Double.NaN);
         double atBest = BinaryChannel.mutualInformationBits(q, new double[] {s0[bestDelta]},
                 new double[] {p0[bestDelta]}, new double[] {p1[bestDelta]}, new double[] {s1[bestDelta]})[0];
-        double hq = dev.nanoplan.info.Entropy.binaryBits(q);
+        double hq = Entropy.binaryBits(q);
         int[] at = new int[n];
         int count = 0;
         for (int t = 0; t < n; t++) {

@@ -1,6 +1,7 @@
 package dev.nanoplan.detect;
 
 import dev.nanoplan.count.CountPmf;
+import java.util.Arrays;
 import java.util.List;
 
 /**
@@ -62,8 +63,8 @@ final class CountWindow {
                 down += m[r];
                 s[r] = down;
             }
-            java.util.Arrays.fill(p, hi + 1, size + 1, p[hi]);
-            java.util.Arrays.fill(s, 0, lo, s[lo]);
+            Arrays.fill(p, hi + 1, size + 1, p[hi]);
+            Arrays.fill(s, 0, lo, s[lo]);
         }
     }
 

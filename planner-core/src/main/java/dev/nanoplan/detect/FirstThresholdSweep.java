@@ -1,6 +1,7 @@
 package dev.nanoplan.detect;
 
 import dev.nanoplan.count.CountPmf;
+import java.util.Arrays;
 import java.util.List;
 
 /**
@@ -24,6 +25,23 @@ public final class FirstThresholdSweep {
         @Override
         public double[] miBits() {
             return miBits.clone();
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            // every component, arrays by content
+            return o instanceof Curve other && firstThreshold == other.firstThreshold
+                    && Arrays.equals(miBits, other.miBits);
+        }
+
+        @Override
+        public int hashCode() {
+            return 31 * Long.hashCode(firstThreshold) + Arrays.hashCode(miBits);
+        }
+
+        @Override
+        public String toString() {
+            return "Curve[firstThreshold=" + firstThreshold + ", miBits=" + Arrays.toString(miBits) + "]";
         }
     }
 

@@ -4,6 +4,7 @@ import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.info.BlahutArimoto;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Objects;
 
 /**
  * Joint choice of the M−1 count thresholds of an M-level detector and of the input
@@ -112,6 +113,31 @@ public final class MultiLevelQuantizer {
         @Override
         public long[] thresholds() {
             return thresholds.clone();
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            // every component, arrays by content
+            return o instanceof Quantization other
+                    && Arrays.equals(thresholds, other.thresholds)
+                    && Double.compare(mutualInformationBits, other.mutualInformationBits) == 0
+                    && Arrays.deepEquals(channel, other.channel)
+                    && exactOverAllCuts == other.exactOverAllCuts;
+        }
+
+        @Override
+        public int hashCode() {
+            int h = Objects.hash(mutualInformationBits, exactOverAllCuts);
+            h = 31 * h + Arrays.hashCode(thresholds);
+            h = 31 * h + Arrays.deepHashCode(channel);
+            return h;
+        }
+
+        @Override
+        public String toString() {
+            return "Quantization[thresholds=" + Arrays.toString(thresholds) + ", mutualInformationBits="
+                    + mutualInformationBits + ", channel=" + Arrays.deepToString(channel) + ", exactOverAllCuts="
+                    + exactOverAllCuts + "]";
         }
     }
 

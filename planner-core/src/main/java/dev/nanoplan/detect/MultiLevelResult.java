@@ -1,5 +1,8 @@
 package dev.nanoplan.detect;
 
+import java.util.Arrays;
+import java.util.Objects;
+
 /**
  * Result of {@link MultiLevelQuantizer#optimise(java.util.List)}: M input levels detected with
  * M−1 count thresholds t_1 &lt; … &lt; t_{M−1} (decide level j iff t_j ≤ Y &lt; t_{j+1}, with
@@ -82,6 +85,43 @@ public record MultiLevelResult(long[] thresholds, double[] inputDistribution, do
             c[i] = channel[i].clone();
         }
         return c;
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        // every component, arrays by content
+        return o instanceof MultiLevelResult other
+                && Arrays.equals(thresholds, other.thresholds)
+                && Arrays.equals(inputDistribution, other.inputDistribution)
+                && Double.compare(capacityBits, other.capacityBits) == 0
+                && Arrays.deepEquals(channel, other.channel)
+                && Arrays.equals(uniformThresholds, other.uniformThresholds)
+                && Double.compare(uniformMutualInformationBits, other.uniformMutualInformationBits) == 0
+                && Double.compare(softCapacityBits, other.softCapacityBits) == 0
+                && rounds == other.rounds
+                && exactOverAllCuts == other.exactOverAllCuts
+                && Double.compare(certifiedGapBits, other.certifiedGapBits) == 0;
+    }
+
+    @Override
+    public int hashCode() {
+        int h = Objects.hash(capacityBits, uniformMutualInformationBits, softCapacityBits, rounds, exactOverAllCuts,
+                certifiedGapBits);
+        h = 31 * h + Arrays.hashCode(thresholds);
+        h = 31 * h + Arrays.hashCode(inputDistribution);
+        h = 31 * h + Arrays.deepHashCode(channel);
+        h = 31 * h + Arrays.hashCode(uniformThresholds);
+        return h;
+    }
+
+    @Override
+    public String toString() {
+        return "MultiLevelResult[thresholds=" + Arrays.toString(thresholds) + ", inputDistribution="
+                + Arrays.toString(inputDistribution) + ", capacityBits=" + capacityBits + ", channel="
+                + Arrays.deepToString(channel) + ", uniformThresholds=" + Arrays.toString(uniformThresholds)
+                + ", uniformMutualInformationBits=" + uniformMutualInformationBits + ", softCapacityBits="
+                + softCapacityBits + ", rounds=" + rounds + ", exactOverAllCuts=" + exactOverAllCuts
+                + ", certifiedGapBits=" + certifiedGapBits + "]";
     }
 
     private static void checkIncreasing(String name, long[] t) {

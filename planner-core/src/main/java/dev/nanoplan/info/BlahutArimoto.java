@@ -1,5 +1,8 @@
 package dev.nanoplan.info;
 
+import java.util.Arrays;
+import java.util.Objects;
+
 /**
  * Capacity of a discrete memoryless channel by the Blahut–Arimoto alternating maximisation.
  *
@@ -95,6 +98,31 @@ public final class BlahutArimoto {
         public double[] inputDistribution() {
             return inputDistribution.clone();
         }
+
+        @Override
+        public boolean equals(Object o) {
+            // every component, arrays by content
+            return o instanceof Result other
+                    && Double.compare(capacityBits, other.capacityBits) == 0
+                    && Double.compare(gapBits, other.gapBits) == 0
+                    && Arrays.equals(inputDistribution, other.inputDistribution)
+                    && iterations == other.iterations
+                    && converged == other.converged;
+        }
+
+        @Override
+        public int hashCode() {
+            int h = Objects.hash(capacityBits, gapBits, iterations, converged);
+            h = 31 * h + Arrays.hashCode(inputDistribution);
+            return h;
+        }
+
+        @Override
+        public String toString() {
+            return "Result[capacityBits=" + capacityBits + ", gapBits=" + gapBits + ", inputDistribution="
+                    + Arrays.toString(inputDistribution) + ", iterations=" + iterations + ", converged="
+                    + converged + "]";
+        }
     }
 
     /**
@@ -131,13 +159,13 @@ public final class BlahutArimoto {
         }
         double tolNats = toleranceBits * LN2;
         double[] q = new double[nx];
-        java.util.Arrays.fill(q, 1.0 / nx);
+        Arrays.fill(q, 1.0 / nx);
         double[] r = new double[ny];
         double[] logR = new double[ny];
         double[] d = new double[nx];
         int iter = 0;
         while (true) {
-            java.util.Arrays.fill(r, 0);
+            Arrays.fill(r, 0);
             for (int x = 0; x < nx; x++) {
                 double qx = q[x];
                 if (qx == 0) {

@@ -15,7 +15,9 @@ import dev.nanoplan.detect.BinaryDetection;
 import dev.nanoplan.detect.BinaryThresholdSearch;
 import dev.nanoplan.detect.MultiLevelQuantizer;
 import dev.nanoplan.detect.MultiLevelResult;
+import dev.nanoplan.math.LogSpace;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
 import java.util.function.Function;
 import java.util.function.Supplier;
@@ -369,7 +371,7 @@ public final class LinkEvaluator {
     }
 
     /** Memo of {@link #tails} with the reusable tilted pmfs of both laws. */
-    private static final class Tails extends java.util.HashMap<Long, double[]> {
+    private static final class Tails extends HashMap<Long, double[]> {
         private static final long serialVersionUID = 1L;
         final transient LogTails.Reuse upper0;
         final transient LogTails.Reuse lower1;
@@ -380,14 +382,9 @@ public final class LinkEvaluator {
         }
     }
 
+    /** ln(e^a + e^b) of the two weighted log tails: −∞ when both are −∞ (the tails are never +∞). */
     private static double lnError(double[] ab) {
-        double a = ab[0];
-        double b = ab[1];
-        double hiV = Math.max(a, b);
-        if (hiV == Double.NEGATIVE_INFINITY) {
-            return hiV;
-        }
-        return hiV + Math.log1p(Math.exp(Math.min(a, b) - hiV));
+        return LogSpace.logSumExp(ab[0], ab[1]);
     }
 
     /** Symbol error of the maximum a-posteriori detector at uniform inputs: 1 − Σ_y max_i P_i(y)/M. */

@@ -29,7 +29,7 @@ import org.junit.jupiter.api.Test;
  *   <li>{@code cli} and {@code desktop} in planner-ui (the core never names them).</li>
  * </ol>
  * The edges the code has today (2026-12): physics → math; count → math; detect → count, info;
- * scenario → count, geometry, io, physics; network → count, detect, geometry, info, physics,
+ * scenario → count, geometry, io, physics; network → count, detect, geometry, info, math, physics,
  * scenario; plan → count, detect, geometry, info, math, network, physics, scenario; sim →
  * geometry, io, network, physics, scenario; report → count, detect, geometry, io, network, plan,
  * scenario.

@@ -29,12 +29,7 @@ class InlineQualifiedNamesTest {
             "planner-core/src/main/java/dev/nanoplan/plan/PreviewPlanner.java",
             "planner-core/src/main/java/dev/nanoplan/plan/LinkContext.java",
             "planner-core/src/main/java/dev/nanoplan/plan/MoleculeBudgets.java",
-            "planner-core/src/main/java/dev/nanoplan/plan/SharedRates.java",
-            "planner-core/src/main/java/dev/nanoplan/plan/BottleneckAdvisor.java",
-            "planner-core/src/main/java/dev/nanoplan/network/LinkEvaluator.java",
-            "planner-core/src/main/java/dev/nanoplan/detect/",
-            "planner-core/src/main/java/dev/nanoplan/info/",
-            "planner-ui/src/main/java/dev/nanoplan/desktop/");
+            "planner-core/src/main/java/dev/nanoplan/plan/BottleneckAdvisor.java");
 
     private static final Pattern INLINE = Pattern.compile("(?<![\\w.])dev\\.nanoplan(?:\\.[a-z_][a-z0-9_]*)+\\.[A-Z]");
 

@@ -9,7 +9,9 @@ import dev.nanoplan.plan.SlotSchedule;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
+import java.util.Objects;
 
 /**
  * Chart data of one link, obtained from planner-core's {@link LinkEvaluator} for the link's taps
@@ -88,5 +90,33 @@ public record LinkDetails(LinkReport link, double[] taps, List<List<double[]>> c
             pts.add(new double[] {p.offset() + i, mass / step});
         }
         return pts;
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        // every component, arrays (also those inside the point lists) by content
+        return o instanceof LinkDetails other
+                && Objects.equals(link, other.link)
+                && Arrays.equals(taps, other.taps)
+                && Arrays.deepEquals(nested(countCurves), nested(other.countCurves))
+                && threshold == other.threshold
+                && Arrays.deepEquals(miByThreshold.toArray(), other.miByThreshold.toArray())
+                && Arrays.deepEquals(errorByMolecules.toArray(), other.errorByMolecules.toArray())
+                && Double.compare(targetLog10Error, other.targetLog10Error) == 0;
+    }
+
+    @Override
+    public int hashCode() {
+        int h = Objects.hash(link, threshold, targetLog10Error);
+        h = 31 * h + Arrays.hashCode(taps);
+        h = 31 * h + Arrays.deepHashCode(nested(countCurves));
+        h = 31 * h + Arrays.deepHashCode(miByThreshold.toArray());
+        h = 31 * h + Arrays.deepHashCode(errorByMolecules.toArray());
+        return h;
+    }
+
+    /** The curves as nested arrays, so that {@link Arrays#deepEquals} reaches the points. */
+    private static Object[][] nested(List<List<double[]>> curves) {
+        return curves.stream().map(List::toArray).toArray(Object[][]::new);
     }
 }
