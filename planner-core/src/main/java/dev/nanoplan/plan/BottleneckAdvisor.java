@@ -32,9 +32,9 @@ final class BottleneckAdvisor {
 
     static String advise(LinkContext ctx, LinkReport link, double targetBits, Map<String, Node> nodes) {
         String hop = link.from() + " -> " + link.to();
-        if (link.capacityBits() >= targetBits) {
+        if (link.mutualInformationBits() >= targetBits) {
             return String.format(Locale.ROOT, "weakest hop %s already carries %.3f bit/symbol (target %.2f)", hop,
-                    link.capacityBits(), targetBits);
+                    link.mutualInformationBits(), targetBits);
         }
         StringBuilder sb = new StringBuilder();
         switch (link.limitedBy()) {
@@ -83,12 +83,12 @@ final class BottleneckAdvisor {
     static Double distanceFor(LinkContext ctx, double targetBits) {
         double lo = ctx.receiver.radiusUm() + ctx.emitter.radiusUm() + 1e-3;
         double hi = ctx.distance();
-        if (hi <= lo || ctx.atDistance(lo).capacityBits() < targetBits) {
+        if (hi <= lo || ctx.atDistance(lo).mutualInformationBits() < targetBits) {
             return null;
         }
         for (int i = 0; i < BISECTIONS && hi - lo > 1e-3; i++) {
             double mid = 0.5 * (lo + hi);
-            if (ctx.atDistance(mid).capacityBits() >= targetBits) {
+            if (ctx.atDistance(mid).mutualInformationBits() >= targetBits) {
                 lo = mid;
             } else {
                 hi = mid;
@@ -123,7 +123,7 @@ final class BottleneckAdvisor {
     static Double symbolTimeFor(LinkContext ctx, double targetBits, Map<String, Node> nodes) {
         double lo = ctx.symbolTimeS();
         double hi = lo;
-        while (ctx.withSymbolTime(hi, nodes).capacityBits() < targetBits) {
+        while (ctx.withSymbolTime(hi, nodes).mutualInformationBits() < targetBits) {
             lo = hi;
             hi *= 2;
             if (hi > MAX_T_FACTOR * ctx.symbolTimeS()) {
@@ -132,7 +132,7 @@ final class BottleneckAdvisor {
         }
         for (int i = 0; i < 12 && hi - lo > 1e-3 * hi; i++) {
             double mid = 0.5 * (lo + hi);
-            if (ctx.withSymbolTime(mid, nodes).capacityBits() >= targetBits) {
+            if (ctx.withSymbolTime(mid, nodes).mutualInformationBits() >= targetBits) {
                 hi = mid;
             } else {
                 lo = mid;
