@@ -66,6 +66,47 @@ public final class ChannelCascade {
         return BlahutArimoto.DEFAULT.compute(compose(hops)).capacityBits();
     }
 
+    /**
+     * Mutual information I(X;Y) in bits of the cascade at the input law {@code input}: for two
+     * inputs and two outputs the binary asymmetric channel form ({@link BinaryChannel}), otherwise
+     * H(Y) − Σ_x p(x)·H(Y | X = x) (Cover and Thomas 2006, eq. 2.43). By the data-processing
+     * inequality it never exceeds any hop's mutual information at the law that hop sees.
+     *
+     * @param input the law of the first hop's input, one probability per row of hops[0]
+     */
+    public static double mutualInformationBits(double[] input, double[][]... hops) {
+        double[][] w = compose(hops);
+        if (input.length != w.length) {
+            throw new IllegalArgumentException("input: need " + w.length + " probabilities, got " + input.length);
+        }
+        if (w.length == 2 && w[0].length == 2) {
+            return BinaryChannel.mutualInformationBits(input[1], w[0][1], w[0][0], w[1][0], w[1][1]);
+        }
+        int ny = w[0].length;
+        double[] out = new double[ny];
+        double conditional = 0;
+        for (int x = 0; x < w.length; x++) {
+            double rowSum = 0;
+            for (double v : w[x]) {
+                rowSum += v;
+            }
+            double[] row = new double[ny];
+            for (int y = 0; y < ny; y++) {
+                row[y] = w[x][y] / rowSum;
+                out[y] += input[x] * row[y];
+            }
+            conditional += input[x] * Entropy.bits(row);
+        }
+        double outSum = 0;
+        for (double v : out) {
+            outSum += v;
+        }
+        for (int y = 0; y < ny; y++) {
+            out[y] /= outSum;
+        }
+        return Math.max(0, Entropy.bits(out) - conditional);
+    }
+
     private static void checkRectangular(int i, double[][] m) {
         if (m == null || m.length == 0 || m[0] == null || m[0].length == 0) {
             throw new IllegalArgumentException("hop " + i + " must be a non-empty matrix");

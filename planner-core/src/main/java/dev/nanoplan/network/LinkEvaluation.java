@@ -72,6 +72,38 @@ public record LinkEvaluation(LinkSpec spec, List<CountPmf> givenLevel, BinaryDet
         return binary != null ? binary.mutualInformationBits() : multiLevel.uniformMutualInformationBits();
     }
 
+    /**
+     * Transition matrix of the operating detector: channel[i][j] = P(decide j | level i sent) with
+     * decide j iff t_j ≤ Y &lt; t_{j+1} at {@link #operatingThresholds()} (binary: [[1−ε₀, ε₀], [ε₁, 1−ε₁]]),
+     * from the slot-count pmfs at the file's input law; each entry is a direct sum over its cell (no
+     * 1 − x cancellation), truncated mass counted on its own side, rows renormalised. This is the
+     * detector a relay uses, so route cascades multiply these matrices.
+     */
+    public double[][] operatingChannel() {
+        int m = givenLevel.size();
+        double[][] w = new double[m][m];
+        for (int i = 0; i < m; i++) {
+            CountPmf p = givenLevel.get(i);
+            w[i][0] += p.massBelow();
+            w[i][m - 1] += p.massAbove();
+            int cell = 0;
+            for (long y = p.offset(); y <= p.last(); y++) {
+                while (cell < m - 1 && y >= operatingThresholds[cell]) {
+                    cell++;
+                }
+                w[i][cell] += p.probability(y);
+            }
+            double sum = 0;
+            for (double v : w[i]) {
+                sum += v;
+            }
+            for (int j = 0; j < m; j++) {
+                w[i][j] = sum > 0 ? w[i][j] / sum : (i == j ? 1 : 0);
+            }
+        }
+        return w;
+    }
+
     /** {@link #mutualInformationBits()} divided by the symbol time. */
     public double operatingRateBitsPerS() {
         return mutualInformationBits() / spec.symbolTimeS();

@@ -271,7 +271,7 @@ public final class AdviceChecker {
             hopBits.put(new LinkKey(a.hopFrom(), a.hopTo()), 0.0);
         }
         for (LinkReport l : after.links()) {
-            hopBits.computeIfPresent(LinkKey.of(l), (k, v) -> l.capacityBits());
+            hopBits.computeIfPresent(LinkKey.of(l), (k, v) -> l.mutualInformationBits());
         }
         return new Outcome(edit, null, effects, hopBits);
     }

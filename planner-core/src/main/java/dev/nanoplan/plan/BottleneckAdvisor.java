@@ -62,9 +62,9 @@ final class BottleneckAdvisor {
     static Proposal propose(Scenario scenario, LinkContext ctx, LinkReport link, double targetBits,
             Function<String, List<String>> followers) {
         String hop = link.from() + " -> " + link.to();
-        if (link.capacityBits() >= targetBits) {
+        if (link.mutualInformationBits() >= targetBits) {
             return new Proposal(List.of(), String.format(Locale.ROOT,
-                    "weakest hop %s already carries %.3f bit/symbol (target %.2f)", hop, link.capacityBits(),
+                    "weakest hop %s already carries %.3f bit/symbol (target %.2f)", hop, link.mutualInformationBits(),
                     targetBits), targetBits);
         }
         List<Advice> candidates = new ArrayList<>();
@@ -131,12 +131,12 @@ final class BottleneckAdvisor {
     static Double distanceFor(LinkContext ctx, double targetBits) {
         double lo = ctx.receiver.radiusUm() + ctx.emitter.radiusUm() + 1e-3;
         double hi = ctx.distance();
-        if (hi <= lo || ctx.atDistance(lo).capacityBits() < targetBits) {
+        if (hi <= lo || ctx.atDistance(lo).mutualInformationBits() < targetBits) {
             return null;
         }
         for (int i = 0; i < BISECTIONS && hi - lo > 1e-3; i++) {
             double mid = 0.5 * (lo + hi);
-            if (ctx.atDistance(mid).capacityBits() >= targetBits) {
+            if (ctx.atDistance(mid).mutualInformationBits() >= targetBits) {
                 lo = mid;
             } else {
                 hi = mid;
@@ -171,7 +171,7 @@ final class BottleneckAdvisor {
     static Double symbolTimeFor(LinkContext ctx, double targetBits, Map<String, Node> nodes) {
         double lo = ctx.symbolTimeS();
         double hi = lo;
-        while (ctx.withSymbolTime(hi, nodes).capacityBits() < targetBits) {
+        while (ctx.withSymbolTime(hi, nodes).mutualInformationBits() < targetBits) {
             lo = hi;
             hi *= 2;
             if (hi > MAX_T_FACTOR * ctx.symbolTimeS()) {
@@ -180,7 +180,7 @@ final class BottleneckAdvisor {
         }
         for (int i = 0; i < 12 && hi - lo > 1e-3 * hi; i++) {
             double mid = 0.5 * (lo + hi);
-            if (ctx.withSymbolTime(mid, nodes).capacityBits() >= targetBits) {
+            if (ctx.withSymbolTime(mid, nodes).mutualInformationBits() >= targetBits) {
                 hi = mid;
             } else {
                 lo = mid;

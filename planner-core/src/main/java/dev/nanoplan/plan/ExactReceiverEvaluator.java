@@ -1,5 +1,6 @@
 package dev.nanoplan.plan;
 
+import dev.nanoplan.info.Entropy;
 import dev.nanoplan.network.ChannelEntry;
 import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.network.Crosstalk;
@@ -7,6 +8,7 @@ import dev.nanoplan.network.LinkEdge;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Signalling;
 import dev.nanoplan.scenario.Species;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -64,8 +66,20 @@ final class ExactReceiverEvaluator implements ReceiverEvaluator {
     @Override
     public BottleneckAdvisor.Proposal propose(PlanInputs in, EvaluatedLink weakest,
             Function<String, List<String>> followers) {
-        return BottleneckAdvisor.propose(in.scenario(), weakest.context(), weakest.report(),
-                in.options().adviceTargetBits(), followers);
+        return BottleneckAdvisor.propose(in.scenario(), weakest.context(), weakest.report(), adviceTargetBits(in),
+                followers);
+    }
+
+    /**
+     * The operating mutual information the advice aims for: binary, the option's fraction of the
+     * input entropy H(q), the most any link carries at the file's prior (I(X;Y) ≤ H(X), Shannon
+     * 1948), so 0.9 bit at q = 0.5 and 0.26 bit at q = 0.05; more levels, the option in bits
+     * (uniform inputs carry up to log2 M ≥ 1.58 bit).
+     */
+    static double adviceTargetBits(PlanInputs in) {
+        Signalling sig = in.scenario().signalling();
+        double target = in.options().adviceTargetBits();
+        return sig.levels() == 2 ? target * Entropy.binaryBits(sig.priorOne()) : target;
     }
 
     @Override
@@ -112,11 +126,11 @@ final class ExactReceiverEvaluator implements ReceiverEvaluator {
                 continue;
             }
             LinkEvaluation ev = ctx.evaluate();
-            evaluatedCapacity.put(new LinkKey(tx.id(), rx.id()), ev.capacityBits());
-            if (ev.capacityBits() < options.capacityFloorBits()) {
+            evaluatedCapacity.put(new LinkKey(tx.id(), rx.id()), ev.mutualInformationBits());
+            if (ev.mutualInformationBits() < options.capacityFloorBits()) {
                 continue;
             }
-            out.add(report(ctx, ev, others));
+            out.add(report(ctx, ev, others, scenario.targets().maxErrorProbability()));
         }
         shared.release();
         for (EvaluatedLink e : out) {
@@ -164,18 +178,20 @@ final class ExactReceiverEvaluator implements ReceiverEvaluator {
                 continue;
             }
             LinkEvaluation ev = ctx.evaluate();
-            evaluatedCapacity.put(new LinkKey(tx.id(), rx.id()), ev.capacityBits());
-            if (ev.capacityBits() >= options.capacityFloorBits()) {
-                out.add(report(ctx, ev, others));
+            evaluatedCapacity.put(new LinkKey(tx.id(), rx.id()), ev.mutualInformationBits());
+            if (ev.mutualInformationBits() >= options.capacityFloorBits()) {
+                out.add(report(ctx, ev, others, scenario.targets().maxErrorProbability()));
             }
         }
         return new ReceiverLinks(out, evaluatedCapacity);
     }
 
-    private static EvaluatedLink report(LinkContext ctx, LinkEvaluation ev, List<Crosstalk.Interferer> others) {
-        double c = ev.capacityBits();
+    private static EvaluatedLink report(LinkContext ctx, LinkEvaluation ev, List<Crosstalk.Interferer> others,
+            double maxErrorProbability) {
+        double c = ev.mutualInformationBits();
         int m = ctx.signalling().levels();
-        double maxBits = Math.log(m) / Math.log(2);
+        // the most the operating point can carry: the input entropy H(q) (binary), log2 M (uniform levels)
+        double maxBits = m == 2 ? Entropy.binaryBits(ctx.signalling().priorOne()) : Math.log(m) / Math.log(2);
         // the what-ifs run on the what-if model: compare them with the same model's baseline
         double cw = ctx.whatIfModel() == ctx.signalling().countModel() ? c : ctx.whatIfBaselineBits();
         double gIsi = ev.isiMeanMolecules() > 0 ? ctx.capacityWithoutIsi() - cw : 0;
@@ -194,29 +210,24 @@ final class ExactReceiverEvaluator implements ReceiverEvaluator {
             }
         }
         double share = sum > 0 ? topMean / sum : 0;
-        double[][] matrix;
-        long threshold;
-        double e0;
-        double e1;
-        if (ev.binary() != null) {
-            e0 = ev.binary().e0AtCapacity();
-            e1 = ev.binary().e1AtCapacity();
-            matrix = new double[][] {{1 - e0, e0}, {e1, 1 - e1}};
-            threshold = ev.binary().miThreshold();
-        } else {
-            matrix = ev.multiLevel().channel();
-            e0 = 1 - matrix[0][0];
-            e1 = 1 - matrix[m - 1][m - 1];
-            threshold = ev.multiLevel().thresholds()[0];
+        // the operating detector: the one the relays use, so the graph edge carries its matrix
+        double[][] matrix = ev.operatingChannel();
+        double e0 = 1 - matrix[0][0];
+        double e1 = 1 - matrix[m - 1][m - 1];
+        if (m == 2) {
+            e0 = matrix[0][1];
+            e1 = matrix[1][0];
         }
         ChannelEntry entry = ctx.physical;
         String caveat = entry.source().equals(ChannelMatrix.SIMULATED) ? "simulated" : entry.modelCaveat();
         double p0 = entry.tap(0);
         LinkReport r = new LinkReport(entry.emitter(), entry.receiver(), entry.species(), p0, entry.taps(),
-                ev.signalMeanMolecules(), sum, ev.isiMeanMolecules(), ev.backgroundMeanMolecules(), threshold,
-                ev.minErrorProbability(), ev.log10ErrorProbability(), c, ev.rateBitsPerS(), clamp(e0), clamp(e1),
-                limited, top, share, caveat);
-        return new EvaluatedLink(r, new LinkEdge(entry.emitter(), entry.receiver(), c, matrix), ctx.frameSlots, ctx);
+                ev.signalMeanMolecules(), sum, ev.isiMeanMolecules(), ev.backgroundMeanMolecules(),
+                ev.operatingThreshold(), ev.errorProbability(), ev.log10OperatingErrorProbability(),
+                ev.minErrorThreshold(), ev.minErrorProbability(), c, ev.operatingRateBitsPerS(), null, null,
+                clamp(e0), clamp(e1), ev.countBlindMeets(maxErrorProbability), limited, top, share, caveat);
+        return new EvaluatedLink(r, new LinkEdge(entry.emitter(), entry.receiver(), c, matrix), ctx.frameSlots, ctx,
+                ev::capacity);
     }
 
     private static double clamp(double v) {

@@ -239,7 +239,7 @@ final class LinkContext {
     }
 
     /**
-     * Capacity of the link as laid out, with the what-if model; computed once (the limited_by
+     * Operating mutual information of the link as laid out, with the what-if model; computed once (the limited_by
      * what-ifs and the molecule advice both start from it; the evaluation is deterministic, so the
      * cached value is the one a new evaluation would give).
      */
@@ -247,32 +247,32 @@ final class LinkContext {
         double c = baselineBits;
         if (Double.isNaN(c)) {
             c = whatIf(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(),
-                    scenario.medium().backgroundMoleculesPerS(), interferers).capacityBits();
+                    scenario.medium().backgroundMoleculesPerS(), interferers).mutualInformationBits();
             baselineBits = c;
         }
         return c;
     }
 
-    /** {@code withMolecules(top).capacityBits()}, from {@link #whatIfBaselineBits()} when {@code top} is as laid out. */
+    /** {@code withMolecules(top).mutualInformationBits()}, from {@link #whatIfBaselineBits()} when {@code top} is as laid out. */
     double withMoleculesBits(long top) {
-        return top == emitter.moleculesPerSymbol() ? whatIfBaselineBits() : withMolecules(top).capacityBits();
+        return top == emitter.moleculesPerSymbol() ? whatIfBaselineBits() : withMolecules(top).mutualInformationBits();
     }
 
-    /** Capacity without ISI (earlier symbols leave nothing). */
+    /** Operating mutual information without ISI (earlier symbols leave nothing). */
     double capacityWithoutIsi() {
         return whatIf(new double[] {entry.tap(0)}, emitter.moleculesPerSymbol(), symbolTimeS(),
-                scenario.medium().backgroundMoleculesPerS(), interferers).capacityBits();
+                scenario.medium().backgroundMoleculesPerS(), interferers).mutualInformationBits();
     }
 
-    /** Capacity without crosstalk. */
+    /** Operating mutual information without crosstalk. */
     double capacityWithoutCrosstalk() {
         return whatIf(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(),
-                scenario.medium().backgroundMoleculesPerS(), List.of()).capacityBits();
+                scenario.medium().backgroundMoleculesPerS(), List.of()).mutualInformationBits();
     }
 
-    /** Capacity without background. */
+    /** Operating mutual information without background. */
     double capacityWithoutNoise() {
-        return whatIf(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(), 0, interferers).capacityBits();
+        return whatIf(entry.taps(), emitter.moleculesPerSymbol(), symbolTimeS(), 0, interferers).mutualInformationBits();
     }
 
     /** The link as laid out but with {@code top} molecules, evaluated with the scenario's model. */

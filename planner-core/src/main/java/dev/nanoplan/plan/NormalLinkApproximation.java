@@ -2,6 +2,8 @@ package dev.nanoplan.plan;
 
 import dev.nanoplan.info.BinaryChannel;
 import dev.nanoplan.info.BlahutArimoto;
+import dev.nanoplan.info.ChannelCascade;
+import dev.nanoplan.info.Entropy;
 import dev.nanoplan.math.LogSpace;
 import java.util.Arrays;
 import java.util.Objects;
@@ -189,12 +191,48 @@ public final class NormalLinkApproximation {
      * @param minErrorProbability   binary: min over τ of (1 − q)ε₀ + qε₁; more levels: symbol error
      *                              at the capacity thresholds and uniform inputs; may underflow to 0
      * @param log10ErrorProbability log10 of the previous, finite
+     * @param mutualInformationBits operating point: binary, the mutual information at the prior q
+     *                              (the leftovers in the given moments are at the same prior)
+     *                              maximised over τ; more levels, at uniform inputs with
+     *                              {@code thresholds}
+     * @param operatingThresholds   the thresholds of the operating point (binary: the τ maximising
+     *                              the mutual information at q, the least-error one on ties)
+     * @param operatingChannel      transition matrix at the operating thresholds
+     * @param errorProbability      error at the operating thresholds ((1 − q)ε₀ + qε₁; more levels the
+     *                              symbol error at uniform inputs), may underflow to 0
+     * @param log10OperatingErrorProbability log10 of the previous, finite
+     * @param minErrorThreshold     binary: τ of the minimum error; −1 for more levels
      */
     public record Result(double capacityBits, long[] thresholds, double[][] channel, double minErrorProbability,
-            double log10ErrorProbability) {
+            double log10ErrorProbability, double mutualInformationBits, long[] operatingThresholds,
+            double[][] operatingChannel, double errorProbability, double log10OperatingErrorProbability,
+            long minErrorThreshold) {
 
         public Result {
             thresholds = thresholds.clone();
+            operatingThresholds = operatingThresholds.clone();
+        }
+
+        @Override
+        public long[] operatingThresholds() {
+            return operatingThresholds.clone();
+        }
+
+        /** The operating threshold (binary), or the first one. */
+        public long operatingThreshold() {
+            return operatingThresholds[0];
+        }
+
+        /** P(decide anything else | lowest level) at the operating thresholds. */
+        public double operatingCrossoverZero() {
+            return Math.max(0, Math.min(1, operatingChannel.length == 2 ? operatingChannel[0][1]
+                    : 1 - operatingChannel[0][0]));
+        }
+
+        /** P(decide anything else | highest level) at the operating thresholds. */
+        public double operatingCrossoverOne() {
+            int m = operatingChannel.length - 1;
+            return Math.max(0, Math.min(1, m == 1 ? operatingChannel[1][0] : 1 - operatingChannel[m][m]));
         }
 
         @Override
@@ -226,13 +264,21 @@ public final class NormalLinkApproximation {
                     && Arrays.equals(thresholds, other.thresholds)
                     && Arrays.deepEquals(channel, other.channel)
                     && Double.compare(minErrorProbability, other.minErrorProbability) == 0
-                    && Double.compare(log10ErrorProbability, other.log10ErrorProbability) == 0;
+                    && Double.compare(log10ErrorProbability, other.log10ErrorProbability) == 0
+                    && Double.compare(mutualInformationBits, other.mutualInformationBits) == 0
+                    && Arrays.equals(operatingThresholds, other.operatingThresholds)
+                    && Arrays.deepEquals(operatingChannel, other.operatingChannel)
+                    && Double.compare(errorProbability, other.errorProbability) == 0
+                    && Double.compare(log10OperatingErrorProbability, other.log10OperatingErrorProbability) == 0
+                    && minErrorThreshold == other.minErrorThreshold;
         }
 
         @Override
         public int hashCode() {
-            int h = Objects.hash(capacityBits, minErrorProbability, log10ErrorProbability);
+            int h = Objects.hash(capacityBits, minErrorProbability, log10ErrorProbability, mutualInformationBits,
+                    errorProbability, log10OperatingErrorProbability, minErrorThreshold);
             h = 31 * h + Arrays.hashCode(thresholds);
+            h = 31 * h + Arrays.hashCode(operatingThresholds);
             h = 31 * h + Arrays.deepHashCode(channel);
             return h;
         }
@@ -351,6 +397,19 @@ public final class NormalLinkApproximation {
         return Math.max(0, binarySearch(means[0], variances[0], means[1], variances[1], mix, priorOne, false).best);
     }
 
+    /**
+     * The operating mutual information of {@link #evaluate} alone, bits: binary at the prior q
+     * maximised over τ, more levels at uniform inputs (for what-if comparisons).
+     */
+    public static double mutualInformationBits(double[] means, double[] variances, Mixture mix, double priorOne) {
+        check(means, variances, priorOne);
+        if (means.length != 2) {
+            return multiLevel(means, variances, mix).mutualInformationBits();
+        }
+        return Math.max(0, binarySearch(means[0], variances[0], means[1], variances[1], mix, priorOne, false, true)
+                .miBest);
+    }
+
     private static void check(double[] means, double[] variances, double priorOne) {
         if (means.length < 2 || means.length != variances.length) {
             throw new IllegalArgumentException("means/variances: need at least 2 levels and one variance per mean, got "
@@ -374,13 +433,18 @@ public final class NormalLinkApproximation {
      */
     private static Search binarySearch(double m0, double v0, double m1, double v1, Mixture mix, double q,
             boolean errorToo) {
+        return binarySearch(m0, v0, m1, v1, mix, q, errorToo, errorToo);
+    }
+
+    private static Search binarySearch(double m0, double v0, double m1, double v1, Mixture mix, double q,
+            boolean errorToo, boolean miToo) {
         double mm = mix.mean();
         double mv = mix.variance();
         double s0 = sigma(v0 + mv);
         double s1 = sigma(v1 + mv);
         long lo = Math.max(0, (long) Math.floor(Math.min(m0 + mm - 8 * s0, m1 + mm - 8 * s1)));
         long hi = Math.max(lo + 1, (long) Math.ceil(Math.max(m0 + mm + 8 * s0, m1 + mm + 8 * s1)) + 1);
-        Search s = new Search(m0, v0, m1, v1, mix, q, errorToo);
+        Search s = new Search(m0, v0, m1, v1, mix, q, errorToo, miToo);
         long first = hi - lo <= DENSE ? 1 : Math.max(1, (hi - lo) / GRID);
         // seeds: per component, the point between the two levels' modes where both are the same number
         // of their standard deviations away; a mixture's best threshold can sit in a narrow gap next to
@@ -401,7 +465,15 @@ public final class NormalLinkApproximation {
             stride = Math.max(1, (b - a) / GRID);
             s.scan(a, b, stride);
         }
-        // the error's best grid point was found on the same grids; refine it the same way
+        // the mutual information's and the error's best grid points were found on the same grids;
+        // refine them the same way
+        stride = first;
+        while (miToo && stride > 1) {
+            long a = Math.max(lo, s.miTau - stride);
+            long b = Math.min(hi, s.miTau + stride);
+            stride = Math.max(1, (b - a) / GRID);
+            s.scan(a, b, stride);
+        }
         stride = first;
         while (errorToo && stride > 1) {
             long a = Math.max(lo, s.errTau - stride);
@@ -419,7 +491,19 @@ public final class NormalLinkApproximation {
         double e1 = lowerTail(m1, v1, mix, tau);
         double[][] w = {{1 - e0, e0}, {e1, 1 - e1}};
         double lnErr = logError(m0, v0, m1, v1, mix, q, cap.errTau);
-        return new Result(Math.max(0, cap.best), new long[] {tau}, w, Math.exp(lnErr), lnErr / LN10);
+        // the operating τ: the mutual-information maximiser at q; the least-error τ when it ties
+        long op = cap.miTau;
+        double errE0 = upperTail(m0, v0, mix, cap.errTau);
+        double errE1 = lowerTail(m1, v1, mix, cap.errTau);
+        if (BinaryChannel.mutualInformationBits(q, errE0, errE1) >= cap.miBest) {
+            op = cap.errTau;
+        }
+        double o0 = upperTail(m0, v0, mix, op);
+        double o1 = lowerTail(m1, v1, mix, op);
+        double mi = Math.max(0, Math.max(cap.miBest, BinaryChannel.mutualInformationBits(q, o0, o1)));
+        double lnOp = op == cap.errTau ? lnErr : logError(m0, v0, m1, v1, mix, q, op);
+        return new Result(Math.max(0, cap.best), new long[] {tau}, w, Math.exp(lnErr), lnErr / LN10, mi,
+                new long[] {op}, new double[][] {{1 - o0, o0}, {o1, 1 - o1}}, Math.exp(lnOp), lnOp / LN10, cap.errTau);
     }
 
     /**
@@ -448,12 +532,18 @@ public final class NormalLinkApproximation {
         final Mixture mix;
         final double q;
         final boolean errorToo;
+        final boolean miToo;
+        final double hq;
         double best = Double.NEGATIVE_INFINITY;
         long bestTau;
+        double miBest = Double.NEGATIVE_INFINITY;
+        long miTau;
         double err = Double.POSITIVE_INFINITY;
         long errTau;
 
-        Search(double m0, double v0, double m1, double v1, Mixture mix, double q, boolean errorToo) {
+        Search(double m0, double v0, double m1, double v1, Mixture mix, double q, boolean errorToo, boolean miToo) {
+            this.miToo = miToo;
+            this.hq = Entropy.binaryBits(q);
             this.m0 = m0;
             this.v0 = v0;
             this.m1 = m1;
@@ -488,14 +578,26 @@ public final class NormalLinkApproximation {
                 tv[i] = Math.abs(1 - e0[i] - e1[i]);
             }
             Arrays.sort(order, (x, y) -> Double.compare(tv[y], tv[x]));
+            // the mutual information at q is at most Δ·h(q) (the same degraded-erasure argument)
             for (int i : order) {
-                if (tv[i] <= best) {
+                boolean capOpen = tv[i] > best;
+                boolean miOpen = miToo && tv[i] * hq > miBest;
+                if (!capOpen && !miOpen) {
                     break;
                 }
-                double v = BinaryChannel.capacity(e0[i], e1[i]).bits();
-                if (v > best) {
-                    best = v;
-                    bestTau = a + i * stride;
+                if (capOpen) {
+                    double v = BinaryChannel.capacity(e0[i], e1[i]).bits();
+                    if (v > best) {
+                        best = v;
+                        bestTau = a + i * stride;
+                    }
+                }
+                if (miOpen) {
+                    double v = BinaryChannel.mutualInformationBits(q, e0[i], e1[i]);
+                    if (v > miBest || (v == miBest && a + i * stride < miTau)) {
+                        miBest = v;
+                        miTau = a + i * stride;
+                    }
                 }
             }
         }
@@ -534,7 +636,10 @@ public final class NormalLinkApproximation {
         double cap = BA.compute(w).capacityBits();
         double err = Math.max(0, 1 - diag / m);
         double log10 = err > 0 ? Math.log10(err) : -300;
-        return new Result(cap, tau, w, err, log10);
+        double[] uniform = new double[m];
+        Arrays.fill(uniform, 1.0 / m);
+        double mi = Math.min(cap, ChannelCascade.mutualInformationBits(uniform, w));
+        return new Result(cap, tau, w, err, log10, mi, tau, w, err, log10, -1);
     }
 
     private static double sigma(double variance) {

@@ -1,5 +1,6 @@
 package dev.nanoplan.plan;
 
+import dev.nanoplan.info.Entropy;
 import dev.nanoplan.network.ChannelEntry;
 import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.network.LinkEdge;
@@ -157,8 +158,9 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
                 }
             }
         }
-        double maxBits = Math.log(m) / Math.log(2);
         double q = sig.priorOne();
+        // the most the operating point can carry: the input entropy H(q) (binary), log2 M (uniform levels)
+        double maxBits = m == 2 ? Entropy.binaryBits(q) : Math.log(m) / Math.log(2);
         for (int i = 0; i < n; i++) {
             ChannelEntry e = entries.get(i);
             long[] lv = levels[i];
@@ -208,7 +210,9 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
             }
             NormalLinkApproximation.Result r = NormalLinkApproximation.evaluate(levelMeans(lv, p0, baseMean),
                     levelVariances(lv, p0, baseVar), all, q);
-            double c = r.capacityBits();
+            // the operating point: mutual information at the file's prior (the leftovers' moments are
+            // at that same prior), as the exact plan
+            double c = r.mutualInformationBits();
             if (c < options.capacityFloorBits()) {
                 continue;
             }
@@ -227,10 +231,15 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
             String topId = top >= 0 && mom[top].mean() > 0 ? entries.get(top).emitter() : null;
             double share = topId != null && xtMean > 0 ? Math.min(1, mom[top].mean() / xtMean) : 0;
             String caveat = e.source().equals(ChannelMatrix.SIMULATED) ? "simulated" : e.modelCaveat();
+            boolean countBlind = (m == 2 ? Math.min(q, 1 - q) : 1 - 1.0 / m)
+                    <= in.scenario().targets().maxErrorProbability();
             LinkReport report = new LinkReport(e.emitter(), e.receiver(), e.species(), p0, taps[i], swing * p0, xtMean,
-                    own.isiMean(), background, r.threshold(), r.minErrorProbability(), r.log10ErrorProbability(), c,
-                    c / sig.symbolTimeS(), r.crossoverZero(), r.crossoverOne(), limited, topId, share, caveat);
-            out.add(new EvaluatedLink(report, new LinkEdge(e.emitter(), e.receiver(), c, r.channel()), 1, null));
+                    own.isiMean(), background, r.operatingThreshold(), r.errorProbability(),
+                    r.log10OperatingErrorProbability(), r.minErrorThreshold(), r.minErrorProbability(),
+                    c, c / sig.symbolTimeS(), null, null, r.operatingCrossoverZero(), r.operatingCrossoverOne(),
+                    countBlind, limited, topId, share, caveat);
+            out.add(new EvaluatedLink(report, new LinkEdge(e.emitter(), e.receiver(), c, r.operatingChannel()), 1,
+                    null, null));
             evaluatedCapacity.put(new LinkKey(e.emitter(), e.receiver()), c);
         }
         return new ReceiverLinks(out, evaluatedCapacity);
@@ -295,10 +304,13 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
         return vars;
     }
 
-    /** Capacity of a link whose count given level j is Bin(n_j, p0) + N(shared) + the mixture. */
+    /**
+     * Operating mutual information of a link whose count given level j is Bin(n_j, p0) + N(shared) +
+     * the mixture (binary: at the prior, maximised over τ).
+     */
     private static double capacity(long[] levels, double p0, double sharedMean, double sharedVar,
             NormalLinkApproximation.Mixture mix, double priorOne) {
-        return NormalLinkApproximation.capacityBits(levelMeans(levels, p0, sharedMean),
+        return NormalLinkApproximation.mutualInformationBits(levelMeans(levels, p0, sharedMean),
                 levelVariances(levels, p0, sharedVar), mix, priorOne);
     }
 }

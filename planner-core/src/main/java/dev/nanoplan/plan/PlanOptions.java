@@ -16,8 +16,10 @@ import java.util.function.DoubleConsumer;
  *                              receiver ignores from that emitter (all-active schedule); ≥ 0
  * @param exactInterferers      per receiver, the strongest interferers treated exactly; the rest
  *                              enter as one moment-matched term ({@link Crosstalk}); ≥ 0, default 8
- * @param adviceTargetBits      capacity the bottleneck advice aims for ("move within X µm to reach
- *                              this"), in (0, 1); default 0.9 bit
+ * @param adviceTargetBits      operating mutual information the bottleneck advice aims for ("move
+ *                              within X µm to reach this"), in (0, 1); default 0.9; for binary
+ *                              signalling a fraction of the input entropy H(q) (the most a link
+ *                              carries at the file's prior; 0.9 bit at q = 0.5), else bits
  * @param progress              receives the fraction of the work done, in [0, 1], possibly from
  *                              worker threads; never null (default ignores it)
  * @param channel               taps to use instead of the analytic ones (e.g. simulated), or null

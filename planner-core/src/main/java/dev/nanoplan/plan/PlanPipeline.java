@@ -3,6 +3,7 @@ package dev.nanoplan.plan;
 import dev.nanoplan.network.AnalyticChannel;
 import dev.nanoplan.network.ChannelEntry;
 import dev.nanoplan.network.ChannelMatrix;
+import dev.nanoplan.network.LinkCapacity;
 import dev.nanoplan.network.LinkEdge;
 import dev.nanoplan.network.LinkGraph;
 import dev.nanoplan.scenario.Demand;
@@ -11,9 +12,11 @@ import dev.nanoplan.scenario.Signalling;
 import dev.nanoplan.scenario.Species;
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.DoubleConsumer;
 import java.util.stream.IntStream;
@@ -206,6 +209,7 @@ final class PlanPipeline {
             routes.add(assembler.route(d, hops, warnings));
             routeHops.add(hops);
         }
+        linkReports = withCapacities(linkReports, byPair, routeHops, evaluator);
         progress.accept(0.9);
         List<BudgetReport> budgets = complete ? evaluator.budgets(in, routeHops, f -> progress.accept(0.9 + 0.05 * f))
                 : List.of();
@@ -218,6 +222,40 @@ final class PlanPipeline {
         }
         warnings.addAll(shared);
         return new Plan(scenario, channel.source(), linkReports, routes, budgets, warnings);
+    }
+
+    /**
+     * The links with their consistent capacity (headroom: what another prior of the emitter would
+     * give) filled in for the route hops; other links keep null. The capacity costs tens of count-pmf
+     * builds per link with ISI, which a plan of a thousand nodes cannot afford for every link; the
+     * hops are what a designer acts on.
+     */
+    private static List<LinkReport> withCapacities(List<LinkReport> links, Map<LinkKey, EvaluatedLink> byPair,
+            List<List<EvaluatedLink>> routeHops, ReceiverEvaluator evaluator) {
+        Map<LinkKey, EvaluatedLink> hops = new LinkedHashMap<>();
+        for (List<EvaluatedLink> route : routeHops) {
+            for (EvaluatedLink e : route) {
+                if (e.capacity() != null) {
+                    hops.putIfAbsent(e.key(), e);
+                }
+            }
+        }
+        if (hops.isEmpty()) {
+            return links;
+        }
+        List<EvaluatedLink> todo = new ArrayList<>(hops.values());
+        Map<LinkKey, LinkCapacity> capacities = new ConcurrentHashMap<>();
+        IntStream range = IntStream.range(0, todo.size());
+        if (evaluator.parallel(todo.size())) {
+            range = range.parallel();
+        }
+        range.forEach(i -> capacities.put(todo.get(i).key(), todo.get(i).capacity().get()));
+        List<LinkReport> out = new ArrayList<>(links.size());
+        for (LinkReport l : links) {
+            LinkCapacity c = capacities.get(LinkKey.of(l));
+            out.add(c == null ? l : l.withCapacity(c.bits(), c.inputDistribution().length == 2 ? c.priorOne() : null));
+        }
+        return out;
     }
 
     /** Round-robin: a note per species whose frame is longer than half the ISI memory. */

@@ -2,8 +2,10 @@ package dev.nanoplan.plan;
 
 import dev.nanoplan.info.ChannelCascade;
 import dev.nanoplan.network.LinkGraph;
+import dev.nanoplan.network.LinkSpec;
 import dev.nanoplan.scenario.Demand;
 import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.Signalling;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -14,13 +16,15 @@ import java.util.Map;
  * ({@link WidestPathFinder}); when there is none, the reason in words (the source cannot send, the
  * destination cannot receive, the source has no link above the floor, the destination hears none,
  * or no chain joins them) and the advice to add a relay or move closer; otherwise the
- * decode-and-forward cascade capacity of the hops' transition matrices ({@link ChannelCascade}),
- * never above the weakest hop, the evaluator's advice for the weakest hop, and a warning when the
- * rate is below the target.
+ * operating point of the symbol-forwarding cascade: the mutual information of the product of the
+ * hops' transition matrices at their operating thresholds ({@link ChannelCascade}) at the file's
+ * input law (binary: prior q; more levels: uniform), never above the weakest hop, the evaluator's
+ * advice for the weakest hop, and a warning when the rate is below the target. Every figure is the
+ * operating mutual information (what the demands deliver at the file's prior), never the capacity.
  *
- * <p>Rates and latency: one symbol per frame, so a route's rate is its end-to-end capacity over the
- * longest frame K_max·T of its hops, its latency Σ K_h·T (all-active: frames of one slot, rate C/T,
- * latency hops × T).
+ * <p>Rates and latency: one symbol per frame, so a route's rate is its end-to-end information over
+ * the longest frame K_max·T of its hops, its latency Σ K_h·T (all-active: frames of one slot, rate
+ * I/T, latency hops × T).
  */
 final class RouteAssembler {
 
@@ -32,7 +36,8 @@ final class RouteAssembler {
 
     /**
      * @param byPair            the plan's links (those in {@code graph})
-     * @param evaluatedCapacity capacity of every evaluated pair, the routes' "direct" capacity
+     * @param evaluatedCapacity operating mutual information of every evaluated pair, the routes' "direct"
+     *                          figure
      */
     RouteAssembler(PlanInputs in, LinkGraph graph, Map<LinkKey, EvaluatedLink> byPair,
             Map<LinkKey, Double> evaluatedCapacity, ReceiverEvaluator evaluator) {
@@ -82,14 +87,16 @@ final class RouteAssembler {
             frameSlotsSum += e.frameSlots();
             frameSlotsMax = Math.max(frameSlotsMax, e.frameSlots());
             matrices.add(e.edge().channel());
-            if (weakest == null || e.report().capacityBits() < weakest.report().capacityBits()) {
+            if (weakest == null || e.report().mutualInformationBits() < weakest.report().mutualInformationBits()) {
                 weakest = e;
             }
         }
-        double symbolT = in.scenario().signalling().symbolTimeS();
-        double endToEnd = matrices.size() == 1 ? weakest.report().capacityBits()
-                : Math.min(ChannelCascade.capacityBits(matrices.toArray(new double[0][][])),
-                        weakest.report().capacityBits());
+        Signalling sig = in.scenario().signalling();
+        double symbolT = sig.symbolTimeS();
+        double weakestBits = weakest.report().mutualInformationBits();
+        double endToEnd = matrices.size() == 1 ? weakestBits
+                : Math.min(ChannelCascade.mutualInformationBits(LinkSpec.symbolWeights(sig.levels(), sig.priorOne()),
+                        matrices.toArray(new double[0][][])), weakestBits);
         String advice = evaluator.advice(in, weakest);
         double rate = endToEnd / (frameSlotsMax * symbolT);
         double minRate = in.scenario().targets().minRateBitsPerS();
@@ -97,7 +104,7 @@ final class RouteAssembler {
             warnings.add(String.format(Locale.ROOT, "demand %s -> %s: %.3g bit/s is below the target %.3g bit/s",
                     d.from(), d.to(), rate, minRate));
         }
-        return new RouteReport(d.from(), d.to(), v, weakest.report().capacityBits(), weakest.report().from(),
+        return new RouteReport(d.from(), d.to(), v, weakestBits, weakest.report().from(),
                 weakest.report().to(), endToEnd, rate, frameSlotsSum * symbolT, direct,
                 weakest.report().limitedBy(), advice);
     }

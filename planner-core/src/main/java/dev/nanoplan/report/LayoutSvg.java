@@ -288,7 +288,7 @@ public final class LayoutSvg {
     }
 
     private static double capacityOrZero(LinkReport l) {
-        return Double.isFinite(l.capacityBits()) ? l.capacityBits() : 0.0;
+        return Double.isFinite(l.mutualInformationBits()) ? l.mutualInformationBits() : 0.0;
     }
 
     private static String key(String from, String to) {

@@ -17,8 +17,9 @@ public final class PlanCsv {
 
     /** The header row. */
     public static final String HEADER = "from,to,species,hit_probability,signal_mean,interference_mean,isi_mean,"
-            + "background_mean,threshold,error_probability,log10_error_probability,capacity_bits,rate_bits_per_s,"
-            + "limited_by,top_interferer,top_interferer_share,model_caveat,taps";
+            + "background_mean,threshold,error_probability,log10_error_probability,min_error_threshold,"
+            + "min_error_probability,mutual_information_bits,rate_bits_per_s,capacity_bits,capacity_prior_one,"
+            + "count_blind,limited_by,top_interferer,top_interferer_share,model_caveat,taps";
 
     private static final String EOL = "\r\n";
 
@@ -36,7 +37,10 @@ public final class PlanCsv {
             List<String> row = List.of(l.from(), l.to(), l.species(), number(l.hitProbability()),
                     number(l.signalMean()), number(l.interferenceMean()), number(l.isiMean()),
                     number(l.backgroundMean()), Long.toString(l.threshold()), number(l.errorProbability()),
-                    number(l.log10ErrorProbability()), number(l.capacityBits()), number(l.rateBitsPerS()),
+                    number(l.log10ErrorProbability()),
+                    l.minErrorThreshold() < 0 ? "" : Long.toString(l.minErrorThreshold()),
+                    number(l.minErrorProbability()), number(l.mutualInformationBits()), number(l.rateBitsPerS()),
+                    number(l.capacityBits()), number(l.capacityPriorOne()), Boolean.toString(l.countBlind()),
                     l.limitedBy() == null ? "" : l.limitedBy().id(), nullToEmpty(l.topInterferer()),
                     number(l.topInterfererShare()), nullToEmpty(l.modelCaveat()), taps.toString());
             StringJoiner line = new StringJoiner(",");
@@ -56,6 +60,11 @@ public final class PlanCsv {
 
     private static String number(double v) {
         return Double.isFinite(v) ? Double.toString(v) : "";
+    }
+
+    /** Not computed (null) reads as an empty field, like a non-finite number. */
+    private static String number(Double v) {
+        return v == null ? "" : number(v.doubleValue());
     }
 
     private static String nullToEmpty(String s) {

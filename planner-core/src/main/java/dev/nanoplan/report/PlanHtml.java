@@ -276,21 +276,24 @@ public final class PlanHtml {
     private static void links(StringBuilder h, Plan plan) {
         h.append("<section><h2>Links</h2>\n");
         List<LinkReport> sorted = new ArrayList<>(plan.links());
-        sorted.sort(Comparator.comparingDouble((LinkReport l) -> Double.isFinite(l.capacityBits())
-                ? l.capacityBits() : -1).reversed());
+        sorted.sort(Comparator.comparingDouble((LinkReport l) -> Double.isFinite(l.mutualInformationBits())
+                ? l.mutualInformationBits() : -1).reversed());
         int shown = Math.min(MAX_LINK_ROWS, sorted.size());
         if (sorted.isEmpty()) {
             h.append("<p class=\"note\">No link carries information above the capacity floor.</p>\n</section>\n");
             return;
         }
         h.append("<p class=\"note\">").append(shown < sorted.size()
-                ? "The " + shown + " highest-capacity links of " + sorted.size() + " (all of them are in plan.json "
+                ? "The " + shown + " most informative links of " + sorted.size() + " (all of them are in plan.json "
                         + "and links.csv)."
-                : sorted.size() + " links, highest capacity first.").append("</p>\n");
+                : sorted.size() + " links, most informative first.").append(" Threshold, error, information and "
+                        + "rate are at the operating point (the file's prior, the information-maximising threshold); "
+                        + "capacity is the headroom at the emitter's best prior, computed for route hops.</p>\n");
         h.append("<div class=\"tablewrap\"><table>\n<tr><th>From</th><th>To</th><th>Species</th>"
                 + "<th class=\"n\">Hit prob. p<sub>0</sub></th><th class=\"n\">Signal</th>"
                 + "<th class=\"n\">ISI</th><th class=\"n\">Crosstalk</th><th class=\"n\">Threshold</th>"
-                + "<th class=\"n\">Error prob.</th><th class=\"n\">Capacity (bit)</th><th class=\"n\">Rate (bit/s)</th>"
+                + "<th class=\"n\">Error prob.</th><th class=\"n\">Information (bit)</th><th class=\"n\">Rate (bit/s)</th>"
+                + "<th class=\"n\">Capacity (bit)</th>"
                 + "<th>Limited by</th><th>Top interferer</th><th>Caveat</th></tr>\n");
         for (LinkReport l : sorted.subList(0, shown)) {
             h.append("<tr><td>").append(esc(l.from())).append("</td><td>").append(esc(l.to())).append("</td><td>")
@@ -301,8 +304,9 @@ public final class PlanHtml {
             numCell(h, Numbers.quantity(l.interferenceMean()));
             numCell(h, Long.toString(l.threshold()));
             numCell(h, Numbers.errorProbability(l.errorProbability(), l.log10ErrorProbability()));
-            numCell(h, Numbers.bits(l.capacityBits()));
+            numCell(h, Numbers.bits(l.mutualInformationBits()));
             numCell(h, Numbers.quantity(l.rateBitsPerS()));
+            numCell(h, l.capacityBits() == null ? Numbers.MISSING : Numbers.bits(l.capacityBits()));
             h.append("<td>").append(l.limitedBy() == null ? "" : esc(l.limitedBy().id())).append("</td><td>");
             if (l.topInterferer() != null) {
                 h.append(esc(l.topInterferer())).append(" (")

@@ -86,8 +86,17 @@ public final class PlanJson {
         number(o, "interference_mean", l.interferenceMean());
         o.put("threshold", l.threshold());
         number(o, "error_probability", l.errorProbability());
-        number(o, "capacity_bits", l.capacityBits());
+        number(o, "mutual_information_bits", l.mutualInformationBits());
+        number(o, "capacity_bits", l.capacityBits() == null ? Double.NaN : l.capacityBits());
+        number(o, "capacity_prior_one", l.capacityPriorOne() == null ? Double.NaN : l.capacityPriorOne());
         number(o, "rate_bits_per_s", l.rateBitsPerS());
+        if (l.minErrorThreshold() >= 0) {
+            o.put("min_error_threshold", l.minErrorThreshold());
+        } else {
+            o.putNull("min_error_threshold");
+        }
+        number(o, "min_error_probability", l.minErrorProbability());
+        o.put("count_blind", l.countBlind());
         impairment(o, "limited_by", l.limitedBy());
         text(o, "top_interferer", l.topInterferer());
         number(o, "log10_error_probability", l.log10ErrorProbability());

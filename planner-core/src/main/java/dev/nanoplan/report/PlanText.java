@@ -35,20 +35,24 @@ public final class PlanText {
         sb.append(String.format(Locale.ROOT, "%d links above the floor, %d demands%n%n", plan.links().size(),
                 plan.routes().size()));
         List<LinkReport> sorted = new ArrayList<>(plan.links());
-        sorted.sort(Comparator.comparingDouble(LinkReport::capacityBits).reversed());
+        sorted.sort(Comparator.comparingDouble(LinkReport::mutualInformationBits).reversed());
         List<LinkReport> shown = new ArrayList<>(sorted.subList(0, Math.min(TOP_LINKS, sorted.size())));
         for (int i = Math.max(shown.size(), sorted.size() - TOP_LINKS); i < sorted.size(); i++) {
             shown.add(sorted.get(i));
         }
         sb.append("Links (strongest ").append(Math.min(TOP_LINKS, sorted.size())).append(" and weakest)\n");
-        sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10s %10s %10s %6s %10s %9s %-9s %s%n", "from", "to",
-                "sp", "signal", "interf.", "isi", "tau", "Pe", "bit/sym", "limit", "top interferer"));
+        sb.append("(tau, Pe and bit/sym at the operating point: the file's prior, the information-maximising "
+                + "threshold; cap = consistent capacity at its best prior, route hops only)\n");
+        sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10s %10s %10s %6s %10s %9s %7s %-9s %s%n", "from",
+                "to", "sp", "signal", "interf.", "isi", "tau", "Pe", "bit/sym", "cap", "limit", "top interferer"));
         for (LinkReport l : shown) {
-            sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10s %10s %10s %6s %10s %9s %-9s %s%s%n",
+            sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10s %10s %10s %6s %10s %9s %7s %-9s %s%s%n",
                     l.from(), l.to(), l.species(), Numbers.quantity(l.signalMean()),
                     Numbers.quantity(l.interferenceMean()), Numbers.quantity(l.isiMean()),
                     Numbers.threshold(l.threshold()), Numbers.errorProbability(l.errorProbability(),
-                            l.log10ErrorProbability()), Numbers.bits(l.capacityBits()), l.limitedBy().id(),
+                            l.log10ErrorProbability()), Numbers.bits(l.mutualInformationBits()),
+                    l.capacityBits() == null ? "-" : String.format(Locale.ROOT, "%.3f", l.capacityBits()),
+                    l.limitedBy().id(),
                     l.topInterferer() == null ? "-" : String.format(Locale.ROOT, "%s (%.0f%%)", l.topInterferer(),
                             100 * l.topInterfererShare()),
                     l.modelCaveat() == null ? "" : "  [" + l.modelCaveat() + "]"));

@@ -186,7 +186,7 @@ class RecordEqualityTest {
     }
 
     private static LinkReport link(double signalMean, String caveat) {
-        return new LinkReport("tx", "rx", "A", 0.1, new double[] {0.1, 0.05}, signalMean, 3, 2, 0, 40, 0.01, -2, 0.9,
-                3, 0.01, 0.01, Impairment.SIGNAL, null, 0, caveat);
+        return new LinkReport("tx", "rx", "A", 0.1, new double[] {0.1, 0.05}, signalMean, 3, 2, 0, 40, 0.01, -2, 38,
+                0.009, 0.9, 3, 0.95, 0.4, 0.01, 0.01, false, Impairment.SIGNAL, null, 0, caveat);
     }
 }

@@ -90,4 +90,57 @@ class ChannelCascadeTest {
                 .isInstanceOf(IllegalArgumentException.class);
         assertThat(ChannelCascade.compose(a)).isDeepEqualTo(a);
     }
+
+    /**
+     * The cascade's mutual information at an input law against a brute-force sum over the joint law
+     * p(x)·W(y|x) of I = Σ p(x, y) log2[p(x, y) / (p(x) p(y))] (Cover and Thomas 2006, eq. 2.28), and
+     * never above the first hop's at the same law (data processing, ibid. Theorem 2.8.1).
+     */
+    @ParameterizedTest
+    @MethodSource("randomChains")
+    void mutualInformationAtAnInputLawMatchesTheJointLawSum(double[][][] chain) {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(chain.length * 31L + chain[0].length);
+        double[] input = randomStochastic(rng, 1, chain[0].length)[0];
+        double[][] w = ChannelCascade.compose(chain);
+        double[] out = new double[w[0].length];
+        for (int x = 0; x < w.length; x++) {
+            for (int y = 0; y < out.length; y++) {
+                out[y] += input[x] * w[x][y];
+            }
+        }
+        double brute = 0;
+        for (int x = 0; x < w.length; x++) {
+            for (int y = 0; y < out.length; y++) {
+                double joint = input[x] * w[x][y];
+                if (joint > 0) {
+                    brute += joint * Math.log(joint / (input[x] * out[y])) / Math.log(2);
+                }
+            }
+        }
+        assertThat(ChannelCascade.mutualInformationBits(input, chain)).isCloseTo(brute, within(1e-12));
+        assertThat(ChannelCascade.mutualInformationBits(input, chain))
+                .isLessThanOrEqualTo(ChannelCascade.mutualInformationBits(input, chain[0]) + 1e-12);
+    }
+
+    /**
+     * Two binary hops at prior q: the end-to-end crossovers by hand, e0 = a0(1 − b1) + (1 − a0)b0 and
+     * e1 = a1(1 − b0) + (1 − a1)b1 (Silverman 1955), whose BAC information at q is
+     * h((1−q)e0 + q(1−e1)) − (1−q)h(e0) − q·h(e1) (Cover and Thomas 2006, eq. 2.43, h the binary entropy).
+     */
+    @Test
+    void twoBinaryHopsAtAPriorMatchTheHandProduct() {
+        double a0 = 0.1;
+        double a1 = 0.02;
+        double b0 = 0.05;
+        double b1 = 0.2;
+        double q = 0.3;
+        double e0 = a0 * (1 - b1) + (1 - a0) * b0;
+        double e1 = a1 * (1 - b0) + (1 - a1) * b1;
+        double expected = Entropy.binaryBits((1 - q) * e0 + q * (1 - e1)) - (1 - q) * Entropy.binaryBits(e0)
+                - q * Entropy.binaryBits(e1);
+        double[][] h1 = {{1 - a0, a0}, {a1, 1 - a1}};
+        double[][] h2 = {{1 - b0, b0}, {b1, 1 - b1}};
+        assertThat(ChannelCascade.mutualInformationBits(new double[] {1 - q, q}, h1, h2))
+                .isCloseTo(expected, within(1e-14));
+    }
 }

@@ -66,9 +66,10 @@ class NetworkPlannerTest {
                 nodes, List.of(new Demand("t0", "rx")), Targets.DEFAULT);
     }
 
+    /** The link's information as the plan reports it: the operating point (mutual information at the prior). */
     private static double capacity(Plan p, String from, String to) {
         return p.links().stream().filter(l -> l.from().equals(from) && l.to().equals(to))
-                .mapToDouble(LinkReport::capacityBits).findFirst().orElse(0);
+                .mapToDouble(LinkReport::mutualInformationBits).findFirst().orElse(0);
     }
 
     @ParameterizedTest

@@ -119,7 +119,7 @@ class SharedRatesTest {
                 assertThat(sh.limitedAt()).isNull();
             }
         }
-        // the file asks 0.3 bit/s per demand: every demand that meets it alone but not shared is named in one
+        // the file asks 0.1 bit/s per demand: every demand that meets it alone but not shared is named in one
         // warning per relay
         double target = s.targets().minRateBitsPerS();
         for (int i = 0; i < shares.size(); i++) {

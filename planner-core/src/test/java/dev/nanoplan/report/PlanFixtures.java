@@ -69,7 +69,8 @@ final class PlanFixtures {
         double[] taps = {0.03, 0.012, 0.004, 0.002};
         double log10 = error > 0 ? Math.log10(error) : -412.5;
         return new LinkReport(from, to, species, taps[0], taps, 120.0, 14.5, 9.25, 5.0, 61, error, log10,
-                capacityBits, capacityBits / 1.0, error, error, limitedBy, topInterferer, share, null);
+                61, error, capacityBits, capacityBits / 1.0, capacityBits, 0.5, error, error, false, limitedBy,
+                topInterferer, share, null);
     }
 
     /**

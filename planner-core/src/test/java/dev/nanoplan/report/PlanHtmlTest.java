@@ -57,6 +57,6 @@ class PlanHtmlTest {
         // 30 × 30 grid: 435 links; routes table adds one row starting with a node id
         assertThat(grid.links()).hasSizeGreaterThan(PlanHtml.MAX_LINK_ROWS);
         assertThat(rows).isEqualTo(PlanHtml.MAX_LINK_ROWS + 1);
-        assertThat(html).contains("The 200 highest-capacity links of " + grid.links().size());
+        assertThat(html).contains("The 200 most informative links of " + grid.links().size());
     }
 }

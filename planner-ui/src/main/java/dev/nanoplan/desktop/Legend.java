@@ -14,14 +14,14 @@ import javafx.scene.paint.Color;
 import javafx.scene.shape.Circle;
 import javafx.scene.shape.Rectangle;
 
-/** The 3D view's key: capacity colour scale (0 to the most a symbol carries), node roles, bottleneck. */
+/** The 3D view's key: information colour scale (operating mutual information) (0 to the most a symbol carries), node roles, bottleneck. */
 final class Legend {
 
     private Legend() {
     }
 
     static Region create(ObservableDoubleValue maxBits) {
-        Label title = new Label("Link capacity (bit/symbol)");
+        Label title = new Label("Link information (bit/symbol)");
         title.getStyleClass().add("legend-title");
         Rectangle bar = new Rectangle(200, 12);
         bar.setFill(CapacityColours.legendGradient());

@@ -14,7 +14,7 @@ import java.util.function.BiFunction;
 final class RouteSummary {
 
     /** Shown while no route is selected. */
-    static final String NONE_SELECTED = "Select a route to see its per-hop capacity and what limits it.";
+    static final String NONE_SELECTED = "Select a route to see its per-hop information and what limits it.";
 
     private RouteSummary() {
     }
@@ -36,7 +36,7 @@ final class RouteSummary {
         for (int i = 0; i + 1 < r.hops().size(); i++) {
             LinkReport l = links.apply(r.hops().get(i), r.hops().get(i + 1));
             sb.append(i == 0 ? "" : ", ").append(r.hops().get(i)).append("→").append(r.hops().get(i + 1))
-                    .append(" ").append(l == null ? "?" : Formats.sig(l.capacityBits())).append(" bit");
+                    .append(" ").append(l == null ? "?" : Formats.sig(l.mutualInformationBits())).append(" bit");
         }
         sb.append("\nBottleneck ").append(r.bottleneckFrom()).append(" → ").append(r.bottleneckTo())
                 .append(r.bottleneckLimitedBy() == null ? "" : " (limited by " + r.bottleneckLimitedBy().id() + ")")

@@ -336,7 +336,7 @@ public final class SceneView {
             boolean onRoute = routeHops.contains(key);
             boolean bottleneck = onRoute && l.from().equals(route.bottleneckFrom()) && l.to().equals(route.bottleneckTo());
             double radius = r * (bottleneck ? 4 : onRoute ? 2.6 : isSel ? 3 : 1);
-            Color c = CapacityColours.of(l.capacityBits(), max);
+            Color c = CapacityColours.of(l.mutualInformationBits(), max);
             Cylinder cyl = Shapes3D.segment(a.positionUm(), b.positionUm(), radius, material(c));
             cyl.setUserData(l);
             cyl.setId("link-" + key);

@@ -74,11 +74,11 @@ final class SimulationRun {
         return new Obtained(o.channel(), o.source());
     }
 
-    /** The capacity of the link compared in {@code c} in plan {@code p}, or NaN when the plan lacks it. */
+    /** The operating mutual information of the link compared in {@code c} in plan {@code p}, or NaN when the plan lacks it. */
     private static double capacity(Plan p, LinkComparison c) {
         for (LinkReport l : p.links()) {
             if (l.from().equals(c.from()) && l.to().equals(c.to())) {
-                return l.capacityBits();
+                return l.mutualInformationBits();
             }
         }
         return Double.NaN;

@@ -32,7 +32,8 @@ final class FakePlans implements PlanService {
             Node b = byId.get(d.to());
             double c = 1 / (1 + a.positionUm().distance(b.positionUm()) / 100);
             links.add(new LinkReport(d.from(), d.to(), b.species(), 0.1, new double[] {0.1}, 10, 0, 0, 0, 5, 0.01,
-                    -2, c, c / s.signalling().symbolTimeS(), 0.01, 0.01, Impairment.SIGNAL, null, 0, null));
+                    -2, 5, 0.01, c, c / s.signalling().symbolTimeS(), null, null, 0.01, 0.01, false, Impairment.SIGNAL,
+                    null, 0, null));
             routes.add(new RouteReport(d.from(), d.to(), List.of(d.from(), d.to()), c, d.from(), d.to(), c,
                     c / s.signalling().symbolTimeS(), s.signalling().symbolTimeS(), c, Impairment.SIGNAL, "move closer"));
         }

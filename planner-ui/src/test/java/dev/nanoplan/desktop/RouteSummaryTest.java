@@ -14,8 +14,8 @@ import org.junit.jupiter.api.Test;
 class RouteSummaryTest {
 
     static LinkReport link(String from, String to, double capacityBits) {
-        return new LinkReport(from, to, "A", 0.1, new double[] {0.1}, 10, 0, 0, 0, 5, 0.01, -2, capacityBits, 1, 0.01,
-                0.01, Impairment.SIGNAL, null, 0, null);
+        return new LinkReport(from, to, "A", 0.1, new double[] {0.1}, 10, 0, 0, 0, 5, 0.01, -2, 5, 0.01, capacityBits, 1, null,
+                null, 0.01, 0.01, false, Impairment.SIGNAL, null, 0, null);
     }
 
     static final Map<String, LinkReport> LINKS = Map.of("s1>r", link("s1", "r", 0.912), "r>gw", link("r", "gw", 0.25));
@@ -31,7 +31,7 @@ class RouteSummaryTest {
     void noSelectionAsksForOne() {
         // worked example: the placeholder sentence, unchanged from the window's former binding
         assertThat(RouteSummary.of(null, RouteSummaryTest::find, null))
-                .isEqualTo("Select a route to see its per-hop capacity and what limits it.");
+                .isEqualTo("Select a route to see its per-hop information and what limits it.");
     }
 
     @Test
