@@ -38,7 +38,7 @@ class RouteSummaryTest {
     void aRelayedRouteListsItsHopsBottleneckAndAdvice() {
         // worked example: hops in order with three significant digits, then the bottleneck and its impairment id
         assertThat(RouteSummary.of(RELAYED, RouteSummaryTest::find, null)).isEqualTo(
-                "s1 → gw: s1→r 0.912 bit, r→gw 0.250 bit\nBottleneck r → gw (limited by crosstalk). move r closer to gw");
+                "s1 → gw: s1→r 0.912 bit, r→gw 0.25 bit\nBottleneck r → gw (limited by crosstalk). move r closer to gw");
     }
 
     @Test
@@ -63,7 +63,7 @@ class RouteSummaryTest {
         // worked example: max-min fair time-sharing (Bertsekas and Gallager, Data Networks, 1992, §6.5.2)
         // of r's stream among 3 demands leaves this route 0.667 bit/s
         assertThat(RouteSummary.of(RELAYED, RouteSummaryTest::find, new SharedRates.Share(2.0 / 3, "r", 3)))
-                .isEqualTo(base + "\nShared: 0.667 bit/s, because r's slots carry 3 demands (max-min fair "
+                .isEqualTo(base + "\nShared: 0.6667 bit/s, because r's slots carry 3 demands (max-min fair "
                         + "time-sharing).");
         // a route alone on its stream, or not limited by sharing, reads as without a share
         assertThat(RouteSummary.of(RELAYED, RouteSummaryTest::find, new SharedRates.Share(2.0, null, 1)))
