@@ -285,16 +285,6 @@ final class LinkContext {
         return whatIf(entry.taps(), top, symbolTimeS(), scenario.medium().backgroundMoleculesPerS(), interferers);
     }
 
-    /** Own and every interferer's molecules scaled by {@code factor}. */
-    LinkEvaluation allScaled(double factor) {
-        List<Crosstalk.Interferer> scaled = new ArrayList<>(interferers.size());
-        for (Crosstalk.Interferer i : interferers) {
-            scaled.add(i.scaled(factor));
-        }
-        long top = Math.max(1, Math.round(emitter.moleculesPerSymbol() * factor));
-        return whatIf(entry.taps(), top, symbolTimeS(), scenario.medium().backgroundMoleculesPerS(), scaled);
-    }
-
     /** Analytic only: the link with the emitter moved to centre distance {@code distanceUm}. */
     LinkEvaluation atDistance(double distanceUm) {
         double[] taps = slots.own(entry.species(), AnalyticChannel.model(distanceUm, receiver.radiusUm(), species)

@@ -15,6 +15,7 @@ import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.DoubleConsumer;
+import java.util.function.LongFunction;
 
 /**
  * Molecule budgets, one per emitting node: the fewest molecules per symbol (top level N) that meet
@@ -267,7 +268,7 @@ final class MoleculeBudgets {
             }
         }
         Map<Long, LinkEvaluation> memo = new HashMap<>();
-        java.util.function.LongFunction<LinkEvaluation> exact = n -> memo.computeIfAbsent(n, ctx::withMoleculesExact);
+        LongFunction<LinkEvaluation> exact = n -> memo.computeIfAbsent(n, ctx::withMoleculesExact);
         int levels = ctx.signalling().levels();
         // below M − 1 the levels are clamped to 0..M−1: N = M − 2 acts as the conventional miss
         long lo = levels - 2;

@@ -29,9 +29,9 @@ import dev.nanoplan.scenario.Scenario;
  * {@link Impairment#SIGNAL}-limited (too few molecules arrive) ({@link Impairment#limitedBy}).
  *
  * <p><b>Routes.</b> {@link RouteAssembler}: {@link WidestPathFinder} on the {@link LinkGraph}; relays decode and forward,
- * so the end-to-end capacity is that of the cascade of the hops' transition matrices at their
- * capacity-achieving detectors ({@link dev.nanoplan.info.ChannelCascade}), never above the
- * weakest hop. Latency = hops × T, rate = end-to-end capacity / T.
+ * so the end-to-end figure is the mutual information, at the file's prior, of the cascade of the hops'
+ * transition matrices at their operating thresholds ({@link dev.nanoplan.info.ChannelCascade}), never
+ * above the weakest hop. Latency = hops × T, rate = end-to-end information / T.
  *
  * <p><b>Round-robin.</b> Under {@link dev.nanoplan.scenario.Schedule#ROUND_ROBIN} each link hears
  * its own and its neighbours' taps decimated to its emitter's slots ({@link SlotSchedule}); the

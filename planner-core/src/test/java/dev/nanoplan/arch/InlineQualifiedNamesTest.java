@@ -21,15 +21,10 @@ import org.junit.jupiter.api.Test;
 class InlineQualifiedNamesTest {
 
     /**
-     * Files still allowed to hold inline names while they are being rewritten on other branches;
-     * a folder entry (ending in /) covers its files. To be emptied once those branches are merged.
+     * Files allowed to hold inline names (none today; a folder entry ending in / would cover its
+     * files): keep it empty unless a generated source needs an exception.
      */
-    private static final List<String> ALLOWED = List.of(
-            "planner-core/src/main/java/dev/nanoplan/plan/NetworkPlanner.java",
-            "planner-core/src/main/java/dev/nanoplan/plan/PreviewPlanner.java",
-            "planner-core/src/main/java/dev/nanoplan/plan/LinkContext.java",
-            "planner-core/src/main/java/dev/nanoplan/plan/MoleculeBudgets.java",
-            "planner-core/src/main/java/dev/nanoplan/plan/BottleneckAdvisor.java");
+    private static final List<String> ALLOWED = List.of();
 
     private static final Pattern INLINE = Pattern.compile("(?<![\\w.])dev\\.nanoplan(?:\\.[a-z_][a-z0-9_]*)+\\.[A-Z]");
 
