@@ -164,7 +164,7 @@ class AdviceCheckerTest {
             String from = m.group(1);
             String to = m.group(2);
             double c = after.links().stream().filter(l -> l.from().equals(from) && l.to().equals(to))
-                    .mapToDouble(LinkReport::capacityBits).findFirst().orElse(0);
+                    .mapToDouble(LinkReport::mutualInformationBits).findFirst().orElse(0);
             assertPrinted(m.group(3), c, text);
         }
         int own = v.demand();
