@@ -99,7 +99,7 @@ class PlannerViewModelTest {
     @Test
     void movingANodeReplansAndChangesItsLinks() throws Exception {
         opened();
-        double before = vm.tables().findLink("s01", "gw").capacityBits();
+        double before = vm.tables().findLink("s01", "gw").mutualInformationBits();
         assertThat(vm.editor().moveNode("s01", new Vec3(60, 60, 60))).isTrue();
         Plan p = awaitPlan();
         Node moved = p.scenario().nodesById().get("s01");
@@ -107,7 +107,7 @@ class PlannerViewModelTest {
         assertThat(fake.calls).hasSize(2);
         assertThat(vm.tables().planProperty().get()).isSameAs(p);
         // farther from the gateway, the fake's capacity label 1/(1 + d/100) must drop
-        assertThat(vm.tables().findLink("s01", "gw").capacityBits()).isLessThan(before);
+        assertThat(vm.tables().findLink("s01", "gw").mutualInformationBits()).isLessThan(before);
         assertThat(vm.document().dirtyProperty().get()).isTrue();
     }
 
@@ -288,12 +288,12 @@ class PlannerViewModelTest {
     void comparisonShowsKeptAndCurrentNumbers() throws Exception {
         opened();
         vm.keepForComparison();
-        double kept = vm.tables().findLink("s01", "gw").capacityBits();
+        double kept = vm.tables().findLink("s01", "gw").mutualInformationBits();
         vm.editor().moveNode("s01", new Vec3(60, 60, 60));
         awaitPlan();
         DemandComparison row = vm.tables().comparison().stream().filter(r -> r.from().equals("s01")).findFirst().orElseThrow();
         assertThat(row.baselineCapacity()).isEqualTo(kept);
-        assertThat(row.capacity()).isEqualTo(vm.tables().findLink("s01", "gw").capacityBits());
+        assertThat(row.capacity()).isEqualTo(vm.tables().findLink("s01", "gw").mutualInformationBits());
         // s01 releases 4000 molecules for a "1" at prior_one 0.05 (culture-tank.json): 200 per symbol on average
         assertThat(row.molPerBit()).isCloseTo(4000 * 0.05 / row.capacity(), org.assertj.core.data.Offset.offset(1e-9));
     }

@@ -150,7 +150,7 @@ class SimulationViewModelTest {
         // the analytic capacity is the core planner's, called directly
         LinkReport l = NetworkPlanner.plan(s, PlanOptions.DEFAULT).links().stream()
                 .filter(x -> x.from().equals("tx") && x.to().equals("rx1")).findFirst().orElseThrow();
-        assertThat(sim.rows().get(0).analyticCapacityBits()).isEqualTo(l.capacityBits());
+        assertThat(sim.rows().get(0).analyticCapacityBits()).isEqualTo(l.mutualInformationBits());
         assertThat(sim.rows().get(0).simulatedCapacityBits()).isBetween(0.0, 1.0);
         assertThat(sim.staleProperty().get()).isFalse();
     }
@@ -447,7 +447,7 @@ class SimulationViewModelTest {
         assertThat(vm.lastAnalyticReused()).isTrue();
         // the planner here is the hand-made FakePlans, whose capacity label differs from the core's:
         // the analytic column shows the planner's plan, not a new one
-        assertThat(vm.rows().get(0).analyticCapacityBits()).isEqualTo(plannersPlan.links().get(0).capacityBits());
+        assertThat(vm.rows().get(0).analyticCapacityBits()).isEqualTo(plannersPlan.links().get(0).mutualInformationBits());
     }
 
     @Test
@@ -479,7 +479,7 @@ class SimulationViewModelTest {
             assertThat(vm.lastAnalyticReused()).isFalse();
             // re-planned with the core, called directly as the reference
             LinkReport l = NetworkPlanner.plan(edited, PlanOptions.DEFAULT).links().get(0);
-            assertThat(vm.rows().get(0).analyticCapacityBits()).isEqualTo(l.capacityBits());
+            assertThat(vm.rows().get(0).analyticCapacityBits()).isEqualTo(l.mutualInformationBits());
         } finally {
             release.countDown();
         }
