@@ -7,7 +7,7 @@ package dev.nanoplan.physics;
  * absorbed by time t (it may stay below one: molecules can escape or decay), {@link
  * #density(double)} its derivative, {@link #eventual()} the limit for t → ∞.
  */
-public interface HittingModel {
+public interface HittingModel extends TapModel {
 
     /** F(t): fraction absorbed by {@code timeS} (0 for t ≤ 0). */
     double cumulative(double timeS);
@@ -22,11 +22,14 @@ public interface HittingModel {
     double eventual();
 
     /**
-     * Per-slot hit probabilities of a release at the start of slot 0:
+     * {@inheritDoc}
+     *
+     * <p>For a hitting model: per-slot hit probabilities of a release at the start of slot 0:
      * p_k = F((k+1)T) − F(kT), k = 0..memorySymbols, computed without catastrophic cancellation.
      *
      * @param symbolTimeS T, > 0
      * @param memorySymbols L ≥ 0; the result has L + 1 entries
      */
+    @Override
     double[] taps(double symbolTimeS, int memorySymbols);
 }

@@ -1,8 +1,5 @@
 package dev.nanoplan.physics;
 
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegrator;
-import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactory;
-
 /**
  * Per-slot hit probabilities p_k = F((k+1)T) − F(kT), k = 0..L, of any {@link HittingModel},
  * without catastrophic cancellation. Shared by every model so they all compute taps alike.
@@ -14,12 +11,7 @@ import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactor
  *       covers slot 0 and every early slot where both values are tiny (down to 1e-300);</li>
  *   <li>otherwise the difference would lose digits (for large k, or when F has saturated,
  *       p_k may be below double epsilon relative to F), so p_k = ∫ f(t) dt over the slot by
- *       adaptive Gauss–Legendre quadrature of the density: 16-point rule (nodes and weights
- *       from Commons Math {@link GaussIntegratorFactory#legendre(int)}, weights within 2e-15
- *       relative of the BigDecimal rule), panel
- *       bisected until the 16-point value on the panel and the sum over its two halves agree to
- *       1e-13 relative (or to an absolute floor of 1e-16 of the first estimate, at least
- *       {@link Double#MIN_NORMAL}); at most 40 levels. Because k ≥ 1 here, the density's
+ *       adaptive Gauss–Legendre quadrature of the density ({@link AdaptiveGaussLegendre}). Because k ≥ 1 here, the density's
  *       essential singularity at t = 0 lies at least one slot away, so the rule converges
  *       geometrically (16 points on [T, 2T] already reach ~1e-16 for t^(-3/2)·e^(−c/t)).</li>
  * </ul>
@@ -33,21 +25,6 @@ import org.apache.commons.math3.analysis.integration.gauss.GaussIntegratorFactor
  */
 final class Taps {
 
-    private static final int POINTS = 16;
-    private static final double[] NODES = new double[POINTS];
-    private static final double[] WEIGHTS = new double[POINTS];
-    private static final double RELATIVE_TOLERANCE = 1e-13;
-    private static final double FLOOR_FRACTION = 1e-16;
-    private static final int MAX_DEPTH = 40;
-
-    static {
-        GaussIntegrator rule = new GaussIntegratorFactory().legendre(POINTS);
-        for (int i = 0; i < POINTS; i++) {
-            NODES[i] = rule.getPoint(i);
-            WEIGHTS[i] = rule.getWeight(i);
-        }
-    }
-
     private Taps() {
     }
 
@@ -58,16 +35,7 @@ final class Taps {
      * @return p_0..p_L (length L + 1)
      */
     static double[] of(HittingModel model, double symbolTimeS, int memorySymbols) {
-        if (!(symbolTimeS > 0 && symbolTimeS < Double.POSITIVE_INFINITY)) {
-            throw new IllegalArgumentException("symbolTimeS: must be finite and > 0, got " + symbolTimeS);
-        }
-        if (memorySymbols < 0) {
-            throw new IllegalArgumentException("memorySymbols: must be >= 0, got " + memorySymbols);
-        }
-        if (!Double.isFinite((memorySymbols + 1.0) * symbolTimeS)) {
-            throw new IllegalArgumentException("memorySymbols: (memorySymbols + 1) * symbolTimeS overflows, got "
-                + memorySymbols + " and " + symbolTimeS);
-        }
+        check(symbolTimeS, memorySymbols);
         double[] taps = new double[memorySymbols + 1];
         double lower = 0;
         for (int k = 0; k <= memorySymbols; k++) {
@@ -81,33 +49,21 @@ final class Taps {
         return taps;
     }
 
+    /** Checks T and L as {@link #of} documents. */
+    static void check(double symbolTimeS, int memorySymbols) {
+        if (!(symbolTimeS > 0 && symbolTimeS < Double.POSITIVE_INFINITY)) {
+            throw new IllegalArgumentException("symbolTimeS: must be finite and > 0, got " + symbolTimeS);
+        }
+        if (memorySymbols < 0) {
+            throw new IllegalArgumentException("memorySymbols: must be >= 0, got " + memorySymbols);
+        }
+        if (!Double.isFinite((memorySymbols + 1.0) * symbolTimeS)) {
+            throw new IllegalArgumentException("memorySymbols: (memorySymbols + 1) * symbolTimeS overflows, got "
+                + memorySymbols + " and " + symbolTimeS);
+        }
+    }
+
     private static double integrateDensity(HittingModel model, double lowS, double highS) {
-        double whole = gauss(model, lowS, highS);
-        double floor = Math.max(FLOOR_FRACTION * Math.abs(whole), Double.MIN_NORMAL);
-        return refine(model, lowS, highS, whole, floor, 0);
-    }
-
-    private static double refine(HittingModel model, double lowS, double highS, double whole,
-                                 double floor, int depth) {
-        double midS = 0.5 * (lowS + highS);
-        double left = gauss(model, lowS, midS);
-        double right = gauss(model, midS, highS);
-        double sum = left + right;
-        if (depth >= MAX_DEPTH || !(midS > lowS && midS < highS)
-            || Math.abs(sum - whole) <= Math.max(RELATIVE_TOLERANCE * Math.abs(sum), floor)) {
-            return sum;
-        }
-        return refine(model, lowS, midS, left, floor, depth + 1)
-            + refine(model, midS, highS, right, floor, depth + 1);
-    }
-
-    private static double gauss(HittingModel model, double lowS, double highS) {
-        double half = 0.5 * (highS - lowS);
-        double centre = 0.5 * (highS + lowS);
-        double sum = 0;
-        for (int i = 0; i < POINTS; i++) {
-            sum += WEIGHTS[i] * model.density(centre + half * NODES[i]);
-        }
-        return half * sum;
+        return AdaptiveGaussLegendre.integrate(model::density, lowS, highS);
     }
 }
