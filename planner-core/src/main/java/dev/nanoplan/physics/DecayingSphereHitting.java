@@ -77,6 +77,20 @@ public final class DecayingSphereHitting implements HittingModel {
         return new DecayingSphereHitting(open, halfLife);
     }
 
+    /**
+     * λ = ln 2 / half-life, checked as {@link #of} checks it; shared by the receiver models.
+     *
+     * @param halfLifeS &gt; 0, or {@code null} / +∞ for no decay
+     * @return λ in 1/s, 0 for no decay
+     */
+    static double decayRatePerS(Double halfLifeS) {
+        double halfLife = halfLifeS == null ? Double.POSITIVE_INFINITY : halfLifeS;
+        if (!(halfLife > 0)) {
+            throw new IllegalArgumentException("halfLifeS: must be > 0 (or null for no decay), got " + halfLifeS);
+        }
+        return halfLife == Double.POSITIVE_INFINITY ? 0 : LN2 / halfLife;
+    }
+
     /** @return the same geometry without decay */
     public OpenSphereHitting withoutDecay() {
         return open;

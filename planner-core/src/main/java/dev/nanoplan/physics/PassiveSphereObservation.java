@@ -34,7 +34,6 @@ import org.apache.commons.numbers.gamma.Erfcx;
 public final class PassiveSphereObservation implements TapModel {
 
     private static final double INV_SQRT_PI = 1 / Math.sqrt(Math.PI);
-    private static final double LN2 = Math.log(2);
     /** The closed form is used while its value is at least this fraction of its larger half. */
     private static final double CANCELLATION_LIMIT = 1e-3;
 
@@ -66,14 +65,10 @@ public final class PassiveSphereObservation implements TapModel {
     public static PassiveSphereObservation of(double distanceUm, double radiusUm, double diffusionUm2PerS,
             Double halfLifeS, Double samplingOffsetS) {
         OpenSphereHitting.of(distanceUm, radiusUm, diffusionUm2PerS); // the same geometry checks
-        double halfLife = halfLifeS == null ? Double.POSITIVE_INFINITY : halfLifeS;
-        if (!(halfLife > 0)) {
-            throw new IllegalArgumentException("halfLifeS: must be > 0 (or null for no decay), got " + halfLifeS);
-        }
+        double lambda = DecayingSphereHitting.decayRatePerS(halfLifeS);
         if (samplingOffsetS != null && !(samplingOffsetS > 0 && samplingOffsetS < Double.POSITIVE_INFINITY)) {
             throw new IllegalArgumentException("samplingOffsetS: must be finite and > 0, got " + samplingOffsetS);
         }
-        double lambda = halfLife == Double.POSITIVE_INFINITY ? 0 : LN2 / halfLife;
         return new PassiveSphereObservation(distanceUm, radiusUm, diffusionUm2PerS, lambda, samplingOffsetS);
     }
 

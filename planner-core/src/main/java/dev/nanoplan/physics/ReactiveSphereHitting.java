@@ -43,7 +43,6 @@ public final class ReactiveSphereHitting implements HittingModel {
 
     private static final double SQRT_PI = Math.sqrt(Math.PI);
     private static final double INV_SQRT_PI = 1 / SQRT_PI;
-    private static final double LN2 = Math.log(2);
     private static final int CONTINUED_FRACTION_TERMS = 80;
     private static final double CONTINUED_FRACTION_FROM = 2;
 
@@ -87,12 +86,7 @@ public final class ReactiveSphereHitting implements HittingModel {
         if (!(bindingRateUmPerS > 0 && bindingRateUmPerS < Double.POSITIVE_INFINITY)) {
             throw new IllegalArgumentException("bindingRateUmPerS: must be finite and > 0, got " + bindingRateUmPerS);
         }
-        double halfLife = halfLifeS == null ? Double.POSITIVE_INFINITY : halfLifeS;
-        if (!(halfLife > 0)) {
-            throw new IllegalArgumentException("halfLifeS: must be > 0 (or null for no decay), got " + halfLifeS);
-        }
-        return new ReactiveSphereHitting(open, bindingRateUmPerS, halfLife == Double.POSITIVE_INFINITY ? 0
-            : LN2 / halfLife);
+        return new ReactiveSphereHitting(open, bindingRateUmPerS, DecayingSphereHitting.decayRatePerS(halfLifeS));
     }
 
     /** @return κ in µm/s */
