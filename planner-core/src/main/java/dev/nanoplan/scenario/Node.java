@@ -42,6 +42,15 @@ public record Node(String id, Role role, Vec3 positionUm, double radiusUm, Strin
         }
     }
 
+    /**
+     * Whether this node takes the molecules of its {@code species} out of the medium (receivers and
+     * relays today). The hook for neighbour-absorber checks: a passive (transparent) receiver model, once
+     * scenario files can name it, returns false here while still counting molecules.
+     */
+    public boolean absorbs() {
+        return role.absorbs();
+    }
+
     /** A transmitter of {@code species}. */
     public static Node transmitter(String id, Vec3 positionUm, double radiusUm, String species,
             long moleculesPerSymbol) {
