@@ -43,7 +43,7 @@ import java.util.Set;
  * viscosity_mPa_s 0.69, flow none, background_molecules_per_s 0), {@code species[].half_life_s}
  * null = stable, {@code signalling} (isi_memory_symbols 10, levels 2, prior_one 0.5, count_model
  * exact, schedule all-active), {@code nodes[].emits_species} (relays only, default = species),
- * {@code nodes[].molecules_per_symbol} (receivers only, default 0), {@code demands} [],
+ * {@code nodes[].molecules_per_symbol} (receivers only, default 0), {@code nodes[].fixed} (false), {@code demands} [],
  * {@code targets} (max_error_probability 1e-3, min_rate_bits_per_s 0, mission_duration_s 3600).
  * Required: format, volume, species (non-empty), signalling.symbol_time_s, nodes (non-empty).
  *
@@ -221,6 +221,25 @@ public final class ScenarioReader {
             }
             speciesComplete &= speciesNodes != null;
 
+            List<Species> candidates = new ArrayList<>();
+            List<JsonNode> candidateNodes = root.array("candidate_species", false);
+            for (int i = 0; candidateNodes != null && i < candidateNodes.size(); i++) {
+                String at = "candidate_species[" + i + "]";
+                Obj o = element(candidateNodes.get(i), at);
+                String cName = o == null ? null : o.nonEmptyString("name");
+                Species sp = o == null || cName == null ? null : species(o, cName, mediumForSpecies);
+                if (sp == null) {
+                    continue;
+                }
+                boolean taken = candidates.stream().anyMatch(c -> c.name().equals(cName))
+                        || speciesFacts.stream().anyMatch(f -> cName.equals(f.name()));
+                if (taken) {
+                    error(at + ".name", "'" + cName + "' is already a species or a candidate");
+                } else {
+                    candidates.add(sp);
+                }
+            }
+
             Signalling signalling = signalling(root.object("signalling", true));
 
             List<Node> nodes = new ArrayList<>();
@@ -277,7 +296,7 @@ public final class ScenarioReader {
                 return null;
             }
             return new Scenario(name, volume, medium == null ? Medium.DEFAULT : medium, species, signalling, nodes,
-                    demands, targets == null ? Targets.DEFAULT : targets);
+                    demands, targets == null ? Targets.DEFAULT : targets, candidates);
         }
 
         /** The flow profile name if it parsed even though the medium as a whole did not. */
@@ -480,6 +499,7 @@ public final class ScenarioReader {
             } else {
                 o.consume("molecules_per_symbol");
             }
+            boolean fixed = o.flag("fixed");
             o.finish();
             String emitted = role == Role.RELAY ? (emits == null ? species : emits) : null;
             ScenarioValidator.NodeFact fact = new ScenarioValidator.NodeFact(index, id, role, position,
@@ -488,7 +508,7 @@ public final class ScenarioReader {
             if (id != null && role != null && position != null && radius != null && species != null && emitsOk
                     && molecules != null) {
                 node = new Node(id, role, position, radius, species, role == Role.RELAY ? emitted : species,
-                        molecules);
+                        molecules, fixed);
             }
             return new NodeParts(fact, node);
         }
@@ -586,6 +606,19 @@ public final class ScenarioReader {
                 return null;
             }
             return v.textValue();
+        }
+
+        /** An optional boolean, false if absent. */
+        boolean flag(String name) {
+            JsonNode v = field(name, false);
+            if (v == null) {
+                return false;
+            }
+            if (!v.isBoolean()) {
+                problem(name, "must be true or false, got " + describe(v));
+                return false;
+            }
+            return v.booleanValue();
         }
 
         String optionalString(String name, String fallback) {

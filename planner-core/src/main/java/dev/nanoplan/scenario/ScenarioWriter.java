@@ -14,6 +14,7 @@ import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.util.List;
 
 /**
  * Writes a {@link Scenario} in the {@value Scenario#FORMAT} file format, pretty-printed with the
@@ -68,23 +69,10 @@ public final class ScenarioWriter {
             g.writeStringField("name", s.name());
             volume(g, s.volume());
             medium(g, s.medium());
-            g.writeArrayFieldStart("species");
-            for (Species sp : s.species()) {
-                g.writeStartObject();
-                g.writeStringField("name", sp.name());
-                if (sp.hydrodynamicRadiusNm().isPresent()) {
-                    g.writeNumberField("hydrodynamic_radius_nm", sp.hydrodynamicRadiusNm().getAsDouble());
-                } else {
-                    g.writeNumberField("diffusion_um2_per_s", sp.diffusionUm2PerS());
-                }
-                if (sp.isStable()) {
-                    g.writeNullField("half_life_s");
-                } else {
-                    g.writeNumberField("half_life_s", sp.halfLifeS());
-                }
-                g.writeEndObject();
+            species(g, "species", s.species());
+            if (!s.candidateSpecies().isEmpty()) {
+                species(g, "candidate_species", s.candidateSpecies());
             }
-            g.writeEndArray();
             Signalling sig = s.signalling();
             g.writeObjectFieldStart("signalling");
             g.writeNumberField("symbol_time_s", sig.symbolTimeS());
@@ -109,6 +97,9 @@ public final class ScenarioWriter {
                 if (n.role().emits() || n.moleculesPerSymbol() != 0) {
                     g.writeNumberField("molecules_per_symbol", n.moleculesPerSymbol());
                 }
+                if (n.fixed()) {
+                    g.writeBooleanField("fixed", true);
+                }
                 g.writeEndObject();
             }
             g.writeEndArray();
@@ -130,6 +121,26 @@ public final class ScenarioWriter {
             g.writeRaw('\n');
         }
         out.flush();
+    }
+
+    private static void species(JsonGenerator g, String field, List<Species> list) throws IOException {
+        g.writeArrayFieldStart(field);
+        for (Species sp : list) {
+            g.writeStartObject();
+            g.writeStringField("name", sp.name());
+            if (sp.hydrodynamicRadiusNm().isPresent()) {
+                g.writeNumberField("hydrodynamic_radius_nm", sp.hydrodynamicRadiusNm().getAsDouble());
+            } else {
+                g.writeNumberField("diffusion_um2_per_s", sp.diffusionUm2PerS());
+            }
+            if (sp.isStable()) {
+                g.writeNullField("half_life_s");
+            } else {
+                g.writeNumberField("half_life_s", sp.halfLifeS());
+            }
+            g.writeEndObject();
+        }
+        g.writeEndArray();
     }
 
     private static void volume(JsonGenerator g, Volume v) throws IOException {
