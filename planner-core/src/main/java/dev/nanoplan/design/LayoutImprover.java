@@ -26,7 +26,8 @@ import java.util.function.Supplier;
  * <ol>
  *   <li>budgets: each emitting node's molecules per symbol ×2, ×4, ×8, ×16 (a target a node misses may need
  *       several doublings, each of which alone only adds crosstalk), ×½ and ×0.8 (the first factor that
- *       helps is kept; at most 2^20), and each link group's emitters together ×2 and ×½;</li>
+ *       helps is kept; at most 2^20; nodes on the routes of missing demands first, closest to the rate
+ *       target first), and each link group's emitters together ×2 and ×½;</li>
  *   <li>species: each link group (a receiver and the emitters whose route hops end at it, which must share
  *       one species since a receiver senses one) is tried on every other species of the scenario and its
  *       {@code candidate_species}, and the best of them is kept; each demand's source is tried alone on
@@ -229,7 +230,7 @@ public final class LayoutImprover {
 
     private boolean budgetMoves() {
         boolean improved = false;
-        for (Node n : evaluator.scenario().nodes()) {
+        for (Node n : budgetOrder()) {
             if (!n.role().emits() || n.fixed()) {
                 continue;
             }
@@ -258,6 +259,36 @@ public final class LayoutImprover {
             }
         }
         return improved;
+    }
+
+    /**
+     * Emitting nodes, those on the routes of demands that miss their targets first, the demands closest
+     * to the rate target (largest shared rate) first; then the rest in file order.
+     */
+    private List<Node> budgetOrder() {
+        Map<String, Node> nodes = evaluator.scenario().nodesById();
+        List<Assessment.DemandOutcome> missing = new ArrayList<>();
+        Map<String, List<String>> hops = new LinkedHashMap<>();
+        List<RouteReport> routes = evaluator.plan().routes();
+        for (int i = 0; i < routes.size(); i++) {
+            Assessment.DemandOutcome d = evaluator.current().demands().get(i);
+            if (!d.meetsTargets()) {
+                missing.add(d);
+                hops.put(d.from() + "\u0000" + d.to(), routes.get(i).hops());
+            }
+        }
+        missing.sort(Comparator.comparingDouble(Assessment.DemandOutcome::sharedRateBitsPerS).reversed());
+        Set<String> order = new LinkedHashSet<>();
+        for (Assessment.DemandOutcome d : missing) {
+            List<String> h = hops.get(d.from() + "\u0000" + d.to());
+            for (int k = 0; k + 1 < h.size(); k++) {
+                order.add(h.get(k));
+            }
+        }
+        order.addAll(nodes.keySet());
+        List<Node> out = new ArrayList<>();
+        order.forEach(id -> out.add(nodes.get(id)));
+        return out;
     }
 
     static long scaled(long molecules, double factor) {
