@@ -16,10 +16,13 @@ import org.junit.jupiter.api.io.TempDir;
 /** {@code nanoplan improve}: JSON keys, the written file, the report with ghosts, bad input. */
 class ImproveCommandTest {
 
-    /** One sensor that misses the error target at its file budget, next to a fixed gateway. */
+    /** One sensor 10 µm from a fixed gateway that misses the 1 % error target with 8 molecules per symbol. */
     private static final String WEAK = PlanCommandTest.SMALL
-            .replace("\"molecules_per_symbol\": 2000", "\"molecules_per_symbol\": 60")
-            .replace("\"species\": \"A\"}],", "\"species\": \"A\", \"fixed\": true}],");
+            .replace("\"molecules_per_symbol\": 2000", "\"molecules_per_symbol\": 8")
+            .replace("[30, 50, 50]", "[40, 50, 50]")
+            .replace("\"species\": \"A\"}],", "\"species\": \"A\", \"fixed\": true}],")
+            .replace("\"demands\": [{\"from\": \"s1\", \"to\": \"gw\"}]}", "\"demands\": [{\"from\": \"s1\", \"to\": \"gw\"}],"
+                    + " \"targets\": {\"max_error_probability\": 0.01, \"min_rate_bits_per_s\": 0.1}}");
 
     @Test
     void jsonHasTheKeysOfTheIssueAndTheWrittenFileValidates(@TempDir Path dir) throws Exception {
