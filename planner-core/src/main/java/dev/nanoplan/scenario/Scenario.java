@@ -18,7 +18,8 @@ import java.util.stream.Collectors;
  * @param volume the fluid region
  * @param medium the fluid (file default {@link Medium#DEFAULT})
  * @param species declared species, at least one, unique names, each used by some node
- * @param signalling symbol timing and detection settings
+ * @param signalling symbol timing and detection settings; under the {@code slots} schedule its slot plan is
+ *     fitted to the nodes ({@link SlotPlan#reconcile})
  * @param nodes the machines, at least one, unique ids
  * @param demands requested data flows (file default none)
  * @param targets what the layout should achieve (file default {@link Targets#DEFAULT})
@@ -48,6 +49,7 @@ public record Scenario(String name, Volume volume, Medium medium, List<Species> 
         if (nodes.isEmpty()) {
             throw new IllegalArgumentException("nodes must not be empty");
         }
+        signalling = SlotPlan.reconcile(signalling, nodes);
         List<ScenarioProblem> problems = ScenarioValidator.check(volume, medium.flow(), species, nodes, demands);
         if (!problems.isEmpty()) {
             throw new IllegalArgumentException("invalid scenario:\n"

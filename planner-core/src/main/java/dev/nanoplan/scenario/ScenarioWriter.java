@@ -81,6 +81,9 @@ public final class ScenarioWriter {
             g.writeNumberField("prior_one", sig.priorOne());
             g.writeStringField("count_model", sig.countModel().id());
             g.writeStringField("schedule", sig.schedule().id());
+            if (sig.frameSlots() > 0) {
+                g.writeNumberField("frame_slots", sig.frameSlots());
+            }
             g.writeEndObject();
             g.writeArrayFieldStart("nodes");
             for (Node n : s.nodes()) {
@@ -96,6 +99,10 @@ public final class ScenarioWriter {
                 }
                 if (n.role().emits() || n.moleculesPerSymbol() != 0) {
                     g.writeNumberField("molecules_per_symbol", n.moleculesPerSymbol());
+                }
+                Integer slot = sig.slots().get(n.id());
+                if (slot != null) {
+                    g.writeNumberField("slot", slot);
                 }
                 if (n.fixed()) {
                     g.writeBooleanField("fixed", true);
