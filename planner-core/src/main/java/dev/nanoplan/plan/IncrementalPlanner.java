@@ -58,13 +58,28 @@ public final class IncrementalPlanner {
     private int reevaluated;
 
     private IncrementalPlanner(Scenario scenario, PlanOptions options, ReceiverEvaluator evaluator) {
+        this(scenario, options, evaluator, true);
+    }
+
+    private IncrementalPlanner(Scenario scenario, PlanOptions options, ReceiverEvaluator evaluator, boolean full) {
         this.options = options;
         this.evaluator = evaluator;
         this.inputs = PlanInputs.of(scenario, options);
         this.channel = PlanPipeline.channel(inputs, f -> { });
         this.links = PlanPipeline.evaluate(inputs, channel, channel.receivers(), evaluator, f -> { });
         this.reevaluated = links.size();
-        this.plan = PlanPipeline.assemble(inputs, channel, links, evaluator);
+        this.plan = full ? PlanPipeline.assemble(inputs, channel, links, evaluator)
+                : PlanPipeline.whatIf(inputs, channel, links, evaluator);
+    }
+
+    /**
+     * The exact planner of {@code scenario} whose first plan, like every {@link #whatIf} and
+     * {@link #advance} plan, has no budgets or advice (what a layout search starts from).
+     *
+     * @throws IllegalArgumentException as {@link NetworkPlanner#plan}
+     */
+    public static IncrementalPlanner exactWithoutBudgets(Scenario scenario, PlanOptions options) {
+        return new IncrementalPlanner(scenario, options, ExactReceiverEvaluator.INSTANCE, false);
     }
 
     /**
@@ -116,13 +131,19 @@ public final class IncrementalPlanner {
      * @throws IllegalArgumentException as the full planner (the previous plan is then kept)
      */
     public Plan replan(Scenario edited) {
+        return moveTo(edited, true);
+    }
+
+    /** Re-plans {@code edited} (with budgets and advice when {@code full}) and remembers it. */
+    private Plan moveTo(Scenario edited, boolean full) {
         if (evaluator == NormalReceiverEvaluator.INSTANCE) {
             checkPreview(edited);
         }
         PlanInputs next = PlanInputs.of(edited, options);
         ChannelMatrix nextChannel = PlanPipeline.channel(next, f -> { });
         Relinked r = relink(inputs, channel, links, next, nextChannel, evaluator);
-        Plan nextPlan = PlanPipeline.assemble(next, nextChannel, r.links(), evaluator);
+        Plan nextPlan = full ? PlanPipeline.assemble(next, nextChannel, r.links(), evaluator)
+                : PlanPipeline.whatIf(next, nextChannel, r.links(), evaluator);
         inputs = next;
         channel = nextChannel;
         links = r.links();
@@ -143,6 +164,17 @@ public final class IncrementalPlanner {
             checkPreview(edited);
         }
         return whatIf(inputs, channel, links, evaluator, edited);
+    }
+
+    /**
+     * Moves this planner to {@code edited} like {@link #replan} but plans it as {@link #whatIf} does
+     * (without budgets or advice): what a search that accepts a move calls, so that the next what-if
+     * re-plans start from the accepted layout.
+     *
+     * @throws IllegalArgumentException as the full planner (the previous state is then kept)
+     */
+    public Plan advance(Scenario edited) {
+        return moveTo(edited, false);
     }
 
     /**

@@ -258,17 +258,17 @@ final class PlanPipeline {
         return out;
     }
 
-    /** Round-robin: a note per species whose frame is longer than half the ISI memory. */
+    /** Round-robin and slots: a note per species whose frame is longer than half the ISI memory. */
     private static void addScheduleWarnings(PlanInputs in, List<String> warnings) {
         SlotSchedule slots = in.slots();
         Signalling sig = in.scenario().signalling();
         for (Species sp : slots.allActive() ? List.<Species>of() : in.scenario().species()) {
             int frame = slots.frameSlots(sp.name());
             if (frame > 1 && sig.isiMemorySymbols() < 2 * frame) {
-                warnings.add(String.format(Locale.ROOT, "round-robin: species %s has a frame of %d slots but "
+                warnings.add(String.format(Locale.ROOT, "%s: species %s has a frame of %d slots but "
                         + "isi_memory_symbols is %d: leftovers older than that (a link's own earlier symbols come "
                         + "%d slots back) are not counted; let the memory cover a few frames unless %s decays within "
-                        + "a few slots", sp.name(), frame, sig.isiMemorySymbols(), frame, sp.name()));
+                        + "a few slots", slots.schedule().id(), sp.name(), frame, sig.isiMemorySymbols(), frame, sp.name()));
             }
         }
     }

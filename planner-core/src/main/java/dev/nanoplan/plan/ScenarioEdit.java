@@ -154,7 +154,7 @@ public sealed interface ScenarioEdit {
         public Scenario applyTo(Scenario scenario) {
             Signalling s = scenario.signalling();
             return withNodes(scenario, n -> n, scenario.species(), new Signalling(symbolTimeS, s.isiMemorySymbols(),
-                    s.levels(), s.priorOne(), s.countModel(), s.schedule()));
+                    s.levels(), s.priorOne(), s.countModel(), s.schedule(), s.frameSlots(), s.slots()));
         }
 
         @Override

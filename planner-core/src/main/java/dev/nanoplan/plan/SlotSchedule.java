@@ -3,6 +3,8 @@ package dev.nanoplan.plan;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.Schedule;
+import dev.nanoplan.scenario.Signalling;
+import dev.nanoplan.scenario.SlotPlan;
 import java.util.HashMap;
 import java.util.Map;
 
@@ -35,6 +37,14 @@ import java.util.Map;
  * rate = capacity / (K·T); a route takes one frame per hop (latency Σ K_h·T) and its rate is
  * its end-to-end capacity over the longest frame of its hops.
  *
+ * <p><b>slots</b> (slot plan with spatial reuse): emitter k carries its own slot number slot_k
+ * ({@code nodes[].slot}); the frame K of a species is its largest slot + 1, or {@code frame_slots} when
+ * given. Emitter k sends in the slots s ≡ slot_k (mod K); emitters that share a slot send together. A
+ * receiver decoding k hears its own taps as under round-robin, and every other emitter j at the lags
+ * l ≡ (slot_k − slot_j) (mod K), 0 ≤ l ≤ L — lag 0 (the current slot) only when they share the slot.
+ * All-active is the case K = 1 (every lag counts), round-robin the case "each emitter of a species its
+ * own slot in file order"; the same decimation serves all three ({@link #interfererTaps}).
+ *
  * <p>Cost: {@link #of(Scenario)} O(nodes); the decimations O(L/K + 1). Immutable.
  */
 public final class SlotSchedule {
@@ -53,21 +63,25 @@ public final class SlotSchedule {
         this.framesOfSpecies = framesOfSpecies;
     }
 
-    /** The schedule of a scenario, with the emitters of each species numbered in file order. */
+    /**
+     * The schedule of a scenario: under round-robin the emitters of each species numbered in file order,
+     * under slots the file's slot numbers.
+     */
     public static SlotSchedule of(Scenario scenario) {
-        if (scenario.signalling().schedule() == Schedule.ALL_ACTIVE) {
+        Signalling sig = scenario.signalling();
+        if (sig.schedule() == Schedule.ALL_ACTIVE) {
             return ALL_ACTIVE;
         }
-        Map<String, Integer> slot = new HashMap<>();
+        Map<String, Integer> slot = sig.schedule() == Schedule.SLOTS ? sig.slots()
+                : SlotPlan.fileOrder(scenario.nodes());
         Map<String, Integer> frames = new HashMap<>();
         for (Node n : scenario.nodes()) {
-            if (n.role().emits()) {
-                int k = frames.getOrDefault(n.emitsSpecies(), 0);
-                slot.put(n.id(), k);
-                frames.put(n.emitsSpecies(), k + 1);
+            Integer k = slot.get(n.id());
+            if (n.role().emits() && k != null) {
+                frames.merge(n.emitsSpecies(), sig.frameSlots() > 0 ? sig.frameSlots() : k + 1, Math::max);
             }
         }
-        return new SlotSchedule(scenario.signalling().schedule(), Map.copyOf(slot), Map.copyOf(frames));
+        return new SlotSchedule(sig.schedule(), Map.copyOf(slot), Map.copyOf(frames));
     }
 
     /** Equal when the schedule, every emitter's slot and every species' frame are equal. */
@@ -87,23 +101,36 @@ public final class SlotSchedule {
         return schedule;
     }
 
-    /** Whether every emitter sends in every slot (then nothing changes). */
+    /**
+     * Whether every emitter sends in every slot (then nothing changes): the all-active schedule, or a slot plan
+     * whose every frame is one slot (evaluated exactly as all-active, so the two give identical plans).
+     */
     public boolean allActive() {
-        return schedule == Schedule.ALL_ACTIVE;
+        return schedule == Schedule.ALL_ACTIVE || schedule == Schedule.SLOTS && longestFrame() == 1;
     }
 
     /**
-     * Slots per frame K of a species: its number of emitters under round-robin (at least 1), 1 under
-     * all-active.
+     * Slots per frame K of a species: its number of emitters under round-robin (at least 1), its largest
+     * slot + 1 or the file's {@code frame_slots} under slots, 1 under all-active.
      */
     public int frameSlots(String species) {
         return allActive() ? 1 : Math.max(1, framesOfSpecies.getOrDefault(species, 1));
     }
 
+    /** The longest frame over every species (1 under all-active). */
+    public int longestFrame() {
+        int k = 1;
+        for (int f : framesOfSpecies.values()) {
+            k = Math.max(k, f);
+        }
+        return k;
+    }
+
     /**
-     * Index k (0..K−1) of an emitter among the emitters of its species; 0 under all-active.
+     * Slot k (0..K−1) of an emitter: its index among the emitters of its species under round-robin, its
+     * file slot under slots, 0 under all-active.
      *
-     * @throws IllegalArgumentException if the node is no emitter of the scenario (round-robin)
+     * @throws IllegalArgumentException if the node is no emitter of the scenario (round-robin, slots)
      */
     public int slotOf(String emitterId) {
         if (allActive()) {
@@ -122,8 +149,8 @@ public final class SlotSchedule {
     }
 
     /**
-     * The taps of {@code interfererId} heard by a receiver decoding {@code emitterId} (a copy under
-     * all-active; possibly empty under round-robin).
+     * The taps of {@code interfererId} (another emitter) heard by a receiver decoding {@code emitterId} (a
+     * copy under all-active; possibly empty under round-robin and slots).
      */
     double[] interferer(String species, String emitterId, String interfererId, double[] taps) {
         return allActive() ? taps.clone()
@@ -148,8 +175,8 @@ public final class SlotSchedule {
     }
 
     /**
-     * First lag at which emitter j's symbols land in emitter k's slots: (k − j) mod K, or K when
-     * that is 0.
+     * First lag at which another emitter j's symbols land in emitter k's slots: (k − j) mod K, which is 0
+     * when the two share a slot (they send together). k and j are slot numbers.
      *
      * @throws IllegalArgumentException unless 0 ≤ k, j &lt; K
      */
@@ -160,13 +187,13 @@ public final class SlotSchedule {
         if (k < 0 || k >= frameSlots || j < 0 || j >= frameSlots) {
             throw new IllegalArgumentException("k, j: must be in 0.." + (frameSlots - 1) + ", got " + k + ", " + j);
         }
-        int l = Math.floorMod(k - j, frameSlots);
-        return l == 0 ? frameSlots : l;
+        return Math.floorMod(k - j, frameSlots);
     }
 
     /**
-     * Taps of interferer j heard in emitter k's slots under round-robin: p_{l0}, p_{l0+K}, … for
-     * lags ≤ L = taps.length − 1, with l0 = {@link #firstLag(int, int, int)}; empty when l0 &gt; L.
+     * Taps of another emitter j (slot j) heard in emitter k's slots (slot k): p_{l0}, p_{l0+K}, … for
+     * lags ≤ L = taps.length − 1, with l0 = {@link #firstLag(int, int, int)}; empty when l0 &gt; L. With
+     * K = 1 these are all the taps (all-active).
      */
     public static double[] interfererTaps(double[] taps, int frameSlots, int k, int j) {
         check(taps, frameSlots);

@@ -188,6 +188,20 @@ public final class LayoutSvg {
      */
     public static String render(Plan plan, View view, int widthPx, int maxHeightPx, int maxLinks,
             boolean zoomToNodes) {
+        return render(plan, view, widthPx, maxHeightPx, maxLinks, zoomToNodes, Map.of());
+    }
+
+    /**
+     * The default view with ghosts: for each node id in {@code ghostsUm}, its earlier centre (µm) drawn
+     * as a dashed grey ring with a grey arrow to where the node is now (what {@code nanoplan improve}
+     * moved).
+     */
+    public static String render(Plan plan, View view, Map<String, Vec3> ghostsUm) {
+        return render(plan, view, DEFAULT_WIDTH_PX, DEFAULT_MAX_HEIGHT_PX, DEFAULT_MAX_LINKS, true, ghostsUm);
+    }
+
+    private static String render(Plan plan, View view, int widthPx, int maxHeightPx, int maxLinks,
+            boolean zoomToNodes, Map<String, Vec3> ghostsUm) {
         if (maxLinks < 0) {
             throw new IllegalArgumentException("maxLinks must be >= 0, got " + maxLinks);
         }
@@ -249,6 +263,7 @@ public final class LayoutSvg {
         }
         sb.append("</g>\n");
 
+        ghosts(sb, byId, ghostsUm, view, t);
         nodes(sb, s, view, t);
         legend(sb, s, t, gradientId, fullScaleBits, plan.links().size(), drawn, routeHops.size());
         sb.append("</svg>\n");
@@ -304,6 +319,40 @@ public final class LayoutSvg {
             }
         }
         return hops;
+    }
+
+    private static void ghosts(StringBuilder sb, Map<String, Node> byId, Map<String, Vec3> ghostsUm, View view,
+            Transform t) {
+        if (ghostsUm.isEmpty()) {
+            return;
+        }
+        sb.append("<g class=\"ghosts\" fill=\"none\" stroke=\"#8a8f99\">\n");
+        for (Map.Entry<String, Vec3> g : ghostsUm.entrySet()) {
+            Node now = byId.get(g.getKey());
+            if (now == null) {
+                continue;
+            }
+            double x0 = t.xPx(view.u(g.getValue()));
+            double y0 = t.yPx(view.v(g.getValue()));
+            double x1 = t.xPx(view.u(now.positionUm()));
+            double y1 = t.yPx(view.v(now.positionUm()));
+            double r = Math.max(MIN_NODE_PX, now.radiusUm() * t.pxPerUm());
+            sb.append(String.format(Locale.ROOT, "<circle cx=\"%.1f\" cy=\"%.1f\" r=\"%.1f\" stroke-dasharray=\"3 2\">"
+                    + "<title>%s before</title></circle>%n", x0, y0, r, esc(g.getKey())));
+            double len = Math.hypot(x1 - x0, y1 - y0);
+            if (len > 2 * r) {
+                double ux = (x1 - x0) / len;
+                double uy = (y1 - y0) / len;
+                double ex = x1 - ux * r;
+                double ey = y1 - uy * r;
+                sb.append(String.format(Locale.ROOT, "<line x1=\"%.1f\" y1=\"%.1f\" x2=\"%.1f\" y2=\"%.1f\" "
+                        + "stroke-width=\"1.2\"/>%n", x0 + ux * r, y0 + uy * r, ex, ey));
+                sb.append(String.format(Locale.ROOT, "<polyline points=\"%.1f,%.1f %.1f,%.1f %.1f,%.1f\" "
+                        + "stroke-width=\"1.2\"/>%n", ex - 6 * ux + 4 * uy, ey - 6 * uy - 4 * ux, ex, ey,
+                        ex - 6 * ux - 4 * uy, ey - 6 * uy + 4 * ux));
+            }
+        }
+        sb.append("</g>\n");
     }
 
     /** Zoom when the nodes' extent covers less than this fraction of the volume's view area. */

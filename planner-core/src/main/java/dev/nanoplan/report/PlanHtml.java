@@ -42,6 +42,14 @@ public final class PlanHtml {
 
     /** The page. */
     public static String render(Plan plan) {
+        return render(plan, Map.of());
+    }
+
+    /**
+     * The page with ghosts in the layout views: each node id of {@code ghostsUm} also drawn at its
+     * earlier centre (µm) with an arrow to where it is now ({@link LayoutSvg#render(Plan, LayoutSvg.View, Map)}).
+     */
+    public static String render(Plan plan, Map<String, Vec3> ghostsUm) {
         Scenario s = plan.scenario();
         StringBuilder h = new StringBuilder(64 * 1024);
         String title = "nanoplan — " + (s.name().isBlank() ? "unnamed scenario" : s.name());
@@ -55,7 +63,7 @@ public final class PlanHtml {
                 .append(plan.routes().size()).append(" routes</p>\n");
         cautions(h);
         summary(h, s, plan);
-        views(h, plan);
+        views(h, plan, ghostsUm);
         routes(h, plan);
         budgets(h, plan);
         links(h, plan);
@@ -192,12 +200,16 @@ public final class PlanHtml {
         return "(" + Numbers.quantity(v.x()) + ", " + Numbers.quantity(v.y()) + ", " + Numbers.quantity(v.z()) + ")";
     }
 
-    private static void views(StringBuilder h, Plan plan) {
+    private static void views(StringBuilder h, Plan plan, Map<String, Vec3> ghostsUm) {
         h.append("<section><h2>Layout</h2>\n<p class=\"note\">Drawn to scale. Lines are links, coloured by "
                 + "capacity; red lines are the hops of the chosen routes. Node size follows the body radius "
                 + "(small bodies are enlarged to stay visible).</p>\n<div class=\"views\">\n");
-        h.append(LayoutSvg.render(plan, LayoutSvg.View.TOP));
-        h.append(LayoutSvg.render(plan, LayoutSvg.View.SIDE));
+        if (!ghostsUm.isEmpty()) {
+            h.append("<p class=\"note\">Dashed grey rings: where moved nodes were before; arrows point to where "
+                    + "they are now.</p>\n");
+        }
+        h.append(LayoutSvg.render(plan, LayoutSvg.View.TOP, ghostsUm));
+        h.append(LayoutSvg.render(plan, LayoutSvg.View.SIDE, ghostsUm));
         h.append("</div>\n</section>\n");
     }
 

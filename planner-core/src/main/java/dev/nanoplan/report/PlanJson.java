@@ -8,13 +8,18 @@ import dev.nanoplan.plan.LinkReport;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.plan.SharedRates;
+import dev.nanoplan.plan.SlotSchedule;
+import dev.nanoplan.scenario.Node;
 import java.util.List;
 
 /**
  * The {@code plan --json} object of docs/architecture.md §4.3 (stable snake_case keys; more may be added).
  *
  * <p>Top level: {@code scenario} (name), {@code channel}, {@code symbol_time_s}, {@code schedule}
- * ({@code all-active} or {@code round-robin}: then link rates are per frame of K slots), {@code links},
+ * ({@code all-active}, {@code round-robin} or {@code slots}: then link rates are per frame of K slots),
+ * {@code frame_slots} (the longest frame over the species, 1 under all-active), {@code slots} (every
+ * emitter's slot by node id: 0 under all-active, file order within its species under round-robin),
+ * {@code links},
  * {@code routes}, {@code budgets}, {@code warnings}, {@code assumptions} ({@link Cautions#ASSUMPTIONS}),
  * {@code caution} ({@link Cautions#SHORT}).
  *
@@ -41,6 +46,14 @@ public final class PlanJson {
         o.put("channel", plan.channel());
         number(o, "symbol_time_s", plan.scenario().signalling().symbolTimeS());
         o.put("schedule", plan.scenario().signalling().schedule().id());
+        SlotSchedule schedule = SlotSchedule.of(plan.scenario());
+        o.put("frame_slots", schedule.longestFrame());
+        ObjectNode slots = o.putObject("slots");
+        for (Node n : plan.scenario().nodes()) {
+            if (n.role().emits()) {
+                slots.put(n.id(), schedule.slotOf(n.id()));
+            }
+        }
         ArrayNode links = o.putArray("links");
         for (LinkReport l : plan.links()) {
             links.add(link(l));

@@ -6,6 +6,7 @@ import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.plan.SharedRates;
 import dev.nanoplan.plan.SlotSchedule;
+import dev.nanoplan.scenario.Schedule;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
@@ -26,7 +27,9 @@ public final class PlanText {
         sb.append("Plan: ").append(plan.scenario().name()).append(" (channel ").append(plan.channel()).append(")\n");
         SlotSchedule slots = SlotSchedule.of(plan.scenario());
         if (!slots.allActive()) {
-            sb.append("Schedule: ").append(slots.schedule().id()).append(" (emitters of a species take turns;");
+            sb.append("Schedule: ").append(slots.schedule().id()).append(slots.schedule() == Schedule.SLOTS
+                    ? " (emitters of a species send in their slots, those sharing a slot together;"
+                    : " (emitters of a species take turns;");
             plan.scenario().species().forEach(sp -> sb.append(' ').append(sp.name()).append(": frame of ")
                     .append(slots.frameSlots(sp.name())).append(slots.frameSlots(sp.name()) == 1 ? " slot," : " slots,"));
             sb.setLength(sb.length() - 1);

@@ -21,9 +21,11 @@ import dev.nanoplan.geometry.Vec3;
  *     (default {@code species})
  * @param moleculesPerSymbol molecules released for the highest level ("1" in binary); ≥ 1 for
  *     transmitters and relays, ≥ 0 for receivers (file default 0 for receivers, required otherwise)
+ * @param fixed true when design aids ({@code nanoplan improve}) must never move or re-assign this node
+ *     (file {@code fixed}, default false)
  */
 public record Node(String id, Role role, Vec3 positionUm, double radiusUm, String species, String emitsSpecies,
-        long moleculesPerSymbol) {
+        long moleculesPerSymbol, boolean fixed) {
 
     /** @throws IllegalArgumentException if a value is out of range or inconsistent with the role */
     public Node {
@@ -49,6 +51,12 @@ public record Node(String id, Role role, Vec3 positionUm, double radiusUm, Strin
      */
     public boolean absorbs() {
         return role.absorbs();
+    }
+
+    /** A node that design aids may change ({@code fixed} false). */
+    public Node(String id, Role role, Vec3 positionUm, double radiusUm, String species, String emitsSpecies,
+            long moleculesPerSymbol) {
+        this(id, role, positionUm, radiusUm, species, emitsSpecies, moleculesPerSymbol, false);
     }
 
     /** A transmitter of {@code species}. */

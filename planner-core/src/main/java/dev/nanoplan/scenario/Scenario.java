@@ -18,13 +18,16 @@ import java.util.stream.Collectors;
  * @param volume the fluid region
  * @param medium the fluid (file default {@link Medium#DEFAULT})
  * @param species declared species, at least one, unique names, each used by some node
- * @param signalling symbol timing and detection settings
+ * @param signalling symbol timing and detection settings; under the {@code slots} schedule its slot plan is
+ *     fitted to the nodes ({@link SlotPlan#reconcile})
  * @param nodes the machines, at least one, unique ids
  * @param demands requested data flows (file default none)
  * @param targets what the layout should achieve (file default {@link Targets#DEFAULT})
+ * @param candidateSpecies species a design aid may bring in (file {@code candidate_species}, default none):
+ *     not used by any node, names distinct from {@code species}
  */
 public record Scenario(String name, Volume volume, Medium medium, List<Species> species, Signalling signalling,
-        List<Node> nodes, List<Demand> demands, Targets targets) {
+        List<Node> nodes, List<Demand> demands, Targets targets, List<Species> candidateSpecies) {
 
     /** The only supported value of the file's {@code format} field. */
     public static final String FORMAT = "nanoplan/1";
@@ -39,17 +42,32 @@ public record Scenario(String name, Volume volume, Medium medium, List<Species> 
         species = List.copyOf(Checks.required("species", species));
         nodes = List.copyOf(Checks.required("nodes", nodes));
         demands = List.copyOf(Checks.required("demands", demands));
+        candidateSpecies = List.copyOf(Checks.required("candidateSpecies", candidateSpecies));
         if (species.isEmpty()) {
             throw new IllegalArgumentException("species must not be empty");
         }
         if (nodes.isEmpty()) {
             throw new IllegalArgumentException("nodes must not be empty");
         }
+        signalling = SlotPlan.reconcile(signalling, nodes);
         List<ScenarioProblem> problems = ScenarioValidator.check(volume, medium.flow(), species, nodes, demands);
         if (!problems.isEmpty()) {
             throw new IllegalArgumentException("invalid scenario:\n"
                     + problems.stream().map(ScenarioProblem::toString).collect(Collectors.joining("\n")));
         }
+        for (Species c : candidateSpecies) {
+            if (species.stream().anyMatch(sp -> sp.name().equals(c.name()))
+                    || candidateSpecies.stream().filter(o -> o.name().equals(c.name())).count() > 1) {
+                throw new IllegalArgumentException("candidate_species: name " + c.name()
+                        + " is already a species or a candidate");
+            }
+        }
+    }
+
+    /** A scenario without candidate species. */
+    public Scenario(String name, Volume volume, Medium medium, List<Species> species, Signalling signalling,
+            List<Node> nodes, List<Demand> demands, Targets targets) {
+        this(name, volume, medium, species, signalling, nodes, demands, targets, List.of());
     }
 
     /** Nodes by id, in file order. O(n) per call: cache the result. */

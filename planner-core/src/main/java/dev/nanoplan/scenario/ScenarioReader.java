@@ -19,8 +19,10 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.HashSet;
 import java.util.Iterator;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Set;
 
 /**
@@ -43,9 +45,12 @@ import java.util.Set;
  * viscosity_mPa_s 0.69, flow none, background_molecules_per_s 0), {@code species[].half_life_s}
  * null = stable, {@code signalling} (isi_memory_symbols 10, levels 2, prior_one 0.5, count_model
  * exact, schedule all-active), {@code nodes[].emits_species} (relays only, default = species),
- * {@code nodes[].molecules_per_symbol} (receivers only, default 0), {@code demands} [],
+ * {@code nodes[].molecules_per_symbol} (receivers only, default 0), {@code nodes[].fixed} (false), {@code demands} [],
  * {@code targets} (max_error_probability 1e-3, min_rate_bits_per_s 0, mission_duration_s 3600).
- * Required: format, volume, species (non-empty), signalling.symbol_time_s, nodes (non-empty).
+ * Required: format, volume, species (non-empty), signalling.symbol_time_s, nodes (non-empty); under
+ * {@code signalling.schedule} {@code slots} every emitter's {@code slot} (an integer ≥ 0, below
+ * {@code signalling.frame_slots} when that is given); {@code slot} and {@code frame_slots} under another
+ * schedule, or {@code slot} on a receiver, are errors.
  *
  * <p>Cost: O(file size + n) expected for n nodes. Instances are immutable and thread-safe.
  */
@@ -221,6 +226,25 @@ public final class ScenarioReader {
             }
             speciesComplete &= speciesNodes != null;
 
+            List<Species> candidates = new ArrayList<>();
+            List<JsonNode> candidateNodes = root.array("candidate_species", false);
+            for (int i = 0; candidateNodes != null && i < candidateNodes.size(); i++) {
+                String at = "candidate_species[" + i + "]";
+                Obj o = element(candidateNodes.get(i), at);
+                String cName = o == null ? null : o.nonEmptyString("name");
+                Species sp = o == null || cName == null ? null : species(o, cName, mediumForSpecies);
+                if (sp == null) {
+                    continue;
+                }
+                boolean taken = candidates.stream().anyMatch(c -> c.name().equals(cName))
+                        || speciesFacts.stream().anyMatch(f -> cName.equals(f.name()));
+                if (taken) {
+                    error(at + ".name", "'" + cName + "' is already a species or a candidate");
+                } else {
+                    candidates.add(sp);
+                }
+            }
+
             Signalling signalling = signalling(root.object("signalling", true));
 
             List<Node> nodes = new ArrayList<>();
@@ -276,12 +300,21 @@ public final class ScenarioReader {
             if (!errors.isEmpty() || volume == null || signalling == null) {
                 return null;
             }
+            if (signalling.schedule() == Schedule.SLOTS) {
+                signalling = signalling.withSlots(frameSlotsSeen, slotsSeen);
+            }
             return new Scenario(name, volume, medium == null ? Medium.DEFAULT : medium, species, signalling, nodes,
-                    demands, targets == null ? Targets.DEFAULT : targets);
+                    demands, targets == null ? Targets.DEFAULT : targets, candidates);
         }
 
         /** The flow profile name if it parsed even though the medium as a whole did not. */
         String flowProfileSeen;
+        /** The schedule if it parsed (null otherwise); nodes read their {@code slot} under {@code slots}. */
+        Schedule scheduleSeen;
+        /** {@code signalling.frame_slots}, 0 when absent or not accepted. */
+        int frameSlotsSeen;
+        /** {@code nodes[].slot} by node id, under the {@code slots} schedule. */
+        final Map<String, Integer> slotsSeen = new LinkedHashMap<>();
 
         Obj element(JsonNode node, String path) {
             if (!node.isObject()) {
@@ -438,6 +471,16 @@ public final class ScenarioReader {
                     o.problem("schedule", "unknown schedule '" + sched + "', expected " + Schedule.EXPECTED);
                 }
             }
+            scheduleSeen = schedule;
+            frameSlotsSeen = 0;
+            if (o.has("frame_slots")) {
+                Long frame = o.integer("frame_slots", null, 1, Signalling.MAX_FRAME_SLOTS);
+                if (schedule != null && schedule != Schedule.SLOTS) {
+                    o.problem("frame_slots", "only with schedule slots; this schedule is " + schedule.id());
+                } else if (frame != null) {
+                    frameSlotsSeen = frame.intValue();
+                }
+            }
             o.finish();
             if (t == null || isi == null || levels == null || prior == null || kind == null || schedule == null) {
                 return null;
@@ -480,6 +523,8 @@ public final class ScenarioReader {
             } else {
                 o.consume("molecules_per_symbol");
             }
+            boolean fixed = o.flag("fixed");
+            slot(o, id, role);
             o.finish();
             String emitted = role == Role.RELAY ? (emits == null ? species : emits) : null;
             ScenarioValidator.NodeFact fact = new ScenarioValidator.NodeFact(index, id, role, position,
@@ -488,9 +533,43 @@ public final class ScenarioReader {
             if (id != null && role != null && position != null && radius != null && species != null && emitsOk
                     && molecules != null) {
                 node = new Node(id, role, position, radius, species, role == Role.RELAY ? emitted : species,
-                        molecules);
+                        molecules, fixed);
             }
             return new NodeParts(fact, node);
+        }
+
+        /** A node's {@code slot}: required of emitters under {@code slots}, refused otherwise. */
+        void slot(Obj o, String id, Role role) {
+            if (scheduleSeen == null) {
+                o.consume("slot");
+                return;
+            }
+            if (scheduleSeen != Schedule.SLOTS) {
+                if (o.has("slot")) {
+                    o.problem("slot", "only with signalling.schedule slots; the schedule is " + scheduleSeen.id());
+                    o.consume("slot");
+                }
+                return;
+            }
+            if (role != null && !role.emits()) {
+                if (o.has("slot")) {
+                    o.problem("slot", "only emitters (transmitters and relays) have a slot; this node is a " + role.id());
+                    o.consume("slot");
+                }
+                return;
+            }
+            long max = (frameSlotsSeen > 0 ? frameSlotsSeen : Signalling.MAX_FRAME_SLOTS) - 1L;
+            if (o.has("slot")) {
+                Long slot = o.integer("slot", null, 0, Long.MAX_VALUE);
+                if (slot != null && slot > max) {
+                    o.problem("slot", (frameSlotsSeen > 0 ? "must be below signalling.frame_slots " + frameSlotsSeen
+                            : "must be below " + Signalling.MAX_FRAME_SLOTS) + ", got " + slot);
+                } else if (slot != null && id != null) {
+                    slotsSeen.put(id, slot.intValue());
+                }
+            } else if (role != null) {
+                o.problem("slot", "missing required field (signalling.schedule is slots)");
+            }
         }
 
         Targets targets(Obj o) {
@@ -586,6 +665,19 @@ public final class ScenarioReader {
                 return null;
             }
             return v.textValue();
+        }
+
+        /** An optional boolean, false if absent. */
+        boolean flag(String name) {
+            JsonNode v = field(name, false);
+            if (v == null) {
+                return false;
+            }
+            if (!v.isBoolean()) {
+                problem(name, "must be true or false, got " + describe(v));
+                return false;
+            }
+            return v.booleanValue();
         }
 
         String optionalString(String name, String fallback) {

@@ -14,6 +14,7 @@ import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.util.List;
 
 /**
  * Writes a {@link Scenario} in the {@value Scenario#FORMAT} file format, pretty-printed with the
@@ -68,23 +69,10 @@ public final class ScenarioWriter {
             g.writeStringField("name", s.name());
             volume(g, s.volume());
             medium(g, s.medium());
-            g.writeArrayFieldStart("species");
-            for (Species sp : s.species()) {
-                g.writeStartObject();
-                g.writeStringField("name", sp.name());
-                if (sp.hydrodynamicRadiusNm().isPresent()) {
-                    g.writeNumberField("hydrodynamic_radius_nm", sp.hydrodynamicRadiusNm().getAsDouble());
-                } else {
-                    g.writeNumberField("diffusion_um2_per_s", sp.diffusionUm2PerS());
-                }
-                if (sp.isStable()) {
-                    g.writeNullField("half_life_s");
-                } else {
-                    g.writeNumberField("half_life_s", sp.halfLifeS());
-                }
-                g.writeEndObject();
+            species(g, "species", s.species());
+            if (!s.candidateSpecies().isEmpty()) {
+                species(g, "candidate_species", s.candidateSpecies());
             }
-            g.writeEndArray();
             Signalling sig = s.signalling();
             g.writeObjectFieldStart("signalling");
             g.writeNumberField("symbol_time_s", sig.symbolTimeS());
@@ -93,6 +81,9 @@ public final class ScenarioWriter {
             g.writeNumberField("prior_one", sig.priorOne());
             g.writeStringField("count_model", sig.countModel().id());
             g.writeStringField("schedule", sig.schedule().id());
+            if (sig.frameSlots() > 0) {
+                g.writeNumberField("frame_slots", sig.frameSlots());
+            }
             g.writeEndObject();
             g.writeArrayFieldStart("nodes");
             for (Node n : s.nodes()) {
@@ -108,6 +99,13 @@ public final class ScenarioWriter {
                 }
                 if (n.role().emits() || n.moleculesPerSymbol() != 0) {
                     g.writeNumberField("molecules_per_symbol", n.moleculesPerSymbol());
+                }
+                Integer slot = sig.slots().get(n.id());
+                if (slot != null) {
+                    g.writeNumberField("slot", slot);
+                }
+                if (n.fixed()) {
+                    g.writeBooleanField("fixed", true);
                 }
                 g.writeEndObject();
             }
@@ -130,6 +128,26 @@ public final class ScenarioWriter {
             g.writeRaw('\n');
         }
         out.flush();
+    }
+
+    private static void species(JsonGenerator g, String field, List<Species> list) throws IOException {
+        g.writeArrayFieldStart(field);
+        for (Species sp : list) {
+            g.writeStartObject();
+            g.writeStringField("name", sp.name());
+            if (sp.hydrodynamicRadiusNm().isPresent()) {
+                g.writeNumberField("hydrodynamic_radius_nm", sp.hydrodynamicRadiusNm().getAsDouble());
+            } else {
+                g.writeNumberField("diffusion_um2_per_s", sp.diffusionUm2PerS());
+            }
+            if (sp.isStable()) {
+                g.writeNullField("half_life_s");
+            } else {
+                g.writeNumberField("half_life_s", sp.halfLifeS());
+            }
+            g.writeEndObject();
+        }
+        g.writeEndArray();
     }
 
     private static void volume(JsonGenerator g, Volume v) throws IOException {

@@ -13,10 +13,16 @@ public enum Schedule {
      * species, numbered k = 0..K−1 in file order, take turns; emitter k sends in the slots
      * s ≡ k (mod K) and releases nothing in the others. One symbol per frame of K slots.
      */
-    ROUND_ROBIN("round-robin");
+    ROUND_ROBIN("round-robin"),
+    /**
+     * Slot plan with spatial reuse (file name {@code slots}): every emitter carries its own slot number
+     * ({@link Signalling#slots()}); the frame of a species is its largest slot + 1, or
+     * {@link Signalling#frameSlots()} when given. Emitters of a species that share a slot send together.
+     */
+    SLOTS("slots");
 
-    /** The file names of every schedule, for messages: {@code all-active or round-robin}. */
-    public static final String EXPECTED = "all-active or round-robin";
+    /** The file names of every schedule, for messages. */
+    public static final String EXPECTED = "all-active, round-robin or slots";
 
     private final String id;
 

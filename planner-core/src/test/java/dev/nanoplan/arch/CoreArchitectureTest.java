@@ -25,12 +25,14 @@ import org.junit.jupiter.api.Test;
  *   <li>{@code scenario};</li>
  *   <li>{@code network};</li>
  *   <li>{@code plan} and {@code sim}, which do not use each other;</li>
+ *   <li>{@code design} (layout search over plans);</li>
  *   <li>{@code report};</li>
  *   <li>{@code cli} and {@code desktop} in planner-ui (the core never names them).</li>
  * </ol>
  * The edges the code has today (2026-12): physics → math; count → math; detect → count, info;
  * scenario → count, geometry, io, physics; network → count, detect, geometry, info, math, physics,
- * scenario; plan → count, detect, geometry, info, math, network, physics, scenario; sim →
+ * scenario; plan → count, detect, geometry, info, math, network, physics, scenario; design → geometry, plan,
+ * scenario; sim →
  * geometry, io, network, physics, scenario; report → count, detect, geometry, io, network, plan,
  * scenario.
  */
@@ -38,7 +40,7 @@ class CoreArchitectureTest {
 
     /** Every package of the core, bottom up. */
     private static final String[] PACKAGES = {"math", "io", "geometry", "physics", "count", "info", "detect",
-        "scenario", "network", "plan", "sim", "report"};
+        "scenario", "network", "plan", "sim", "design", "report"};
 
     private static final String[] FOUNDATION = {"geometry", "physics", "count", "info"};
 
@@ -93,6 +95,7 @@ class CoreArchitectureTest {
                 .whereLayer("network").mayOnlyAccessLayers(below("detect", "scenario"))
                 .whereLayer("plan").mayOnlyAccessLayers(below("detect", "scenario", "network"))
                 .whereLayer("sim").mayOnlyAccessLayers(below("detect", "scenario", "network"))
+                .whereLayer("design").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan"))
                 .whereLayer("report").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan", "sim"))
                 .because("each package uses only the layers below it (docs/architecture.md §3)")
                 .check(core);

@@ -50,7 +50,7 @@ class RoundRobinPlannerTest {
     }
 
     /** Receiver of radius 5 µm at the origin, transmitters at the given positions, in this order. */
-    private static List<Node> nodes(long molecules, Vec3... tx) {
+    static List<Node> nodes(long molecules, Vec3... tx) {
         List<Node> nodes = new ArrayList<>();
         nodes.add(Node.receiver("rx", Vec3.ZERO, 5, "A"));
         for (int i = 0; i < tx.length; i++) {

@@ -39,8 +39,8 @@ class SlotScheduleTest {
         assertThat(SlotSchedule.interfererTaps(TAPS, 3, 2, 0)).containsExactly(0.05, 0.02);
         // by hand: decoding k = 1, j = 0 sent 1 slot earlier: lags 1, 4, 7
         assertThat(SlotSchedule.interfererTaps(TAPS, 3, 1, 0)).containsExactly(0.10, 0.03, 0.005);
-        // by hand: (k - j) mod K = 0 means a full frame back
-        assertThat(SlotSchedule.firstLag(3, 1, 1)).isEqualTo(3);
+        // by hand (slot model of issue 13): another emitter in the same slot sends together, lags 0, 3, 6, 9
+        assertThat(SlotSchedule.firstLag(3, 1, 1)).isEqualTo(0);
     }
 
     @Test

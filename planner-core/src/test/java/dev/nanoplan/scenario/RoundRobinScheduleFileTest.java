@@ -52,7 +52,7 @@ class RoundRobinScheduleFileTest {
         assertThat(e.problems()).hasSize(1);
         assertThat(e.getMessage().lines()).hasSize(1);
         assertThat(e.getMessage()).startsWith(
-                "signalling.schedule: unknown schedule 'token-ring', expected all-active or round-robin");
+                "signalling.schedule: unknown schedule 'token-ring', expected all-active, round-robin or slots");
     }
 
     @Test

@@ -61,7 +61,9 @@ public final class ScenarioSettings {
             + ": every emitter of a species sends in every symbol slot, all slots on one clock. "
             + Schedule.ROUND_ROBIN.id() + ": the K emitters of a species take turns in file order, one slot "
             + "each, so a link hears less crosstalk but carries one symbol per K slots (rate / K); "
-            + "the ISI memory should then cover a few frames of K slots.";
+            + "the ISI memory should then cover a few frames of K slots. " + Schedule.SLOTS.id()
+            + ": each emitter sends in its own slot number (Inspector); emitters far apart may share a slot "
+            + "(Assign slots finds a short frame).";
 
     /** The layout plus the species declared in the editor that no node uses yet. */
     public record Applied(Scenario scenario, List<Species> unusedSpecies) {
@@ -210,6 +212,10 @@ public final class ScenarioSettings {
             signalling = new Signalling(SettingsText.parse("symbol time s", symbolTimeS.get()),
                     SettingsText.parseInt("ISI memory symbols", isiMemorySymbols.get()), SettingsText.parseInt("levels", levels.get()),
                     SettingsText.parse("prior one", priorOne.get()), countModel.get(), schedule.get());
+            if (schedule.get() == Schedule.SLOTS) {
+                // keep the slot plan; a new slots schedule starts from file order (round-robin)
+                signalling = signalling.withSlots(s.signalling().frameSlots(), s.signalling().slots());
+            }
         } catch (IllegalArgumentException e) {
             throw SettingsText.prefixed("signalling", e);
         }
