@@ -37,10 +37,10 @@ import org.junit.jupiter.api.Test;
 class CoreArchitectureTest {
 
     /** Every package of the core, bottom up. */
-    private static final String[] PACKAGES = {"math", "io", "geometry", "physics", "count", "info", "detect",
+    private static final String[] PACKAGES = {"math", "io", "engine", "geometry", "physics", "count", "info", "detect",
         "scenario", "network", "plan", "sim", "report"};
 
-    private static final String[] FOUNDATION = {"geometry", "physics", "count", "info"};
+    private static final String[] FOUNDATION = {"engine", "geometry", "physics", "count", "info"};
 
     private static JavaClasses core;
 
@@ -84,6 +84,7 @@ class CoreArchitectureTest {
         layers()
                 .whereLayer("math").mayNotAccessAnyLayer()
                 .whereLayer("io").mayNotAccessAnyLayer()
+                .whereLayer("engine").mayNotAccessAnyLayer()
                 .whereLayer("geometry").mayOnlyAccessLayers("math", "io")
                 .whereLayer("physics").mayOnlyAccessLayers("math", "io")
                 .whereLayer("count").mayOnlyAccessLayers("math", "io")
