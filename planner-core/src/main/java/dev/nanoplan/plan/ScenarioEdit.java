@@ -210,6 +210,7 @@ public sealed interface ScenarioEdit {
             used.add(n.emitsSpecies());
         }
         List<Species> kept = species.stream().filter(sp -> used.contains(sp.name())).toList();
-        return new Scenario(s.name(), s.volume(), s.medium(), kept, signalling, nodes, s.demands(), s.targets());
+        return new Scenario(s.name(), s.volume(), s.medium(), kept, signalling, nodes, s.demands(), s.targets(),
+                s.tolerances());
     }
 }

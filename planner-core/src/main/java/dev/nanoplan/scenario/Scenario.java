@@ -22,9 +22,11 @@ import java.util.stream.Collectors;
  * @param nodes the machines, at least one, unique ids
  * @param demands requested data flows (file default none)
  * @param targets what the layout should achieve (file default {@link Targets#DEFAULT})
+ * @param tolerances fabrication spread (file default {@link Tolerances#NONE}); overrides of ids that
+ *     are not nodes of this layout are dropped
  */
 public record Scenario(String name, Volume volume, Medium medium, List<Species> species, Signalling signalling,
-        List<Node> nodes, List<Demand> demands, Targets targets) {
+        List<Node> nodes, List<Demand> demands, Targets targets, Tolerances tolerances) {
 
     /** The only supported value of the file's {@code format} field. */
     public static final String FORMAT = "nanoplan/1";
@@ -36,6 +38,7 @@ public record Scenario(String name, Volume volume, Medium medium, List<Species> 
         Checks.required("medium", medium);
         Checks.required("signalling", signalling);
         Checks.required("targets", targets);
+        Checks.required("tolerances", tolerances);
         species = List.copyOf(Checks.required("species", species));
         nodes = List.copyOf(Checks.required("nodes", nodes));
         demands = List.copyOf(Checks.required("demands", demands));
@@ -50,6 +53,13 @@ public record Scenario(String name, Volume volume, Medium medium, List<Species> 
             throw new IllegalArgumentException("invalid scenario:\n"
                     + problems.stream().map(ScenarioProblem::toString).collect(Collectors.joining("\n")));
         }
+        tolerances = tolerances.restrictedTo(nodes.stream().map(Node::id).collect(Collectors.toSet()));
+    }
+
+    /** A scenario without tolerances ({@link Tolerances#NONE}). */
+    public Scenario(String name, Volume volume, Medium medium, List<Species> species, Signalling signalling,
+            List<Node> nodes, List<Demand> demands, Targets targets) {
+        this(name, volume, medium, species, signalling, nodes, demands, targets, Tolerances.NONE);
     }
 
     /** Nodes by id, in file order. O(n) per call: cache the result. */

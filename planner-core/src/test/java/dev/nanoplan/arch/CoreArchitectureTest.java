@@ -25,6 +25,7 @@ import org.junit.jupiter.api.Test;
  *   <li>{@code scenario};</li>
  *   <li>{@code network};</li>
  *   <li>{@code plan} and {@code sim}, which do not use each other;</li>
+ *   <li>{@code tolerance} (fabrication tolerance studies, over {@code plan});</li>
  *   <li>{@code report};</li>
  *   <li>{@code cli} and {@code desktop} in planner-ui (the core never names them).</li>
  * </ol>
@@ -38,7 +39,7 @@ class CoreArchitectureTest {
 
     /** Every package of the core, bottom up. */
     private static final String[] PACKAGES = {"math", "io", "engine", "geometry", "physics", "count", "info", "detect",
-        "scenario", "network", "plan", "sim", "report"};
+        "scenario", "network", "plan", "sim", "tolerance", "report"};
 
     private static final String[] FOUNDATION = {"engine", "geometry", "physics", "count", "info"};
 
@@ -94,7 +95,9 @@ class CoreArchitectureTest {
                 .whereLayer("network").mayOnlyAccessLayers(below("detect", "scenario"))
                 .whereLayer("plan").mayOnlyAccessLayers(below("detect", "scenario", "network"))
                 .whereLayer("sim").mayOnlyAccessLayers(below("detect", "scenario", "network"))
-                .whereLayer("report").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan", "sim"))
+                .whereLayer("tolerance").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan"))
+                .whereLayer("report").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan", "sim",
+                        "tolerance"))
                 .because("each package uses only the layers below it (docs/architecture.md §3)")
                 .check(core);
     }

@@ -13,6 +13,11 @@ import dev.nanoplan.sim.ParticleSimulator;
 import dev.nanoplan.sim.SimulatedChannel;
 import dev.nanoplan.sim.SimulationProgress;
 import dev.nanoplan.sim.SimulationSettings;
+import dev.nanoplan.tolerance.Sampler;
+import dev.nanoplan.tolerance.Thresholds;
+import dev.nanoplan.tolerance.ToleranceSample;
+import dev.nanoplan.tolerance.ToleranceSamples;
+import dev.nanoplan.tolerance.ToleranceStudy;
 import java.io.IOException;
 import java.net.ServerSocket;
 import java.nio.file.Files;
@@ -72,6 +77,20 @@ class SparkEngineTest {
         // progress reached every molecule of every emitter (molecules × emitters)
         assertThat(lastDone.get()).isEqualTo(9_000L * spark.emitterIds().size());
         assertThat(NOTES).anyMatch(n -> n.startsWith("spark: stage"));
+    }
+
+    @Test
+    void aSmallToleranceStudyGivesTheLocalEnginesSamplesAndYields() throws Exception {
+        ToleranceStudy study = new ToleranceStudy(bundled("culture-tank.json"), Sampler.SOBOL, 5, Thresholds.DESIGN);
+        ToleranceSamples units = new ToleranceSamples(study, 32);
+        UnitResults<ToleranceSample> local = new LocalEngine(2).run(units);
+        UnitResults<ToleranceSample> spark;
+        try (SparkEngine engine = SparkEngine.over(context, NOTES::add)) {
+            spark = engine.run(units);
+        }
+        // oracle: the local engine on the same units, sample by sample, and the yields combined from them
+        assertThat(spark.finished()).containsExactlyElementsOf(local.finished());
+        assertThat(units.summary(spark).result(false)).isEqualTo(units.summary(local).result(false));
     }
 
     @Test

@@ -54,7 +54,7 @@ final class LayoutEdits {
         List<Species> species = declared(s, unused).stream()
                 .filter(sp -> used.contains(sp.name()) && seen.add(sp.name())).toList();
         return new Scenario(s.name(), s.volume(), s.medium(), species, s.signalling(), nodes, demands,
-                s.targets());
+                s.targets(), s.tolerances());
     }
 
     /**

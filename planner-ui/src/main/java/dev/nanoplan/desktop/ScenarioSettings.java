@@ -260,7 +260,7 @@ public final class ScenarioSettings {
         }
         try {
             return new Applied(new Scenario(s.name(), s.volume(), medium, inLayout, signalling, nodes, s.demands(),
-                    s.targets()), notUsed);
+                    s.targets(), s.tolerances()), notUsed);
         } catch (IllegalArgumentException e) {
             throw new IllegalArgumentException(SettingsText.oneLine(e.getMessage()), e);
         }
