@@ -52,7 +52,7 @@ final class LayoutEdits {
             (used.contains(sp.name()) ? species : candidates).add(sp);
         }
         return new Scenario(s.name(), s.volume(), s.medium(), species, s.signalling(), nodes, s.demands(),
-                s.targets(), candidates);
+                s.targets(), candidates, s.tolerances());
     }
 
     /** Every species the search may give a node: the scenario's, then its candidates. */

@@ -65,7 +65,7 @@ public sealed interface ScenarioEdit {
             Vec3 to = newPositionUm(scenario);
             return withNodes(scenario, n -> n.id().equals(nodeId)
                     ? new Node(n.id(), n.role(), to, n.radiusUm(), n.species(), n.emitsSpecies(),
-                            n.moleculesPerSymbol())
+                            n.moleculesPerSymbol(), n.fixed())
                     : n, scenario.species(), scenario.signalling());
         }
 
@@ -125,7 +125,7 @@ public sealed interface ScenarioEdit {
                     emits = newSpecies;
                 }
                 return new Node(m.id(), m.role(), m.positionUm(), m.radiusUm(), absorbs, emits,
-                        m.moleculesPerSymbol());
+                        m.moleculesPerSymbol(), m.fixed());
             }, species, scenario.signalling());
         }
 
@@ -182,7 +182,7 @@ public sealed interface ScenarioEdit {
             node(scenario, nodeId);
             return withNodes(scenario, n -> n.id().equals(nodeId)
                     ? new Node(n.id(), n.role(), n.positionUm(), n.radiusUm(), n.species(), n.emitsSpecies(),
-                            moleculesPerSymbol)
+                            moleculesPerSymbol, n.fixed())
                     : n, scenario.species(), scenario.signalling());
         }
 
@@ -210,6 +210,7 @@ public sealed interface ScenarioEdit {
             used.add(n.emitsSpecies());
         }
         List<Species> kept = species.stream().filter(sp -> used.contains(sp.name())).toList();
-        return new Scenario(s.name(), s.volume(), s.medium(), kept, signalling, nodes, s.demands(), s.targets());
+        return new Scenario(s.name(), s.volume(), s.medium(), kept, signalling, nodes, s.demands(), s.targets(),
+                s.candidateSpecies(), s.tolerances());
     }
 }

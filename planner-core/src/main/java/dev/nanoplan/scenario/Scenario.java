@@ -25,9 +25,12 @@ import java.util.stream.Collectors;
  * @param targets what the layout should achieve (file default {@link Targets#DEFAULT})
  * @param candidateSpecies species a design aid may bring in (file {@code candidate_species}, default none):
  *     not used by any node, names distinct from {@code species}
+ * @param tolerances fabrication spread (file default {@link Tolerances#NONE}); overrides of ids that
+ *     are not nodes of this layout are dropped
  */
 public record Scenario(String name, Volume volume, Medium medium, List<Species> species, Signalling signalling,
-        List<Node> nodes, List<Demand> demands, Targets targets, List<Species> candidateSpecies) {
+        List<Node> nodes, List<Demand> demands, Targets targets, List<Species> candidateSpecies,
+        Tolerances tolerances) {
 
     /** The only supported value of the file's {@code format} field. */
     public static final String FORMAT = "nanoplan/1";
@@ -39,6 +42,7 @@ public record Scenario(String name, Volume volume, Medium medium, List<Species> 
         Checks.required("medium", medium);
         Checks.required("signalling", signalling);
         Checks.required("targets", targets);
+        Checks.required("tolerances", tolerances);
         species = List.copyOf(Checks.required("species", species));
         nodes = List.copyOf(Checks.required("nodes", nodes));
         demands = List.copyOf(Checks.required("demands", demands));
@@ -62,12 +66,25 @@ public record Scenario(String name, Volume volume, Medium medium, List<Species> 
                         + " is already a species or a candidate");
             }
         }
+        tolerances = tolerances.restrictedTo(nodes.stream().map(Node::id).collect(Collectors.toSet()));
+    }
+
+    /** A scenario without candidate species and without tolerances. */
+    public Scenario(String name, Volume volume, Medium medium, List<Species> species, Signalling signalling,
+            List<Node> nodes, List<Demand> demands, Targets targets) {
+        this(name, volume, medium, species, signalling, nodes, demands, targets, List.of(), Tolerances.NONE);
+    }
+
+    /** A scenario without tolerances ({@link Tolerances#NONE}). */
+    public Scenario(String name, Volume volume, Medium medium, List<Species> species, Signalling signalling,
+            List<Node> nodes, List<Demand> demands, Targets targets, List<Species> candidateSpecies) {
+        this(name, volume, medium, species, signalling, nodes, demands, targets, candidateSpecies, Tolerances.NONE);
     }
 
     /** A scenario without candidate species. */
     public Scenario(String name, Volume volume, Medium medium, List<Species> species, Signalling signalling,
-            List<Node> nodes, List<Demand> demands, Targets targets) {
-        this(name, volume, medium, species, signalling, nodes, demands, targets, List.of());
+            List<Node> nodes, List<Demand> demands, Targets targets, Tolerances tolerances) {
+        this(name, volume, medium, species, signalling, nodes, demands, targets, List.of(), tolerances);
     }
 
     /** Nodes by id, in file order. O(n) per call: cache the result. */

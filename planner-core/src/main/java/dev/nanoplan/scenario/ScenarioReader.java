@@ -291,6 +291,7 @@ public final class ScenarioReader {
                 }
             }
             Targets targets = targets(root.object("targets", false));
+            Tolerances tolerances = tolerances(root.object("tolerances", false), nodeFacts);
             root.finish();
 
             Flow flow = medium == null ? null : medium.flow();
@@ -304,7 +305,51 @@ public final class ScenarioReader {
                 signalling = signalling.withSlots(frameSlotsSeen, slotsSeen);
             }
             return new Scenario(name, volume, medium == null ? Medium.DEFAULT : medium, species, signalling, nodes,
-                    demands, targets == null ? Targets.DEFAULT : targets, candidates);
+                    demands, targets == null ? Targets.DEFAULT : targets, candidates,
+                    tolerances == null ? Tolerances.NONE : tolerances);
+        }
+
+        /** The optional {@code tolerances} section: every value a finite number >= 0; overrides name nodes. */
+        Tolerances tolerances(Obj o, List<ScenarioValidator.NodeFact> nodeFacts) {
+            if (o == null) {
+                return Tolerances.NONE;
+            }
+            Tolerances.NodeSpread defaults = spread(o, Tolerances.NodeSpread.EXACT);
+            Double d = o.number("diffusion_percent", 0.0, Bound.NON_NEGATIVE);
+            Double t = o.number("temperature_K", 0.0, Bound.NON_NEGATIVE);
+            Obj byNode = o.object("nodes", false);
+            Map<String, Tolerances.NodeSpread> nodes = new LinkedHashMap<>();
+            boolean ok = defaults != null && d != null && t != null;
+            if (byNode != null) {
+                Set<String> ids = new HashSet<>();
+                nodeFacts.forEach(f -> ids.add(f.id()));
+                for (Iterator<String> it = byNode.node.fieldNames(); it.hasNext(); ) {
+                    String id = it.next();
+                    Obj n = byNode.object(id, true);
+                    if (!ids.contains(id)) {
+                        byNode.problem(id, "no node has this id");
+                        ok = false;
+                    }
+                    Tolerances.NodeSpread sp = n == null ? null : spread(n, defaults == null ? Tolerances.NodeSpread.EXACT : defaults);
+                    if (n != null) {
+                        n.finish();
+                    }
+                    ok &= sp != null;
+                    if (sp != null) {
+                        nodes.put(id, sp);
+                    }
+                }
+            }
+            o.finish();
+            return ok ? new Tolerances(defaults, d, t, nodes) : null;
+        }
+
+        /** position_sd_um, radius_percent, molecules_percent of {@code o}, absent ones from {@code base}. */
+        Tolerances.NodeSpread spread(Obj o, Tolerances.NodeSpread base) {
+            Double p = o.number("position_sd_um", base.positionSdUm(), Bound.NON_NEGATIVE);
+            Double r = o.number("radius_percent", base.radiusPercent(), Bound.NON_NEGATIVE);
+            Double m = o.number("molecules_percent", base.moleculesPercent(), Bound.NON_NEGATIVE);
+            return p == null || r == null || m == null ? null : new Tolerances.NodeSpread(p, r, m);
         }
 
         /** The flow profile name if it parsed even though the medium as a whole did not. */

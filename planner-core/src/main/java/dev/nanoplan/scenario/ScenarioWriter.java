@@ -124,6 +124,7 @@ public final class ScenarioWriter {
             g.writeNumberField("min_rate_bits_per_s", t.minRateBitsPerS());
             g.writeNumberField("mission_duration_s", t.missionDurationS());
             g.writeEndObject();
+            tolerances(g, s.tolerances());
             g.writeEndObject();
             g.writeRaw('\n');
         }
@@ -148,6 +149,33 @@ public final class ScenarioWriter {
             g.writeEndObject();
         }
         g.writeEndArray();
+    }
+
+    /** The {@code tolerances} section, left out when nothing varies and no node has an override. */
+    private static void tolerances(JsonGenerator g, Tolerances t) throws IOException {
+        if (t.equals(Tolerances.NONE)) {
+            return;
+        }
+        g.writeObjectFieldStart("tolerances");
+        spread(g, t.defaults());
+        g.writeNumberField("diffusion_percent", t.diffusionPercent());
+        g.writeNumberField("temperature_K", t.temperatureK());
+        if (!t.nodes().isEmpty()) {
+            g.writeObjectFieldStart("nodes");
+            for (var e : t.nodes().entrySet()) {
+                g.writeObjectFieldStart(e.getKey());
+                spread(g, e.getValue());
+                g.writeEndObject();
+            }
+            g.writeEndObject();
+        }
+        g.writeEndObject();
+    }
+
+    private static void spread(JsonGenerator g, Tolerances.NodeSpread s) throws IOException {
+        g.writeNumberField("position_sd_um", s.positionSdUm());
+        g.writeNumberField("radius_percent", s.radiusPercent());
+        g.writeNumberField("molecules_percent", s.moleculesPercent());
     }
 
     private static void volume(JsonGenerator g, Volume v) throws IOException {

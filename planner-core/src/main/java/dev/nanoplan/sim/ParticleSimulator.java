@@ -1,22 +1,10 @@
 package dev.nanoplan.sim;
 
-import dev.nanoplan.geometry.Vec3;
+import dev.nanoplan.engine.Engine;
+import dev.nanoplan.engine.LocalEngine;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
-import dev.nanoplan.scenario.Species;
-import java.util.ArrayList;
-import java.util.List;
-import java.util.Map;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import java.util.concurrent.Future;
-import java.util.concurrent.atomic.AtomicLong;
 import java.util.function.BooleanSupplier;
-import org.apache.commons.rng.JumpableUniformRandomProvider;
-import org.apache.commons.rng.LongJumpableUniformRandomProvider;
-import org.apache.commons.rng.UniformRandomProvider;
-import org.apache.commons.rng.sampling.distribution.ZigguratSampler;
 import org.apache.commons.rng.simple.RandomSource;
 
 /**
@@ -48,7 +36,8 @@ import org.apache.commons.rng.simple.RandomSource;
  * seeded from the master seed): emitter e's stream is the root after e long jumps (2^96 steps
  * each), block b's the emitter stream after b jumps (2^64 steps each), so streams never overlap
  * and results are bit-identical for a seed whatever the number of threads (counts are integer
- * sums). Blocks run on a fixed thread pool; progress is reported after each block; cancellation
+ * sums). Each block is a work unit ({@link SimulationBlocks}) run by an {@link Engine}: a thread pool
+ * by default, or a Spark cluster; progress is reported after each block; cancellation
  * is polled between blocks and every {@value BlockKernel#CANCEL_POLL_STEPS} steps, and a
  * cancelled result contains only the blocks that finished.
  *
@@ -92,7 +81,7 @@ public final class ParticleSimulator {
     }
 
     /**
-     * Runs the simulation.
+     * Runs the simulation on a {@link LocalEngine} with {@link SimulationSettings#threads()} threads.
      *
      * @param scenario the layout
      * @param progress called after each finished block (from worker threads)
@@ -102,203 +91,27 @@ public final class ParticleSimulator {
      * @throws IllegalArgumentException if the time step gives too many steps
      */
     public SimulatedChannel simulate(Scenario scenario, SimulationProgress progress, BooleanSupplier cancelled) {
-        Plan plan = new Plan(scenario);
-        long total = settings.moleculesPerEmitter() * plan.emitters.size();
-        AtomicLong done = new AtomicLong();
-        int threads = (int) Math.min(settings.threads(), Math.max(1, plan.totalBlocks));
-        ExecutorService pool = Executors.newFixedThreadPool(threads, r -> {
-            Thread t = new Thread(r, "nanoplan-sim");
-            t.setDaemon(true);
-            return t;
-        });
-        try {
-            List<Future<?>> futures = new ArrayList<>();
-            for (int w = 0; w < threads; w++) {
-                futures.add(pool.submit(() -> work(plan, progress, cancelled, done, total)));
-            }
-            for (Future<?> f : futures) {
-                try {
-                    f.get();
-                } catch (ExecutionException e) {
-                    Throwable c = e.getCause();
-                    if (c instanceof RuntimeException re) {
-                        throw re;
-                    }
-                    throw new IllegalStateException("simulation worker failed", c);
-                } catch (InterruptedException e) {
-                    Thread.currentThread().interrupt();
-                    plan.stop = true;
-                    break;
-                }
-            }
-        } finally {
-            pool.shutdownNow();
-        }
-        return plan.result();
-    }
-
-    private void work(Plan plan, SimulationProgress progress, BooleanSupplier cancelled, AtomicLong done, long total) {
-        MoleculeBlock block = new MoleculeBlock(BLOCK_SIZE);
-        BooleanSupplier stop = () -> plan.stop || cancelled.getAsBoolean();
-        while (true) {
-            if (stop.getAsBoolean()) {
-                plan.stop = true;
-                return;
-            }
-            Task t = plan.next();
-            if (t == null) {
-                return;
-            }
-            EmitterPlan ep = plan.emitters.get(t.emitter);
-            block.release(ep.origin.x(), ep.origin.y(), ep.origin.z(), t.molecules, ep.decayRatePerS,
-                    plan.timeStepS, t.rng);
-            long[] counts = new long[plan.receivers.size() * plan.slots];
-            ZigguratSampler.NormalizedGaussian g = ZigguratSampler.NormalizedGaussian.of(t.rng);
-            boolean finished = BlockKernel.advance(ep.motion, ep.absorbers, block, 0, plan.totalSteps,
-                    plan.stepsPerSlot, counts, plan.slots, t.rng, g, stop);
-            if (!finished) {
-                plan.stop = true;
-                return;
-            }
-            plan.add(t.emitter, t.molecules, counts, block.moleculeSteps);
-            progress.update(done.addAndGet(t.molecules), total);
+        try (LocalEngine engine = new LocalEngine(settings.threads())) {
+            return simulate(scenario, engine, progress, cancelled);
         }
     }
 
-    /** One block to simulate: its emitter, size and random stream. */
-    private record Task(int emitter, int molecules, UniformRandomProvider rng) {
+    /**
+     * Runs the simulation's blocks ({@link SimulationBlocks}) on {@code engine}; the result is the same
+     * on every engine.
+     *
+     * @param engine runs the blocks (its own threads or executors; {@link SimulationSettings#threads()}
+     *     is then not used)
+     * @see #simulate(Scenario, SimulationProgress, BooleanSupplier)
+     */
+    public SimulatedChannel simulate(Scenario scenario, Engine engine, SimulationProgress progress,
+            BooleanSupplier cancelled) {
+        SimulationBlocks blocks = blocks(scenario);
+        return blocks.combine(engine.run(blocks, progress::update, cancelled));
     }
 
-    /** Per-emitter constants. */
-    private record EmitterPlan(Node node, Species species, Vec3 origin, double decayRatePerS, Motion motion,
-            Absorbers absorbers, boolean[] senses) {
-    }
-
-    /** Shared state of one run: what to do, the block dispenser, and the totals. */
-    private final class Plan {
-        final Scenario scenario;
-        final List<Node> receivers = new ArrayList<>();
-        final List<EmitterPlan> emitters = new ArrayList<>();
-        final double timeStepS;
-        final int stepsPerSlot;
-        final int slots;
-        final int totalSteps;
-        final long blocksPerEmitter;
-        final long totalBlocks;
-        volatile boolean stop;
-        // dispenser state (guarded by this)
-        private final LongJumpableUniformRandomProvider root;
-        private JumpableUniformRandomProvider emitterStream;
-        private int nextEmitter;
-        private long nextBlock;
-        // totals (guarded by this)
-        private final long[][] counts;
-        private final long[] simulated;
-        private final long[] moleculeSteps;
-
-        Plan(Scenario scenario) {
-            this.scenario = scenario;
-            Map<String, Species> species = scenario.speciesByName();
-            for (Node n : scenario.nodes()) {
-                if (n.role().absorbs()) {
-                    receivers.add(n);
-                }
-            }
-            timeStepS = timeStepS(scenario);
-            stepsPerSlot = TimeStepRule.stepsPerSymbol(scenario.signalling().symbolTimeS(), timeStepS);
-            slots = scenario.signalling().isiMemorySymbols() + 1;
-            long steps = (long) stepsPerSlot * slots;
-            if (steps > Integer.MAX_VALUE) {
-                throw new IllegalArgumentException("timeStepS: " + timeStepS + " s needs " + steps
-                        + " steps to cover " + slots + " symbol times; use a larger time step or a shorter ISI memory");
-            }
-            totalSteps = (int) steps;
-            for (Node e : scenario.nodes()) {
-                if (!e.role().emits()) {
-                    continue;
-                }
-                Species s = species.get(e.emitsSpecies());
-                Motion motion = new Motion(scenario.volume(), scenario.medium().flow(), s.diffusionUm2PerS(), timeStepS);
-                List<double[]> centres = new ArrayList<>();
-                List<Double> radii = new ArrayList<>();
-                List<Integer> index = new ArrayList<>();
-                boolean[] senses = new boolean[receivers.size()];
-                for (int r = 0; r < receivers.size(); r++) {
-                    Node rn = receivers.get(r);
-                    if (senses(e, rn)) {
-                        senses[r] = true;
-                        centres.add(rn.positionUm().toArray());
-                        radii.add(rn.radiusUm());
-                        index.add(r);
-                    }
-                }
-                Absorbers absorbers = new Absorbers(centres.toArray(new double[0][]),
-                        radii.stream().mapToDouble(Double::doubleValue).toArray(),
-                        index.stream().mapToInt(Integer::intValue).toArray(),
-                        motion.sigmaUm, motion.diffusionTimesStepUm2);
-                emitters.add(new EmitterPlan(e, s, e.positionUm(), s.decayRatePerS(), motion, absorbers, senses));
-            }
-            long m = settings.moleculesPerEmitter();
-            blocksPerEmitter = (m + BLOCK_SIZE - 1) / BLOCK_SIZE;
-            totalBlocks = blocksPerEmitter * emitters.size();
-            root = (LongJumpableUniformRandomProvider) RandomSource.XO_RO_SHI_RO_128_PP.create(settings.seed());
-            counts = new long[emitters.size()][receivers.size() * slots];
-            simulated = new long[emitters.size()];
-            moleculeSteps = new long[emitters.size()];
-        }
-
-        /** The next block in (emitter, block) order, its stream derived by jumps; null when none is left. */
-        synchronized Task next() {
-            if (stop || nextEmitter >= emitters.size()) {
-                return null;
-            }
-            if (nextBlock == 0) {
-                emitterStream = root.longJump();
-            }
-            UniformRandomProvider rng = emitterStream.jump();
-            long first = nextBlock * BLOCK_SIZE;
-            int n = (int) Math.min(BLOCK_SIZE, settings.moleculesPerEmitter() - first);
-            Task t = new Task(nextEmitter, n, rng);
-            if (++nextBlock == blocksPerEmitter) {
-                nextBlock = 0;
-                nextEmitter++;
-            }
-            return t;
-        }
-
-        synchronized void add(int emitter, int molecules, long[] blockCounts, long steps) {
-            long[] c = counts[emitter];
-            for (int i = 0; i < c.length; i++) {
-                c[i] += blockCounts[i];
-            }
-            simulated[emitter] += molecules;
-            moleculeSteps[emitter] += steps;
-        }
-
-        synchronized SimulatedChannel result() {
-            List<String> emitterIds = new ArrayList<>();
-            List<EmitterRun> runs = new ArrayList<>();
-            List<String> receiverIds = receivers.stream().map(Node::id).toList();
-            boolean complete = true;
-            for (int e = 0; e < emitters.size(); e++) {
-                EmitterPlan ep = emitters.get(e);
-                emitterIds.add(ep.node.id());
-                List<SimulatedTaps> taps = new ArrayList<>();
-                long absorbed = 0;
-                for (int r = 0; r < receivers.size(); r++) {
-                    long[] perSlot = new long[slots];
-                    System.arraycopy(counts[e], r * slots, perSlot, 0, slots);
-                    for (long v : perSlot) {
-                        absorbed += v;
-                    }
-                    taps.add(new SimulatedTaps(ep.node.id(), receivers.get(r).id(), ep.senses[r], simulated[e], perSlot));
-                }
-                complete &= simulated[e] == settings.moleculesPerEmitter();
-                runs.add(new EmitterRun(ep.node.id(), ep.species.name(), simulated[e], simulated[e] - absorbed,
-                        moleculeSteps[e], taps));
-            }
-            return new SimulatedChannel(emitterIds, receiverIds, scenario.signalling().symbolTimeS(),
-                    slots - 1, timeStepS, settings.seed(), settings.moleculesPerEmitter(), complete, runs);
-        }
+    /** The simulation of {@code scenario} with these settings as work units. */
+    public SimulationBlocks blocks(Scenario scenario) {
+        return new SimulationBlocks(scenario, settings.moleculesPerEmitter(), settings.seed(), timeStepS(scenario));
     }
 }

@@ -25,7 +25,8 @@ import org.junit.jupiter.api.Test;
  *   <li>{@code scenario};</li>
  *   <li>{@code network};</li>
  *   <li>{@code plan} and {@code sim}, which do not use each other;</li>
- *   <li>{@code design} (layout search over plans);</li>
+ *   <li>{@code design} (layout search over plans) and {@code tolerance} (fabrication tolerance studies, over
+ *   {@code plan}), which do not use each other;</li>
  *   <li>{@code report};</li>
  *   <li>{@code cli} and {@code desktop} in planner-ui (the core never names them).</li>
  * </ol>
@@ -39,10 +40,10 @@ import org.junit.jupiter.api.Test;
 class CoreArchitectureTest {
 
     /** Every package of the core, bottom up. */
-    private static final String[] PACKAGES = {"math", "io", "geometry", "physics", "count", "info", "detect",
-        "scenario", "network", "plan", "sim", "design", "report"};
+    private static final String[] PACKAGES = {"math", "io", "engine", "geometry", "physics", "count", "info", "detect",
+        "scenario", "network", "plan", "sim", "design", "tolerance", "report"};
 
-    private static final String[] FOUNDATION = {"geometry", "physics", "count", "info"};
+    private static final String[] FOUNDATION = {"engine", "geometry", "physics", "count", "info"};
 
     private static JavaClasses core;
 
@@ -86,6 +87,7 @@ class CoreArchitectureTest {
         layers()
                 .whereLayer("math").mayNotAccessAnyLayer()
                 .whereLayer("io").mayNotAccessAnyLayer()
+                .whereLayer("engine").mayNotAccessAnyLayer()
                 .whereLayer("geometry").mayOnlyAccessLayers("math", "io")
                 .whereLayer("physics").mayOnlyAccessLayers("math", "io")
                 .whereLayer("count").mayOnlyAccessLayers("math", "io")
@@ -96,7 +98,9 @@ class CoreArchitectureTest {
                 .whereLayer("plan").mayOnlyAccessLayers(below("detect", "scenario", "network"))
                 .whereLayer("sim").mayOnlyAccessLayers(below("detect", "scenario", "network"))
                 .whereLayer("design").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan"))
-                .whereLayer("report").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan", "sim"))
+                .whereLayer("tolerance").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan"))
+                .whereLayer("report").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan", "sim",
+                        "tolerance"))
                 .because("each package uses only the layers below it (docs/architecture.md §3)")
                 .check(core);
     }

@@ -1,5 +1,6 @@
 package dev.nanoplan.cli;
 
+import dev.nanoplan.engine.EngineUnavailableException;
 import picocli.CommandLine;
 
 /** Maps failures to one-line messages and the exit statuses of docs/architecture.md §4.2. */
@@ -36,7 +37,7 @@ final class ErrorHandling {
         public int handleExecutionException(Exception ex, CommandLine cl, CommandLine.ParseResult parseResult) {
             boolean bad = ex instanceof BadInputException || ex instanceof IllegalArgumentException
                     || ex instanceof CommandLine.ParameterException;
-            String msg = bad ? oneLine(ex.getMessage())
+            String msg = bad || ex instanceof EngineUnavailableException ? oneLine(ex.getMessage())
                     : "internal error: " + ex.getClass().getSimpleName() + ": " + oneLine(ex.getMessage());
             cl.getErr().println("nanoplan: " + msg);
             cl.getErr().flush();

@@ -3,6 +3,7 @@ package dev.nanoplan.cli;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.nanoplan.engine.Engine;
 import dev.nanoplan.report.Cautions;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioException;
@@ -21,6 +22,7 @@ import java.util.Locale;
 import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -54,6 +56,9 @@ public final class SimulateCommand implements Callable<Integer> {
 
     @Option(names = "--threads", description = "Worker threads, default: the number of processors.")
     Integer threads;
+
+    @Mixin
+    EngineOptions engineOptions = new EngineOptions();
 
     @Option(names = "--json", description = "Print one JSON object on stdout.")
     boolean json;
@@ -89,8 +94,8 @@ public final class SimulateCommand implements Callable<Integer> {
 
         PrintWriter err = spec.commandLine().getErr();
         boolean showProgress = progress || System.console() != null;
-        try (SimulationRun run = new SimulationRun()) {
-            SimulatedChannel channel = run.simulate(simulator, scenario, err, showProgress);
+        try (Engine engine = engineOptions.open(n, err); SimulationRun run = new SimulationRun()) {
+            SimulatedChannel channel = run.simulate(simulator, engine, scenario, err, showProgress);
             if (!channel.complete()) {
                 err.println("nanoplan: simulation stopped; reporting the " + channel.moleculesSimulated()
                         + " molecules that finished");

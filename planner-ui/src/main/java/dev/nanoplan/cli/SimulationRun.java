@@ -1,5 +1,7 @@
 package dev.nanoplan.cli;
 
+import dev.nanoplan.engine.Engine;
+import dev.nanoplan.engine.LocalEngine;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.sim.ParticleSimulator;
 import dev.nanoplan.sim.SimulatedChannel;
@@ -34,8 +36,16 @@ final class SimulationRun implements AutoCloseable {
 
     /** Simulates with a progress bar on {@code err} when {@code showProgress}. */
     SimulatedChannel simulate(ParticleSimulator simulator, Scenario scenario, PrintWriter err, boolean showProgress) {
+        try (LocalEngine engine = new LocalEngine(simulator.settings().threads())) {
+            return simulate(simulator, engine, scenario, err, showProgress);
+        }
+    }
+
+    /** Simulates on {@code engine} with a progress bar on {@code err} when {@code showProgress}. */
+    SimulatedChannel simulate(ParticleSimulator simulator, Engine engine, Scenario scenario, PrintWriter err,
+            boolean showProgress) {
         SimulateCommand.ProgressBar bar = showProgress ? new SimulateCommand.ProgressBar(err) : null;
-        SimulatedChannel channel = simulator.simulate(scenario, bar == null ? SimulationProgress.NONE : bar,
+        SimulatedChannel channel = simulator.simulate(scenario, engine, bar == null ? SimulationProgress.NONE : bar,
                 cancelled::get);
         if (bar != null) {
             bar.finish();

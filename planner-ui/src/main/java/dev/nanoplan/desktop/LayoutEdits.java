@@ -54,7 +54,7 @@ final class LayoutEdits {
         List<Species> species = declared(s, unused).stream()
                 .filter(sp -> used.contains(sp.name()) && seen.add(sp.name())).toList();
         return new Scenario(s.name(), s.volume(), s.medium(), species, s.signalling(), nodes, demands,
-                s.targets());
+                s.targets(), s.candidateSpecies(), s.tolerances());
     }
 
     /**
@@ -165,7 +165,8 @@ final class LayoutEdits {
     }
 
     private static Node at(Node n, String id, Vec3 positionUm) {
-        return new Node(id, n.role(), positionUm, n.radiusUm(), n.species(), n.emitsSpecies(), n.moleculesPerSymbol());
+        return new Node(id, n.role(), positionUm, n.radiusUm(), n.species(), n.emitsSpecies(), n.moleculesPerSymbol(),
+                n.fixed());
     }
 
     private static int indexOf(List<Node> nodes, String id) {

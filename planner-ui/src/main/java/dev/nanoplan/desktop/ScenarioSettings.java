@@ -249,7 +249,8 @@ public final class ScenarioSettings {
             String sp = renamed.getOrDefault(n.species(), n.species());
             String em = renamed.getOrDefault(n.emitsSpecies(), n.emitsSpecies());
             nodes.add(sp.equals(n.species()) && em.equals(n.emitsSpecies()) ? n
-                    : new Node(n.id(), n.role(), n.positionUm(), n.radiusUm(), sp, em, n.moleculesPerSymbol()));
+                    : new Node(n.id(), n.role(), n.positionUm(), n.radiusUm(), sp, em, n.moleculesPerSymbol(),
+                            n.fixed()));
         }
         Map<String, List<String>> nowUsing = usersBySpecies(nodes);
         for (String gone : removed) {
@@ -266,7 +267,7 @@ public final class ScenarioSettings {
         }
         try {
             return new Applied(new Scenario(s.name(), s.volume(), medium, inLayout, signalling, nodes, s.demands(),
-                    s.targets()), notUsed);
+                    s.targets(), s.candidateSpecies(), s.tolerances()), notUsed);
         } catch (IllegalArgumentException e) {
             throw new IllegalArgumentException(SettingsText.oneLine(e.getMessage()), e);
         }

@@ -80,4 +80,21 @@ class SimulateCommandTest {
             assertThat(r.out()).isEmpty();
         }
     }
+
+    @Test
+    void engineOptionsGiveOneLineErrorsWithStatusTwo(@TempDir Path dir) throws Exception {
+        Path f = Files.writeString(dir.resolve("pair.json"), PAIR);
+        // docs/architecture.md §4.2: bad usage is one line naming the option, exit status 2
+        CliRun master = run("simulate", f.toString(), "--master", "local[2]");
+        assertThat(master.status()).isEqualTo(2);
+        assertThat(master.err().strip()).isEqualTo("nanoplan: --master: needs --engine spark");
+        // planner-ui alone has no Spark classes: the user is told how to get them
+        CliRun spark = run("simulate", f.toString(), "--engine", "spark");
+        assertThat(spark.status()).isEqualTo(2);
+        assertThat(spark.err().strip()).startsWith("nanoplan: --engine spark: the Spark engine is not on the class path")
+                .doesNotContain("\n");
+        CliRun unknown = run("simulate", f.toString(), "--engine", "grid");
+        assertThat(unknown.err().strip()).isEqualTo("nanoplan: --engine: must be local or spark, got grid");
+        assertThat(unknown.status()).isEqualTo(2);
+    }
 }

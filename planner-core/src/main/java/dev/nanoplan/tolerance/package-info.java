@@ -1,0 +1,2 @@
+/** Fabrication tolerances: perturbed layouts, per-sample plans, yields, drivers and guard bands. */
+package dev.nanoplan.tolerance;
