@@ -80,6 +80,15 @@ public record LinkEvaluation(LinkSpec spec, List<CountPmf> givenLevel, BinaryDet
      * detector a relay uses, so route cascades multiply these matrices.
      */
     public double[][] operatingChannel() {
+        return channelAt(givenLevel, operatingThresholds);
+    }
+
+    /**
+     * Transition matrix of the detector with thresholds {@code t} over the slot-count pmfs
+     * {@code givenLevel}: channel[i][j] = P(decide j | level i) with decide j iff t_j ≤ Y &lt; t_{j+1};
+     * each entry a direct sum over its cell, truncated mass on its own side, rows renormalised.
+     */
+    public static double[][] channelAt(List<CountPmf> givenLevel, long[] t) {
         int m = givenLevel.size();
         double[][] w = new double[m][m];
         for (int i = 0; i < m; i++) {
@@ -88,7 +97,7 @@ public record LinkEvaluation(LinkSpec spec, List<CountPmf> givenLevel, BinaryDet
             w[i][m - 1] += p.massAbove();
             int cell = 0;
             for (long y = p.offset(); y <= p.last(); y++) {
-                while (cell < m - 1 && y >= operatingThresholds[cell]) {
+                while (cell < m - 1 && y >= t[cell]) {
                     cell++;
                 }
                 w[i][cell] += p.probability(y);

@@ -78,7 +78,7 @@ public final class PlanHtml {
         return h.toString();
     }
 
-    private static final String CSS = """
+    static final String CSS = """
             :root { --ink:#1f2328; --muted:#5b6470; --rule:#d8dde3; --band:#f5f7f9; --warn:#fff4d6;
                     --warn-edge:#d39e00; --bad:#b3261e; --good:#1e6b3a; }
             * { box-sizing: border-box; }

@@ -1,6 +1,5 @@
 package dev.nanoplan.tolerance;
 
-import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.count.CountTerm;
 import dev.nanoplan.info.ChannelCascade;
 import dev.nanoplan.network.AnalyticChannel;
@@ -177,7 +176,7 @@ public final class ToleranceStudy {
             error[l] = error(l, ev);
             long[] t = thresholds == Thresholds.DESIGN ? nominalEvaluations[l].operatingThresholds()
                     : ev.operatingThresholds();
-            matrix[l] = channelAt(ev.givenLevel(), t);
+            matrix[l] = LinkEvaluation.channelAt(ev.givenLevel(), t);
             bits[l] = thresholds == Thresholds.DESIGN
                     ? ChannelCascade.mutualInformationBits(weights(), matrix[l]) : ev.mutualInformationBits();
         }
@@ -227,7 +226,7 @@ public final class ToleranceStudy {
 
     /** Σ_i w_i·P(decide ≠ i | i) at thresholds t (binary: (1 − q)ε₀ + qε₁). */
     private double errorAt(LinkEvaluation ev, long[] t) {
-        double[][] w = channelAt(ev.givenLevel(), t);
+        double[][] w = LinkEvaluation.channelAt(ev.givenLevel(), t);
         double[] weights = weights();
         double e = 0;
         for (int i = 0; i < w.length; i++) {
@@ -239,35 +238,6 @@ public final class ToleranceStudy {
     private double[] weights() {
         Signalling sig = nominal.signalling();
         return LinkSpec.symbolWeights(sig.levels(), sig.priorOne());
-    }
-
-    /**
-     * P(decide j | level i) with decide j iff t_j ≤ Y &lt; t_{j+1}; each entry a direct sum over its cell,
-     * truncated mass on its own side, rows renormalised (as the plan's operating channel).
-     */
-    static double[][] channelAt(List<CountPmf> givenLevel, long[] t) {
-        int m = givenLevel.size();
-        double[][] w = new double[m][m];
-        for (int i = 0; i < m; i++) {
-            CountPmf p = givenLevel.get(i);
-            w[i][0] += p.massBelow();
-            w[i][m - 1] += p.massAbove();
-            int cell = 0;
-            for (long y = p.offset(); y <= p.last(); y++) {
-                while (cell < m - 1 && y >= t[cell]) {
-                    cell++;
-                }
-                w[i][cell] += p.probability(y);
-            }
-            double sum = 0;
-            for (double v : w[i]) {
-                sum += v;
-            }
-            for (int j = 0; j < m; j++) {
-                w[i][j] = sum > 0 ? w[i][j] / sum : (i == j ? 1 : 0);
-            }
-        }
-        return w;
     }
 
     private boolean[] demandsMeet(Scenario s, double[] error, double[][][] matrix) {

@@ -64,7 +64,7 @@ class ScenarioWriterTest {
         tree.fieldNames().forEachRemaining(names::add);
         // docs/architecture.md §4.1 field order.
         assertThat(names).containsExactly("format", "name", "volume", "medium", "species", "signalling", "nodes",
-                "demands", "targets");
+                "demands", "targets", "tolerances");
         List<String> nodeFields = new ArrayList<>();
         tree.get("nodes").get(1).fieldNames().forEachRemaining(nodeFields::add);
         assertThat(nodeFields).containsExactly("id", "role", "position_um", "radius_um", "species", "emits_species",
