@@ -46,7 +46,8 @@ import org.apache.commons.rng.simple.RandomSource;
  * bytes per molecule; one block per thread in flight). Block b of emitter e draws from its own
  * stream of the XoRoShiRo128++ generator (Commons RNG {@link RandomSource#XO_RO_SHI_RO_128_PP}
  * seeded from the master seed): emitter e's stream is the root after e long jumps (2^96 steps
- * each), block b's the emitter stream after b jumps (2^64 steps each), so streams never overlap
+ * each; e counts every emitter of the scenario, so a run of some emitters only,
+ * {@link SimulationSettings#emitterIds()}, gives them the same taps as a run of all), block b's the emitter stream after b jumps (2^64 steps each), so streams never overlap
  * and results are bit-identical for a seed whatever the number of threads (counts are integer
  * sums). Blocks run on a fixed thread pool; progress is reported after each block; cancellation
  * is polled between blocks and every {@value BlockKernel#CANCEL_POLL_STEPS} steps, and a
@@ -171,7 +172,7 @@ public final class ParticleSimulator {
 
     /** Per-emitter constants. */
     private record EmitterPlan(Node node, Species species, Vec3 origin, double decayRatePerS, Motion motion,
-            Absorbers absorbers, boolean[] senses) {
+            Absorbers absorbers, boolean[] senses, int streamIndex) {
     }
 
     /** Shared state of one run: what to do, the block dispenser, and the totals. */
@@ -190,6 +191,7 @@ public final class ParticleSimulator {
         private final LongJumpableUniformRandomProvider root;
         private JumpableUniformRandomProvider emitterStream;
         private int nextEmitter;
+        private int jumps;
         private long nextBlock;
         // totals (guarded by this)
         private final long[][] counts;
@@ -213,8 +215,13 @@ public final class ParticleSimulator {
                         + " steps to cover " + slots + " symbol times; use a larger time step or a shorter ISI memory");
             }
             totalSteps = (int) steps;
+            int streamIndex = -1;
             for (Node e : scenario.nodes()) {
                 if (!e.role().emits()) {
+                    continue;
+                }
+                streamIndex++;
+                if (!settings.simulates(e.id())) {
                     continue;
                 }
                 Species s = species.get(e.emitsSpecies());
@@ -236,7 +243,8 @@ public final class ParticleSimulator {
                         radii.stream().mapToDouble(Double::doubleValue).toArray(),
                         index.stream().mapToInt(Integer::intValue).toArray(),
                         motion.sigmaUm, motion.diffusionTimesStepUm2);
-                emitters.add(new EmitterPlan(e, s, e.positionUm(), s.decayRatePerS(), motion, absorbers, senses));
+                emitters.add(new EmitterPlan(e, s, e.positionUm(), s.decayRatePerS(), motion, absorbers, senses,
+                        streamIndex));
             }
             long m = settings.moleculesPerEmitter();
             blocksPerEmitter = (m + BLOCK_SIZE - 1) / BLOCK_SIZE;
@@ -253,7 +261,12 @@ public final class ParticleSimulator {
                 return null;
             }
             if (nextBlock == 0) {
-                emitterStream = root.longJump();
+                // emitter k of the scenario draws from the root's state after k long jumps, whichever are simulated
+                int target = emitters.get(nextEmitter).streamIndex;
+                while (jumps <= target) {
+                    emitterStream = root.longJump();
+                    jumps++;
+                }
             }
             UniformRandomProvider rng = emitterStream.jump();
             long first = nextBlock * BLOCK_SIZE;
