@@ -34,10 +34,6 @@ public final class PlanScheduler {
 
         /** The exact planner failed on the latest request. */
         void failed(Throwable error);
-
-        /** What the exact planner of the latest request is doing (e.g. simulating the channel). */
-        default void status(String text) {
-        }
     }
 
     private final PlanService service;
@@ -166,13 +162,7 @@ public final class PlanScheduler {
         }
         try {
             long t0 = System.nanoTime();
-            Plan p = service.plan(s, text -> uiThread.execute(() -> {
-                synchronized (lock) {
-                    if (gen == generation.get()) {
-                        sink.status(text);
-                    }
-                }
-            }));
+            Plan p = service.plan(s);
             long dt = System.nanoTime() - t0;
             uiThread.execute(() -> {
                 synchronized (lock) {

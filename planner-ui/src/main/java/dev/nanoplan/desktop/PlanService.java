@@ -2,7 +2,6 @@ package dev.nanoplan.desktop;
 
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.scenario.Scenario;
-import java.util.function.Consumer;
 
 /**
  * What the desktop planner needs from planner-core to turn a layout into a plan. The production
@@ -17,14 +16,6 @@ public interface PlanService {
      * @throws RuntimeException when the core fails; the view model shows the message
      */
     Plan plan(Scenario scenario);
-
-    /**
-     * {@link #plan(Scenario)}, telling {@code status} what takes long (e.g. "simulating the channel of 5
-     * emitters: 40 %"), from the planning thread.
-     */
-    default Plan plan(Scenario scenario, Consumer<String> status) {
-        return plan(scenario);
-    }
 
     /**
      * A fast approximate plan shown while {@link #plan} runs, or null when the service has none

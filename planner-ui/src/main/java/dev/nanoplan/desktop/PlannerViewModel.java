@@ -86,11 +86,6 @@ public final class PlannerViewModel {
                     public void failed(Throwable error) {
                         document.say("planning failed: " + error.getMessage());
                     }
-
-                    @Override
-                    public void status(String text) {
-                        document.say(text);
-                    }
                 });
         document = new ScenarioDocument(recent, this::beforeShown);
         document.onShown(this::afterShown);
