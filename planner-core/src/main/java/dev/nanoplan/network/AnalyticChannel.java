@@ -145,7 +145,36 @@ public final class AnalyticChannel {
         for (List<ChannelEntry> l : perReceiver) {
             all.addAll(l);
         }
-        return ChannelMatrix.of(all, notes);
+        return ChannelMatrix.of(withVerdicts(scenario, all), notes);
+    }
+
+    /**
+     * The entries with the verdict of {@link ChannelApplicability} as their reason ("closed form holds:
+     * …" or the failed tests), in the same order. O(Σ over emitters of their entries²).
+     */
+    private static List<ChannelEntry> withVerdicts(Scenario scenario, List<ChannelEntry> entries) {
+        ChannelApplicability tests = ChannelApplicability.of(scenario);
+        Map<String, Node> nodes = scenario.nodesById();
+        Map<String, List<ChannelEntry>> byEmitter = new HashMap<>();
+        for (ChannelEntry e : entries) {
+            byEmitter.computeIfAbsent(e.emitter(), k -> new ArrayList<>()).add(e);
+        }
+        ChannelEntry[] out = new ChannelEntry[entries.size()];
+        IntStream.range(0, out.length).parallel().forEach(i -> {
+            ChannelEntry e = entries.get(i);
+            ChannelApplicability.Verdict v = tests.verdict(nodes.get(e.emitter()), nodes.get(e.receiver()),
+                    e.tapSum(), byEmitter.get(e.emitter()));
+            out[i] = e.withReason(e.source(), v.covered() ? v.reason() : NOT_COVERED + v.reason());
+        });
+        return List.of(out);
+    }
+
+    /** Prefix of the reason of a closed-form entry that fails {@link ChannelApplicability}. */
+    public static final String NOT_COVERED = "closed form outside its validity: ";
+
+    /** Whether an analytic entry passed {@link ChannelApplicability} (its reason does not start with {@link #NOT_COVERED}). */
+    public static boolean covered(ChannelEntry entry) {
+        return entry.channelReason() == null || !entry.channelReason().startsWith(NOT_COVERED);
     }
 
     /** The open or decaying absorbing-sphere model of one pair. */

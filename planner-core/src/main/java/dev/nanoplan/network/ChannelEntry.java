@@ -16,9 +16,18 @@ import java.util.Objects;
  *                    {@value ChannelMatrix#SIMULATED} (or any other non-blank word)
  * @param modelCaveat null, "walls", "flow" or "walls+flow" when the open-medium closed form may be
  *                    wrong for this pair; null for simulated taps
+ * @param channelReason why this pair's taps come from {@code source}, in words (the verdict of
+ *                    {@link ChannelApplicability} for closed-form taps, what the simulation caught for
+ *                    simulated ones), or null when nobody said
  */
 public record ChannelEntry(String emitter, String receiver, String species, double[] taps, String source,
-        String modelCaveat) {
+        String modelCaveat, String channelReason) {
+
+    /** An entry without a stated reason. */
+    public ChannelEntry(String emitter, String receiver, String species, double[] taps, String source,
+            String modelCaveat) {
+        this(emitter, receiver, species, taps, source, modelCaveat, null);
+    }
 
     public ChannelEntry {
         if (emitter == null || emitter.isBlank()) {
@@ -57,6 +66,11 @@ public record ChannelEntry(String emitter, String receiver, String species, doub
         return taps.clone();
     }
 
+    /** This entry with another source and reason (same pair, species, taps and caveat). */
+    public ChannelEntry withReason(String newSource, String reason) {
+        return new ChannelEntry(emitter, receiver, species, taps, newSource, modelCaveat, reason);
+    }
+
     /** Tap k without copying. */
     public double tap(int k) {
         return taps[k];
@@ -75,7 +89,7 @@ public record ChannelEntry(String emitter, String receiver, String species, doub
     public boolean equals(Object o) {
         return o instanceof ChannelEntry e && emitter.equals(e.emitter) && receiver.equals(e.receiver)
                 && species.equals(e.species) && Arrays.equals(taps, e.taps) && source.equals(e.source)
-                && Objects.equals(modelCaveat, e.modelCaveat);
+                && Objects.equals(modelCaveat, e.modelCaveat) && Objects.equals(channelReason, e.channelReason);
     }
 
     @Override

@@ -187,7 +187,7 @@ public final class IncrementalPlanner {
     static Plan whatIf(PlanInputs before, ChannelMatrix channel, Map<String, ReceiverLinks> links,
             ReceiverEvaluator evaluator, Scenario edited) {
         PlanInputs next = PlanInputs.of(edited, before.options());
-        ChannelMatrix nextChannel = PlanPipeline.channel(next, f -> { });
+        ChannelMatrix nextChannel = PlanPipeline.editedChannel(next, channel);
         return PlanPipeline.whatIf(next, nextChannel,
                 relink(before, channel, links, next, nextChannel, evaluator).links(), evaluator);
     }
@@ -248,7 +248,9 @@ public final class IncrementalPlanner {
         for (int i = 0; i < after.size(); i++) {
             ChannelEntry a = before.get(i);
             ChannelEntry b = after.get(i);
-            if (changed.contains(b.emitter()) || !a.equals(b) || !Objects.equals(a.modelCaveat(), b.modelCaveat())) {
+            // the reason is left out: the plan stamps it on the links, the evaluation does not read it
+            if (changed.contains(b.emitter()) || !a.withReason(a.source(), null).equals(b.withReason(b.source(), null))
+                    || !Objects.equals(a.modelCaveat(), b.modelCaveat())) {
                 return false;
             }
         }

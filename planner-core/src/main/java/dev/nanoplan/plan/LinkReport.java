@@ -46,16 +46,42 @@ import java.util.Objects;
  * @param topInterfererShare     its share of the interference mean, in [0, 1] (0 when none)
  * @param modelCaveat            null, "walls", "flow" or "walls+flow" when the open-medium closed
  *                               form may be wrong here; "simulated" when taps came from simulation
+ * @param channel                where the taps came from: "analytic" (closed forms) or "simulated"
+ *                               (particle simulation); null when not stamped by the plan
+ * @param channelReason          why, in words (the closed forms' validity test or what was simulated),
+ *                               or null
  */
 public record LinkReport(String from, String to, String species, double hitProbability, double[] taps,
         double signalMean, double interferenceMean, double isiMean, double backgroundMean, long threshold,
         double errorProbability, double log10ErrorProbability, long minErrorThreshold, double minErrorProbability,
         double mutualInformationBits, double rateBitsPerS, Double capacityBits, Double capacityPriorOne,
         double crossoverZero, double crossoverOne, boolean countBlind, Impairment limitedBy, String topInterferer,
-        double topInterfererShare, String modelCaveat) {
+        double topInterfererShare, String modelCaveat, String channel, String channelReason) {
 
     public LinkReport {
         taps = taps.clone();
+    }
+
+    /** A report whose channel and reason the plan stamps later ({@link #withChannel}). */
+    public LinkReport(String from, String to, String species, double hitProbability, double[] taps,
+            double signalMean, double interferenceMean, double isiMean, double backgroundMean, long threshold,
+            double errorProbability, double log10ErrorProbability, long minErrorThreshold, double minErrorProbability,
+            double mutualInformationBits, double rateBitsPerS, Double capacityBits, Double capacityPriorOne,
+            double crossoverZero, double crossoverOne, boolean countBlind, Impairment limitedBy, String topInterferer,
+            double topInterfererShare, String modelCaveat) {
+        this(from, to, species, hitProbability, taps, signalMean, interferenceMean, isiMean, backgroundMean,
+                threshold, errorProbability, log10ErrorProbability, minErrorThreshold, minErrorProbability,
+                mutualInformationBits, rateBitsPerS, capacityBits, capacityPriorOne, crossoverZero, crossoverOne,
+                countBlind, limitedBy, topInterferer, topInterfererShare, modelCaveat, null, null);
+    }
+
+    /** This link with the channel its taps came from and why. */
+    public LinkReport withChannel(String source, String reason) {
+        return new LinkReport(from, to, species, hitProbability, taps, signalMean, interferenceMean, isiMean,
+                backgroundMean, threshold, errorProbability, log10ErrorProbability, minErrorThreshold,
+                minErrorProbability, mutualInformationBits, rateBitsPerS, capacityBits, capacityPriorOne,
+                crossoverZero, crossoverOne, countBlind, limitedBy, topInterferer, topInterfererShare, modelCaveat,
+                source, reason);
     }
 
     @Override
@@ -73,7 +99,8 @@ public record LinkReport(String from, String to, String species, double hitProba
         return new LinkReport(from, to, species, hitProbability, taps, signalMean, interferenceMean, isiMean,
                 backgroundMean, threshold, errorProbability, log10ErrorProbability, minErrorThreshold,
                 minErrorProbability, mutualInformationBits, rateBitsPerS, bits, priorOne, crossoverZero,
-                crossoverOne, countBlind, limitedBy, topInterferer, topInterfererShare, modelCaveat);
+                crossoverOne, countBlind, limitedBy, topInterferer, topInterfererShare, modelCaveat, channel,
+                channelReason);
     }
 
     @Override
@@ -104,7 +131,9 @@ public record LinkReport(String from, String to, String species, double hitProba
                 && Objects.equals(limitedBy, other.limitedBy)
                 && Objects.equals(topInterferer, other.topInterferer)
                 && Double.compare(topInterfererShare, other.topInterfererShare) == 0
-                && Objects.equals(modelCaveat, other.modelCaveat);
+                && Objects.equals(modelCaveat, other.modelCaveat)
+                && Objects.equals(channel, other.channel)
+                && Objects.equals(channelReason, other.channelReason);
     }
 
     @Override
@@ -112,7 +141,7 @@ public record LinkReport(String from, String to, String species, double hitProba
         int h = Objects.hash(from, to, species, hitProbability, signalMean, interferenceMean, isiMean, backgroundMean,
                 threshold, errorProbability, log10ErrorProbability, minErrorThreshold, minErrorProbability,
                 mutualInformationBits, rateBitsPerS, capacityBits, capacityPriorOne, crossoverZero, crossoverOne,
-                countBlind, limitedBy, topInterferer, topInterfererShare, modelCaveat);
+                countBlind, limitedBy, topInterferer, topInterfererShare, modelCaveat, channel, channelReason);
         h = 31 * h + Arrays.hashCode(taps);
         return h;
     }

@@ -12,10 +12,12 @@ import dev.nanoplan.scenario.Signalling;
 import dev.nanoplan.scenario.Species;
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.DoubleConsumer;
@@ -67,6 +69,43 @@ final class PlanPipeline {
             }
         }
         return channel;
+    }
+
+    /**
+     * The channel of an edited layout ({@link IncrementalPlanner}) planned with the channel {@code given}
+     * for the original: the analytic channel of the edit when none was given; {@code given} when it holds
+     * no closed-form entry (simulated taps do not follow edits; the advice only changes molecules there);
+     * else, for a mixed channel, the closed forms of the edit for every emitter that had closed-form taps
+     * and {@code given}'s entries of the other emitters.
+     */
+    static ChannelMatrix editedChannel(PlanInputs next, ChannelMatrix given) {
+        PlanOptions options = next.options();
+        if (options.channel() == null) {
+            return channel(next, f -> { });
+        }
+        if (given.entries().stream().noneMatch(e -> e.source().equals(ChannelMatrix.ANALYTIC))) {
+            return given;
+        }
+        ChannelMatrix analytic = AnalyticChannel.build(next.scenario(), options.cutoffMolecules());
+        Set<String> fixed = new HashSet<>();
+        for (ChannelEntry e : given.entries()) {
+            if (!e.source().equals(ChannelMatrix.ANALYTIC)) {
+                fixed.add(e.emitter());
+            }
+        }
+        List<ChannelEntry> entries = new ArrayList<>();
+        for (ChannelEntry e : analytic.entries()) {
+            if (!fixed.contains(e.emitter())) {
+                entries.add(e);
+            }
+        }
+        for (ChannelEntry e : given.entries()) {
+            if (fixed.contains(e.emitter()) && next.nodes().containsKey(e.receiver())
+                    && next.nodes().containsKey(e.emitter())) {
+                entries.add(e);
+            }
+        }
+        return ChannelMatrix.of(entries, given.notes());
     }
 
     /** The evaluator's result at each of {@code receivers} (receivers of {@code channel}). */
@@ -195,7 +234,9 @@ final class PlanPipeline {
             for (EvaluatedLink e : links.kept()) {
                 byPair.put(e.key(), e);
                 edges.add(e.edge());
-                linkReports.add(e.report());
+                // stamped here, not by the evaluator: the reason may change without the link's inputs
+                ChannelEntry entry = channel.entry(e.report().from(), e.report().to());
+                linkReports.add(e.report().withChannel(entry.source(), entry.channelReason()));
             }
         }
         addLinkWarnings(linkReports, sig, warnings);

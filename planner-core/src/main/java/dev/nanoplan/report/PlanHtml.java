@@ -306,7 +306,7 @@ public final class PlanHtml {
                 + "<th class=\"n\">ISI</th><th class=\"n\">Crosstalk</th><th class=\"n\">Threshold</th>"
                 + "<th class=\"n\">Error prob.</th><th class=\"n\">Information (bit)</th><th class=\"n\">Rate (bit/s)</th>"
                 + "<th class=\"n\">Capacity (bit)</th>"
-                + "<th>Limited by</th><th>Top interferer</th><th>Caveat</th></tr>\n");
+                + "<th>Limited by</th><th>Top interferer</th><th>Caveat</th><th>Channel</th></tr>\n");
         for (LinkReport l : sorted.subList(0, shown)) {
             h.append("<tr><td>").append(esc(l.from())).append("</td><td>").append(esc(l.to())).append("</td><td>")
                     .append(esc(l.species())).append("</td>");
@@ -324,7 +324,9 @@ public final class PlanHtml {
                 h.append(esc(l.topInterferer())).append(" (")
                         .append(Math.round(100 * l.topInterfererShare())).append(" %)");
             }
-            h.append("</td><td>").append(l.modelCaveat() == null ? "" : esc(l.modelCaveat())).append("</td></tr>\n");
+            h.append("</td><td>").append(l.modelCaveat() == null ? "" : esc(l.modelCaveat())).append("</td><td>")
+                    .append(l.channel() == null ? "" : esc(l.channel()))
+                    .append(l.channelReason() == null ? "" : ": " + esc(l.channelReason())).append("</td></tr>\n");
         }
         h.append("</table></div>\n</section>\n");
     }

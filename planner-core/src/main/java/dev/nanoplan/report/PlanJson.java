@@ -119,6 +119,8 @@ public final class PlanJson {
         number(o, "crossover_zero", l.crossoverZero());
         number(o, "crossover_one", l.crossoverOne());
         text(o, "model_caveat", l.modelCaveat());
+        text(o, "channel", l.channel());
+        text(o, "channel_reason", l.channelReason());
         return o;
     }
 

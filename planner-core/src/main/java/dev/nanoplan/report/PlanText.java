@@ -1,5 +1,8 @@
 package dev.nanoplan.report;
 
+import dev.nanoplan.network.AnalyticChannel;
+import dev.nanoplan.network.ChannelApplicability;
+import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.plan.BudgetReport;
 import dev.nanoplan.plan.LinkReport;
 import dev.nanoplan.plan.Plan;
@@ -60,6 +63,7 @@ public final class PlanText {
                             100 * l.topInterfererShare()),
                     l.modelCaveat() == null ? "" : "  [" + l.modelCaveat() + "]"));
         }
+        channels(plan, sb);
         sb.append("\nRoutes\n");
         List<SharedRates.Share> shares = SharedRates.of(plan);
         for (int i = 0; i < plan.routes().size(); i++) {
@@ -100,5 +104,32 @@ public final class PlanText {
         }
         sb.append('\n').append(Cautions.SHORT).append('\n');
         return sb.toString();
+    }
+
+    /**
+     * Which channel the links rest on: one line when every link has closed-form taps that pass the
+     * validity test, else one line per simulated link or closed-form link outside its validity.
+     */
+    private static void channels(Plan plan, StringBuilder sb) {
+        List<LinkReport> special = new ArrayList<>();
+        for (LinkReport l : plan.links()) {
+            if (l.channel() != null && (!l.channel().equals(ChannelMatrix.ANALYTIC)
+                    || (l.channelReason() != null && l.channelReason().startsWith(AnalyticChannel.NOT_COVERED)))) {
+                special.add(l);
+            }
+        }
+        if (special.isEmpty()) {
+            sb.append(String.format(Locale.ROOT, "%nChannel: closed forms for all %d links (open-medium validity "
+                    + "test passed: Peclet number <= %s, walls and other absorbers change each catch by <= %.0f %%)%n",
+                    plan.links().size(), ChannelApplicability.MAX_PECLET,
+                    100 * ChannelApplicability.MAX_RELATIVE_EFFECT));
+            return;
+        }
+        sb.append(String.format(Locale.ROOT, "%nChannel: %d of %d links simulated or outside the closed forms' "
+                + "validity%n", special.size(), plan.links().size()));
+        for (LinkReport l : special) {
+            sb.append(String.format(Locale.ROOT, "  %s -> %s: %s (%s)%n", l.from(), l.to(), l.channel(),
+                    l.channelReason() == null ? "no reason given" : l.channelReason()));
+        }
     }
 }

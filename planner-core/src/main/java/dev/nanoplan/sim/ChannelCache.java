@@ -27,6 +27,7 @@ import java.util.HexFormat;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 
 /**
  * On-disk cache of simulated channels, so that re-planning a layout with other molecule budgets,
@@ -130,6 +131,16 @@ public final class ChannelCache {
      * @param timeStepS Δt actually used, s
      */
     public static String key(Scenario scenario, long moleculesPerEmitter, long seed, double timeStepS) {
+        return key(scenario, moleculesPerEmitter, seed, timeStepS, Set.of());
+    }
+
+    /**
+     * The key of a run of some emitters only: {@link #key(Scenario, long, long, double)} plus their
+     * indices among the scenario's emitters; a set naming every emitter (or none) gives the key of a
+     * run of all, so such runs share one file.
+     */
+    public static String key(Scenario scenario, long moleculesPerEmitter, long seed, double timeStepS,
+            Set<String> emitterIds) {
         ByteArrayOutputStream bytes = new ByteArrayOutputStream();
         try (DataOutputStream out = new DataOutputStream(bytes)) {
             out.writeUTF(FORMAT);
@@ -158,6 +169,14 @@ public final class ChannelCache {
             out.writeLong(moleculesPerEmitter);
             out.writeLong(seed);
             out.writeDouble(timeStepS);
+            List<Integer> subset = subset(scenario, emitterIds);
+            if (subset != null) {
+                out.writeUTF("emitters");
+                out.writeInt(subset.size());
+                for (int i : subset) {
+                    out.writeInt(i);
+                }
+            }
         } catch (IOException e) {
             throw new UncheckedIOException(e); // cannot happen with an in-memory stream
         }
@@ -166,6 +185,27 @@ public final class ChannelCache {
         } catch (NoSuchAlgorithmException e) {
             throw new IllegalStateException("SHA-256 is required of every Java platform", e);
         }
+    }
+
+    /**
+     * Indices among the scenario's emitters of the emitters {@code ids} names, or null when it names all
+     * of them or none (a run of every emitter).
+     */
+    static List<Integer> subset(Scenario scenario, Set<String> ids) {
+        if (ids.isEmpty()) {
+            return null;
+        }
+        List<Integer> out = new ArrayList<>();
+        int i = 0;
+        for (Node n : scenario.nodes()) {
+            if (n.role().emits()) {
+                if (ids.contains(n.id())) {
+                    out.add(i);
+                }
+                i++;
+            }
+        }
+        return out.size() == i ? null : out;
     }
 
     private static void writeVolume(DataOutputStream out, Volume v) throws IOException {
@@ -224,7 +264,18 @@ public final class ChannelCache {
         if (!FORMAT.equals(root.path("format").asText()) || !key.equals(root.path("key").asText())) {
             return null;
         }
-        List<Node> emitters = scenario.nodes().stream().filter(n -> n.role().emits()).toList();
+        List<Node> all = scenario.nodes().stream().filter(n -> n.role().emits()).toList();
+        List<Node> emitters = all;
+        JsonNode indices = root.path("emitter_indices");
+        if (indices.isArray()) {
+            emitters = new ArrayList<>();
+            for (JsonNode i : indices) {
+                if (!i.canConvertToInt() || i.asInt() < 0 || i.asInt() >= all.size()) {
+                    return null;
+                }
+                emitters.add(all.get(i.asInt()));
+            }
+        }
         List<Node> receivers = scenario.nodes().stream().filter(n -> n.role().absorbs()).toList();
         int slots = scenario.signalling().isiMemorySymbols() + 1;
         JsonNode runs = root.path("emitters");
@@ -271,6 +322,14 @@ public final class ChannelCache {
      * @throws IOException if the folder or file cannot be written
      */
     public void store(String key, SimulatedChannel channel) throws IOException {
+        store(key, channel, null);
+    }
+
+    /**
+     * As {@link #store(String, SimulatedChannel)}; with the scenario, a run of some of its emitters
+     * also records their indices (so it can be read back).
+     */
+    public void store(String key, SimulatedChannel channel, Scenario scenario) throws IOException {
         ObjectNode root = MAPPER.createObjectNode();
         root.put("format", FORMAT);
         root.put("key", key);
@@ -279,6 +338,13 @@ public final class ChannelCache {
         root.put("dt_s", channel.timeStepS());
         root.put("symbol_time_s", channel.symbolTimeS());
         root.put("isi_memory_symbols", channel.isiMemorySymbols());
+        if (scenario != null) {
+            List<Integer> subset = subset(scenario, Set.copyOf(channel.emitterIds()));
+            if (subset != null) {
+                ArrayNode indices = root.putArray("emitter_indices");
+                subset.forEach(indices::add);
+            }
+        }
         ArrayNode runs = root.putArray("emitters");
         for (EmitterRun run : channel.emitters()) {
             ObjectNode o = runs.addObject();

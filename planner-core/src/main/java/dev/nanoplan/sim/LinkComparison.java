@@ -22,10 +22,15 @@ import java.util.Objects;
  * @param simulatedTaps p̂_0..p̂_L
  * @param simulatedTapsStandardError their binomial standard errors
  * @param analyticTaps closed-form taps p_0..p_L
+ * @param insufficient fewer than {@link SimulationPrecision#MIN_HITS} hits in the first symbol (or none):
+ *     the estimate is too rough to flag, {@code reason} says "insufficient molecules"
+ * @param minMoleculesPerEmitter when insufficient, the molecules per emitter for
+ *     {@link SimulationPrecision#MIN_HITS} expected hits ({@link SimulationPrecision#minimumMolecules}); else 0
  */
 public record LinkComparison(String from, String to, double analyticHitProbability, double simulatedHitProbability,
         double standardError, double zScore, double relativeDifference, boolean flagged, String reason,
-        double[] simulatedTaps, double[] simulatedTapsStandardError, double[] analyticTaps) {
+        double[] simulatedTaps, double[] simulatedTapsStandardError, double[] analyticTaps, boolean insufficient,
+        long minMoleculesPerEmitter) {
 
     /** Copies the arrays. */
     public LinkComparison {
@@ -64,13 +69,15 @@ public record LinkComparison(String from, String to, double analyticHitProbabili
                 && Objects.equals(reason, other.reason)
                 && Arrays.equals(simulatedTaps, other.simulatedTaps)
                 && Arrays.equals(simulatedTapsStandardError, other.simulatedTapsStandardError)
-                && Arrays.equals(analyticTaps, other.analyticTaps);
+                && Arrays.equals(analyticTaps, other.analyticTaps)
+                && insufficient == other.insufficient
+                && minMoleculesPerEmitter == other.minMoleculesPerEmitter;
     }
 
     @Override
     public int hashCode() {
         int h = Objects.hash(from, to, analyticHitProbability, simulatedHitProbability, standardError, zScore,
-                relativeDifference, flagged, reason);
+                relativeDifference, flagged, reason, insufficient, minMoleculesPerEmitter);
         h = 31 * h + Arrays.hashCode(simulatedTaps);
         h = 31 * h + Arrays.hashCode(simulatedTapsStandardError);
         h = 31 * h + Arrays.hashCode(analyticTaps);

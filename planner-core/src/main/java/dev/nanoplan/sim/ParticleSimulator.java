@@ -34,7 +34,8 @@ import org.apache.commons.rng.simple.RandomSource;
  * bytes per molecule; one block per thread in flight). Block b of emitter e draws from its own
  * stream of the XoRoShiRo128++ generator (Commons RNG {@link RandomSource#XO_RO_SHI_RO_128_PP}
  * seeded from the master seed): emitter e's stream is the root after e long jumps (2^96 steps
- * each), block b's the emitter stream after b jumps (2^64 steps each), so streams never overlap
+ * each; e counts every emitter of the scenario, so a run of some emitters only,
+ * {@link SimulationSettings#emitterIds()}, gives them the same taps as a run of all), block b's the emitter stream after b jumps (2^64 steps each), so streams never overlap
  * and results are bit-identical for a seed whatever the number of threads (counts are integer
  * sums). Each block is a work unit ({@link SimulationBlocks}) run by an {@link Engine}: a thread pool
  * by default, or a Spark cluster; progress is reported after each block; cancellation
@@ -112,6 +113,7 @@ public final class ParticleSimulator {
 
     /** The simulation of {@code scenario} with these settings as work units. */
     public SimulationBlocks blocks(Scenario scenario) {
-        return new SimulationBlocks(scenario, settings.moleculesPerEmitter(), settings.seed(), timeStepS(scenario));
+        return new SimulationBlocks(scenario, settings.moleculesPerEmitter(), settings.seed(), timeStepS(scenario),
+                settings.emitterIds());
     }
 }

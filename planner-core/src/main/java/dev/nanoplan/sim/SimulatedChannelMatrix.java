@@ -5,6 +5,7 @@ import dev.nanoplan.network.ChannelMatrix;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.Function;
 
 /**
  * Turns a {@link SimulatedChannel} into the {@link ChannelMatrix} the planner consumes
@@ -30,12 +31,23 @@ public final class SimulatedChannelMatrix {
      * @throws IllegalArgumentException if an emitter has no simulated molecule
      */
     public static ChannelMatrix of(SimulatedChannel channel) {
+        return of(channel, t -> "particle simulation requested");
+    }
+
+    /**
+     * As {@link #of(SimulatedChannel)}, each entry's reason being {@code why} of its taps followed by the
+     * hits it rests on; a pair with fewer than {@link SimulationPrecision#MIN_HITS} hits over the memory
+     * says "insufficient molecules" with the molecules per emitter that would give enough, and a note
+     * counts such pairs.
+     */
+    public static ChannelMatrix of(SimulatedChannel channel, Function<SimulatedTaps, String> why) {
         if (channel == null) {
             throw new IllegalArgumentException("channel: required");
         }
         List<ChannelEntry> entries = new ArrayList<>();
         double maxSe = 0;
         int zeroPairs = 0;
+        int fewHits = 0;
         for (EmitterRun run : channel.emitters()) {
             if (run.moleculesSimulated() == 0) {
                 throw new IllegalArgumentException("channel: emitter " + run.emitterId()
@@ -51,8 +63,17 @@ public final class SimulatedChannelMatrix {
                 if (t.absorbedTotal() == 0) {
                     zeroPairs++;
                 }
+                long hits = t.absorbedTotal();
+                String precision;
+                if (SimulationPrecision.insufficient(hits)) {
+                    fewHits++;
+                    precision = SimulationPrecision.describe(hits, t.moleculesSimulated(),
+                            SimulationPrecision.estimate(hits, t.moleculesSimulated(), 0), "over the memory");
+                } else {
+                    precision = String.format(Locale.ROOT, "%d hits of %d released", hits, t.moleculesSimulated());
+                }
                 entries.add(new ChannelEntry(t.emitterId(), t.receiverId(), run.species(), t.taps(),
-                        ChannelMatrix.SIMULATED, null));
+                        ChannelMatrix.SIMULATED, null, why.apply(t) + "; " + precision));
             }
         }
         List<String> notes = new ArrayList<>();
@@ -65,6 +86,11 @@ public final class SimulatedChannelMatrix {
             notes.add(String.format(Locale.ROOT,
                     "simulated channel: %d pair(s) caught no molecule; their taps are 0 (true value below about %.2g)",
                     zeroPairs, 3.0 / channel.moleculesRequestedPerEmitter()));
+        }
+        if (fewHits > 0) {
+            notes.add(String.format(Locale.ROOT, "simulated channel: %d pair(s) with fewer than %d hits over the "
+                    + "memory: insufficient molecules, their taps are rough (channel_reason names the molecules per "
+                    + "emitter needed)", fewHits, SimulationPrecision.MIN_HITS));
         }
         return ChannelMatrix.of(entries, notes);
     }

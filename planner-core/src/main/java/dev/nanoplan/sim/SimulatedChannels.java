@@ -80,7 +80,8 @@ public final class SimulatedChannels {
         String key = null;
         Path file = null;
         if (cache != null) {
-            key = ChannelCache.key(scenario, settings.moleculesPerEmitter(), settings.seed(), dt);
+            key = ChannelCache.key(scenario, settings.moleculesPerEmitter(), settings.seed(), dt,
+                    settings.emitterIds());
             file = cache.file(key);
             if (!ignoreCache) {
                 Optional<SimulatedChannel> cached = cache.load(scenario, key);
@@ -95,7 +96,7 @@ public final class SimulatedChannels {
             return new Obtained(channel, false, file, false, ignoreCache, null);
         }
         try {
-            cache.store(key, channel);
+            cache.store(key, channel, scenario);
             return new Obtained(channel, false, file, true, ignoreCache, null);
         } catch (IOException | RuntimeException e) {
             return new Obtained(channel, false, file, false, ignoreCache, e);

@@ -12,6 +12,7 @@ import dev.nanoplan.scenario.Species;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.function.BooleanSupplier;
 import org.apache.commons.rng.JumpableUniformRandomProvider;
 import org.apache.commons.rng.LongJumpableUniformRandomProvider;
@@ -42,6 +43,7 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
     private final long moleculesPerEmitter;
     private final long seed;
     private final double timeStepS;
+    private final Set<String> emitterIds;
     private final int emitterCount;
     private final long blocksPerEmitter;
     private transient volatile Layout layout;
@@ -52,9 +54,12 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
      * @param moleculesPerEmitter M ≥ 1
      * @param seed master seed
      * @param timeStepS Δt, s (a whole fraction of the symbol time)
+     * @param emitterIds the emitters to simulate (empty: every emitter); emitter k of the scenario keeps its
+     *     own stream (k long jumps, k counting every emitter), so its taps do not depend on the others
      * @throws IllegalArgumentException if Δt needs more than 2^31 − 1 steps, or the units overflow an int
      */
-    public SimulationBlocks(Scenario scenario, long moleculesPerEmitter, long seed, double timeStepS) {
+    public SimulationBlocks(Scenario scenario, long moleculesPerEmitter, long seed, double timeStepS,
+            Set<String> emitterIds) {
         if (moleculesPerEmitter < 1) {
             throw new IllegalArgumentException("moleculesPerEmitter: must be >= 1, got " + moleculesPerEmitter);
         }
@@ -62,7 +67,8 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
         this.moleculesPerEmitter = moleculesPerEmitter;
         this.seed = seed;
         this.timeStepS = timeStepS;
-        this.layout = new Layout(scenario, timeStepS);
+        this.emitterIds = Set.copyOf(emitterIds);
+        this.layout = new Layout(scenario, timeStepS, this.emitterIds);
         this.emitterCount = layout.emitters.size();
         this.blocksPerEmitter = (moleculesPerEmitter + ParticleSimulator.BLOCK_SIZE - 1) / ParticleSimulator.BLOCK_SIZE;
         if (blocksPerEmitter * emitterCount > Integer.MAX_VALUE) {
@@ -91,8 +97,8 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
         int e = (int) (index / blocksPerEmitter);
         long b = index % blocksPerEmitter;
         int molecules = (int) work(index);
-        UniformRandomProvider rng = stream(e, b);
         EmitterPlan ep = l.emitters.get(e);
+        UniformRandomProvider rng = stream(e, ep.streamIndex, b);
         MoleculeBlock block = new MoleculeBlock(molecules);
         block.release(ep.origin.x(), ep.origin.y(), ep.origin.z(), molecules, ep.decayRatePerS, l.timeStepS, rng);
         long[] counts = new long[l.receivers.size() * l.slots];
@@ -147,7 +153,8 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
             synchronized (this) {
                 if (layout == null) {
                     try {
-                        layout = new Layout(ScenarioReader.lenient().parse(scenarioJson).scenario(), timeStepS);
+                        layout = new Layout(ScenarioReader.lenient().parse(scenarioJson).scenario(), timeStepS,
+                                emitterIds);
                     } catch (ScenarioException e) {
                         throw new IllegalStateException("scenario: its own file text does not read back: "
                                 + e.getMessage(), e);
@@ -160,7 +167,7 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
     }
 
     /** Block b of emitter e's generator (see the class comment), from this thread's last one when it can. */
-    private UniformRandomProvider stream(int e, long b) {
+    private UniformRandomProvider stream(int e, int streamIndex, long b) {
         ThreadLocal<Cursor> tl = cursors;
         if (tl == null) {
             synchronized (this) {
@@ -174,7 +181,7 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
         if (c == null || c.emitter != e || c.block > b) {
             LongJumpableUniformRandomProvider root =
                     (LongJumpableUniformRandomProvider) RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
-            for (int i = 0; i < e; i++) {
+            for (int i = 0; i < streamIndex; i++) {
                 root.longJump();
             }
             c = new Cursor(e, 0, root);
@@ -205,7 +212,7 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
 
     /** Per-emitter constants. */
     private record EmitterPlan(Node node, Species species, Vec3 origin, double decayRatePerS, Motion motion,
-            Absorbers absorbers, boolean[] senses) {
+            Absorbers absorbers, boolean[] senses, int streamIndex) {
     }
 
     /** What every block of a run shares: receivers, emitters with their motion and absorbers, steps. */
@@ -218,7 +225,7 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
         final int slots;
         final int totalSteps;
 
-        Layout(Scenario scenario, double timeStepS) {
+        Layout(Scenario scenario, double timeStepS, Set<String> emitterIds) {
             this.scenario = scenario;
             this.timeStepS = timeStepS;
             Map<String, Species> species = scenario.speciesByName();
@@ -235,8 +242,13 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
                         + " steps to cover " + slots + " symbol times; use a larger time step or a shorter ISI memory");
             }
             totalSteps = (int) steps;
+            int streamIndex = -1;
             for (Node e : scenario.nodes()) {
                 if (!e.role().emits()) {
+                    continue;
+                }
+                streamIndex++;
+                if (!emitterIds.isEmpty() && !emitterIds.contains(e.id())) {
                     continue;
                 }
                 Species s = species.get(e.emitsSpecies());
@@ -258,7 +270,8 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
                         radii.stream().mapToDouble(Double::doubleValue).toArray(),
                         index.stream().mapToInt(Integer::intValue).toArray(),
                         motion.sigmaUm, motion.diffusionTimesStepUm2);
-                emitters.add(new EmitterPlan(e, s, e.positionUm(), s.decayRatePerS(), motion, absorbers, senses));
+                emitters.add(new EmitterPlan(e, s, e.positionUm(), s.decayRatePerS(), motion, absorbers, senses,
+                        streamIndex));
             }
         }
     }

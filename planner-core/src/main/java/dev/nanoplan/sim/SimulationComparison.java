@@ -20,7 +20,9 @@ import java.util.Map;
  * {@value #Z_LIMIT}) and practically relevant (|relative difference| &gt; {@value #RELATIVE_LIMIT}).
  * The reason names what the closed form ignores and could move the link that way: walls (reflect
  * molecules back, raise), flow (either way), other absorbers of the same species (shade, lower);
- * this is attribution by elimination, not a decomposition. Cost O(links × L).
+ * this is attribution by elimination, not a decomposition. A link with fewer than
+ * {@link SimulationPrecision#MIN_HITS} hits in the first symbol is never flagged: it is marked
+ * insufficient, with the molecules per emitter that would give enough hits. Cost O(links × L).
  */
 public final class SimulationComparison {
 
@@ -67,17 +69,26 @@ public final class SimulationComparison {
                 if (m == 0) {
                     out.add(new LinkComparison(e.id(), r.id(), pa, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
                             false, "not simulated: the run stopped before any of this emitter's molecules finished",
-                            new double[0], new double[0], analyticTaps));
+                            new double[0], new double[0], analyticTaps, false, 0));
                     continue;
                 }
                 double ps = t.hitProbability();
                 double nullSe = m == 0 ? 0 : Math.sqrt(pa * (1 - pa) / m);
                 double z = nullSe > 0 ? (ps - pa) / nullSe : Double.NaN;
                 double rel = pa > 0 ? (ps - pa) / pa : Double.NaN;
+                long hits = t.absorbedPerSlot()[0];
+                if (SimulationPrecision.insufficient(hits)) {
+                    // too few hits for a standard error: no flag, no cause, no factor from noise
+                    double p = SimulationPrecision.estimate(hits, m, pa);
+                    out.add(new LinkComparison(e.id(), r.id(), pa, ps, t.hitProbabilityStandardError(), z, rel, false,
+                            SimulationPrecision.describe(hits, m, p, "in the first symbol"), t.taps(),
+                            t.tapsStandardError(), analyticTaps, true, SimulationPrecision.minimumMolecules(p)));
+                    continue;
+                }
                 boolean flagged = Math.abs(z) > Z_LIMIT && Math.abs(rel) > RELATIVE_LIMIT;
                 String reason = reason(scenario, flagged, z, rel, sameSpeciesAbsorbers - 1);
                 out.add(new LinkComparison(e.id(), r.id(), pa, ps, t.hitProbabilityStandardError(), z, rel, flagged,
-                        reason, t.taps(), t.tapsStandardError(), analyticTaps));
+                        reason, t.taps(), t.tapsStandardError(), analyticTaps, false, 0));
             }
         }
         return out;

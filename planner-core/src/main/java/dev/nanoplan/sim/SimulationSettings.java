@@ -1,6 +1,7 @@
 package dev.nanoplan.sim;
 
 import java.util.OptionalDouble;
+import java.util.Set;
 
 /**
  * Settings of one particle simulation.
@@ -12,8 +13,17 @@ import java.util.OptionalDouble;
  *     ({@link TimeStepRule}); either way it is shortened so that the symbol time is a whole
  *     number of steps
  * @param threads worker threads, ≥ 1
+ * @param emitterIds the emitters to simulate (ids); empty for every emitter. Emitter e always draws from
+ *     the same random stream (its index among all emitters), so its taps do not depend on which others
+ *     are simulated
  */
-public record SimulationSettings(long moleculesPerEmitter, long seed, OptionalDouble timeStepS, int threads) {
+public record SimulationSettings(long moleculesPerEmitter, long seed, OptionalDouble timeStepS, int threads,
+        Set<String> emitterIds) {
+
+    /** Settings that simulate every emitter. */
+    public SimulationSettings(long moleculesPerEmitter, long seed, OptionalDouble timeStepS, int threads) {
+        this(moleculesPerEmitter, seed, timeStepS, threads, Set.of());
+    }
 
     /**
      * Default M for the command line: 2·10⁴ molecules per emitter puts the binomial standard error
@@ -39,6 +49,10 @@ public record SimulationSettings(long moleculesPerEmitter, long seed, OptionalDo
         if (threads < 1) {
             throw new IllegalArgumentException("threads: must be >= 1, got " + threads);
         }
+        if (emitterIds == null) {
+            throw new IllegalArgumentException("emitterIds: must not be null (use Set.of() for every emitter)");
+        }
+        emitterIds = Set.copyOf(emitterIds);
     }
 
     /** M molecules per emitter, the given seed, automatic Δt, one thread per available processor. */
@@ -49,11 +63,21 @@ public record SimulationSettings(long moleculesPerEmitter, long seed, OptionalDo
 
     /** The same settings with a fixed time step. */
     public SimulationSettings withTimeStepS(double dt) {
-        return new SimulationSettings(moleculesPerEmitter, seed, OptionalDouble.of(dt), threads);
+        return new SimulationSettings(moleculesPerEmitter, seed, OptionalDouble.of(dt), threads, emitterIds);
     }
 
     /** The same settings with another number of threads. */
     public SimulationSettings withThreads(int n) {
-        return new SimulationSettings(moleculesPerEmitter, seed, timeStepS, n);
+        return new SimulationSettings(moleculesPerEmitter, seed, timeStepS, n, emitterIds);
+    }
+
+    /** The same settings simulating only the emitters {@code ids} (empty: every emitter). */
+    public SimulationSettings withEmitters(Set<String> ids) {
+        return new SimulationSettings(moleculesPerEmitter, seed, timeStepS, threads, ids);
+    }
+
+    /** Whether emitter {@code id} is simulated. */
+    public boolean simulates(String id) {
+        return emitterIds.isEmpty() || emitterIds.contains(id);
     }
 }

@@ -77,6 +77,21 @@ public final class TimeStepRule {
     }
 
     /**
+     * Whether a requested Δt breaks the accuracy bound of the class comment: it is above
+     * {@link #automaticTimeStepS} (the largest step that keeps √(6DΔt) + v·Δt ≤ {@value #STEP_FRACTION}
+     * × the smallest receiver radius and gap, Δt ≤ T/{@value #MIN_STEPS_PER_SYMBOL} and, in a cylinder,
+     * √(2DΔt) ≤ {@value #CURVED_WALL_FRACTION} R) by more than rounding (1e-9 relative).
+     */
+    public static boolean breaksBound(Scenario scenario, double requestedS) {
+        return requestedS > automaticTimeStepS(scenario) * (1 + 1e-9);
+    }
+
+    /** The bound of {@link #breaksBound} in words, for messages. */
+    public static final String BOUND_TEXT = "sqrt(6 D dt) + v dt <= " + STEP_FRACTION + " x the smallest receiver "
+            + "radius and gap, dt <= T/" + MIN_STEPS_PER_SYMBOL + ", and in a cylinder sqrt(2 D dt) <= "
+            + CURVED_WALL_FRACTION + " R";
+
+    /**
      * The largest Δt with √(6DΔt) + vΔt ≤ length: with s = √Δt, v s² + √(6D) s − length = 0, whose
      * positive root is s = 2·length / (√(6D) + √(6D + 4 v length)) (the cancellation-free form);
      * for v = 0 this is length²/(6D).

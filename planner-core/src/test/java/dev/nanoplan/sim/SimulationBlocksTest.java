@@ -25,7 +25,7 @@ class SimulationBlocksTest {
 
     private static SimulationBlocks blocks(long molecules, long seed) {
         Scenario s = ParticleSimulatorTest.boxWithNineReceivers();
-        return new SimulationBlocks(s, molecules, seed, DT_S);
+        return new SimulationBlocks(s, molecules, seed, DT_S, java.util.Set.of());
     }
 
     @Test

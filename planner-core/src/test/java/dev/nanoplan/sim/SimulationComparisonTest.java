@@ -52,12 +52,13 @@ class SimulationComparisonTest {
     @Test
     void shadingReceiverLowersTheLink() {
         // a second receiver of the same species between emitter and target absorbs much of what would arrive
+        // (40,000 molecules: the shaded link keeps well over SimulationPrecision.MIN_HITS hits)
         List<Node> nodes = List.of(Node.transmitter("tx", Vec3.ZERO, 0.5, "A", 100),
                 Node.receiver("shield", new Vec3(5, 0, 0), 3, "A"),
                 Node.receiver("rx", new Vec3(12, 0, 0), 3, "A"));
         Scenario s = new Scenario("shade", new Volume.Open(), Medium.DEFAULT, List.of(Species.stable("A", 100)),
                 Layouts.signalling(0.2, 0), nodes, List.of(), Targets.DEFAULT);
-        SimulatedChannel ch = new ParticleSimulator(SimulationSettings.of(8_000, 10).withTimeStepS(2e-3))
+        SimulatedChannel ch = new ParticleSimulator(SimulationSettings.of(40_000, 10).withTimeStepS(2e-3))
                 .simulate(s, SimulationProgress.NONE, () -> false);
         LinkComparison c = SimulationComparison.compare(s, ch).stream().filter(l -> l.to().equals("rx")).findFirst()
                 .orElseThrow();

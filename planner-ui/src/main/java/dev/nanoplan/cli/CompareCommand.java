@@ -1,22 +1,29 @@
 package dev.nanoplan.cli;
 
+import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.plan.NetworkPlanner;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.PlanComparison;
 import dev.nanoplan.plan.PlanOptions;
 import dev.nanoplan.report.Cautions;
 import dev.nanoplan.report.ComparisonJson;
+import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioReader;
+import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
-/** {@code nanoplan compare A B}: plans two layouts and sets their demands side by side. */
+/**
+ * {@code nanoplan compare A B}: plans two layouts (on the auto channel by default, {@link ChannelOptions})
+ * and sets their demands side by side.
+ */
 @Command(name = "compare", mixinStandardHelpOptions = true, sortOptions = false,
         description = {"Plans two layouts and compares every demand: capacity, rate, latency, molecules per "
             + "delivered bit, bottleneck."})
@@ -37,10 +44,14 @@ public final class CompareCommand implements Callable<Integer> {
     @Option(names = "--lenient", description = "Treat unknown fields in the scenarios as warnings, not errors.")
     boolean lenient;
 
+    @Mixin
+    ChannelOptions channelOptions = new ChannelOptions();
+
     @Override
-    public Integer call() {
+    public Integer call() throws IOException {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
+        channelOptions.check();
         ScenarioReader.Result a = PlanCommand.ScenarioFiles.read(first, lenient, err);
         if (a == null) {
             return ErrorHandling.BAD_INPUT;
@@ -49,8 +60,11 @@ public final class CompareCommand implements Callable<Integer> {
         if (b == null) {
             return ErrorHandling.BAD_INPUT;
         }
-        Plan pa = NetworkPlanner.plan(a.scenario(), PlanOptions.DEFAULT);
-        Plan pb = NetworkPlanner.plan(b.scenario(), PlanOptions.DEFAULT);
+        Plan pa = plan(a.scenario(), err);
+        Plan pb = plan(b.scenario(), err);
+        if (pa == null || pb == null) {
+            return ErrorHandling.INTERNAL;
+        }
         PlanComparison c = PlanComparison.of(pa, pb);
         if (json) {
             out.println(ComparisonJson.of(c).toString());
@@ -61,5 +75,16 @@ public final class CompareCommand implements Callable<Integer> {
         }
         out.flush();
         return 0;
+    }
+
+    /** The plan on the chosen channel (auto by default), or null when a simulation was stopped. */
+    private Plan plan(Scenario scenario, PrintWriter err) throws IOException {
+        channelOptions.checkStep(scenario);
+        boolean[] stopped = new boolean[1];
+        ChannelMatrix matrix = channelOptions.channel(scenario, PlanOptions.DEFAULT, System.getenv(), err, stopped);
+        if (stopped[0]) {
+            return null;
+        }
+        return NetworkPlanner.plan(scenario, matrix == null ? PlanOptions.DEFAULT : PlanOptions.DEFAULT.withChannel(matrix));
     }
 }

@@ -11,25 +11,18 @@ import dev.nanoplan.report.PlanCsv;
 import dev.nanoplan.report.PlanHtml;
 import dev.nanoplan.report.PlanJson;
 import dev.nanoplan.report.PlanText;
-import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioException;
 import dev.nanoplan.scenario.ScenarioProblem;
 import dev.nanoplan.scenario.ScenarioReader;
-import dev.nanoplan.sim.ChannelCache;
-import dev.nanoplan.sim.ParticleSimulator;
-import dev.nanoplan.sim.SimulatedChannelMatrix;
-import dev.nanoplan.sim.SimulatedChannels;
-import dev.nanoplan.sim.SimulationSettings;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.Locale;
 import java.util.Map;
-import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -37,9 +30,10 @@ import picocli.CommandLine.Spec;
 
 /**
  * {@code nanoplan plan SCENARIO [--json] [--out DIR] [--capacity-floor-bits X] [--lenient]
- * [--channel analytic|simulated [--molecules-per-emitter M] [--seed S] [--dt S] [--cache-dir DIR]]}:
- * plans the whole layout, on closed-form taps or on simulated ones (read from the
- * {@link ChannelCache} when the same physics, M, seed and Δt were simulated before). Prints the text summary, or with {@code --json} one JSON object (docs/architecture.md §4.3)
+ * [--channel auto|analytic|simulated [--molecules-per-emitter M] [--seed S] [--dt S [--force-dt]] [--cache-dir DIR]]}:
+ * plans the whole layout on the auto channel (closed forms where they hold, simulated taps for the other
+ * emitters, read from the simulated-channel cache when the same physics, M, seed and Δt were simulated
+ * before), or on closed-form or simulated taps only ({@link ChannelOptions}). Prints the text summary, or with {@code --json} one JSON object (docs/architecture.md §4.3)
  * and nothing else on stdout; {@code --out DIR} also writes {@code plan.json}, {@code links.csv} and
  * {@code report.html} there, each atomically.
  */
@@ -72,32 +66,8 @@ public final class PlanCommand implements Callable<Integer> {
     @Option(names = "--lenient", description = "Treat unknown fields in the scenario as warnings, not errors.")
     boolean lenient;
 
-    @Option(names = "--channel", paramLabel = "analytic|simulated", defaultValue = ChannelMatrix.ANALYTIC,
-            description = {"Taps from the open-medium closed forms (analytic, default) or from a particle",
-                "simulation of walls, flow and shading (simulated; cached on disk)."})
-    String channel;
-
-    @Option(names = "--molecules-per-emitter", paramLabel = "M",
-            description = "With --channel simulated: molecules per emitter, default "
-                    + SimulationSettings.DEFAULT_MOLECULES_PER_EMITTER + ".")
-    Long moleculesPerEmitter;
-
-    @Option(names = "--seed", paramLabel = "S", description = "With --channel simulated: random seed, default 1.")
-    Long seed;
-
-    @Option(names = "--dt", paramLabel = "S",
-            description = "With --channel simulated: time step (s); default: chosen from the geometry.")
-    Double timeStepS;
-
-    @Option(names = "--threads", description = "With --channel simulated: worker threads, default: the processors.")
-    Integer threads;
-
-    @Option(names = "--cache-dir", paramLabel = "DIR",
-            description = "Simulated channel cache (default $NANOPLAN_CACHE_DIR, else ~/.cache/nanoplan/channels).")
-    Path cacheDir;
-
-    @Option(names = "--progress", description = "Show the simulation progress bar even when stderr is not a terminal.")
-    boolean progress;
+    @Mixin
+    ChannelOptions channelOptions = new ChannelOptions();
 
     /** Environment (a field so tests can replace it). */
     Map<String, String> environment = System.getenv();
@@ -114,7 +84,7 @@ public final class PlanCommand implements Callable<Integer> {
             }
             options = options.withFloor(capacityFloorBits);
         }
-        boolean simulated = channelChoice();
+        channelOptions.check();
         if (outDir != null && Files.exists(outDir) && !Files.isDirectory(outDir)) {
             throw new BadInputException("--out: not a directory: " + outDir);
         }
@@ -123,11 +93,13 @@ public final class PlanCommand implements Callable<Integer> {
             return ErrorHandling.BAD_INPUT;
         }
         ScenarioFiles.printWarnings(scenarioFile, read, err);
-        if (simulated) {
-            ChannelMatrix matrix = simulatedChannel(read.scenario(), err);
-            if (matrix == null) {
-                return ErrorHandling.INTERNAL;
-            }
+        channelOptions.checkStep(read.scenario());
+        boolean[] stopped = new boolean[1];
+        ChannelMatrix matrix = channelOptions.channel(read.scenario(), options, environment, err, stopped);
+        if (stopped[0]) {
+            return ErrorHandling.INTERNAL;
+        }
+        if (matrix != null) {
             options = options.withChannel(matrix);
         }
         Plan plan = NetworkPlanner.plan(read.scenario(), options);
@@ -148,70 +120,6 @@ public final class PlanCommand implements Callable<Integer> {
         out.flush();
         err.flush();
         return 0;
-    }
-
-    /** Checks the channel options; true for a simulated channel. */
-    private boolean channelChoice() {
-        boolean simulated = switch (channel) {
-            case ChannelMatrix.ANALYTIC -> false;
-            case ChannelMatrix.SIMULATED -> true;
-            default -> throw new BadInputException("--channel: must be analytic or simulated, got " + channel);
-        };
-        if (!simulated) {
-            if (moleculesPerEmitter != null || seed != null || timeStepS != null || threads != null || cacheDir != null) {
-                throw new BadInputException("--molecules-per-emitter, --seed, --dt, --threads and --cache-dir "
-                        + "need --channel simulated");
-            }
-            return false;
-        }
-        if (moleculesPerEmitter != null && moleculesPerEmitter <= 0) {
-            throw new BadInputException("--molecules-per-emitter: must be > 0, got " + moleculesPerEmitter);
-        }
-        if (timeStepS != null) {
-            LinkCommand.requirePositive("--dt", timeStepS);
-        }
-        if (threads != null && threads < 1) {
-            throw new BadInputException("--threads: must be >= 1, got " + threads);
-        }
-        return true;
-    }
-
-    /**
-     * The simulated channel of {@code scenario}, from the cache or a new simulation (stored when
-     * complete); says on {@code err} which. Null if the simulation was stopped (Ctrl-C).
-     */
-    private ChannelMatrix simulatedChannel(Scenario scenario, PrintWriter err) throws IOException {
-        SimulationSettings settings = new SimulationSettings(
-                moleculesPerEmitter == null ? SimulationSettings.DEFAULT_MOLECULES_PER_EMITTER : moleculesPerEmitter,
-                seed == null ? 1 : seed, timeStepS == null ? OptionalDouble.empty() : OptionalDouble.of(timeStepS),
-                threads == null ? Runtime.getRuntime().availableProcessors() : threads);
-        ParticleSimulator simulator = new ParticleSimulator(settings);
-        ChannelCache cache = new ChannelCache(cacheDir != null ? cacheDir
-                : ChannelCache.defaultDirectory(environment, System.getProperty("user.home")));
-        SimulatedChannels.Obtained got;
-        try (SimulationRun run = new SimulationRun()) {
-            got = SimulatedChannels.obtain(scenario, settings, cache, false,
-                    s -> run.simulate(simulator, s, err, progress || System.console() != null), () -> false, dt -> {
-                        err.println(String.format(Locale.ROOT, "simulated channel: cache miss; simulating %d "
-                                + "molecules per emitter, seed %d, dt %.3g s", settings.moleculesPerEmitter(),
-                                settings.seed(), dt));
-                        err.flush();
-                    });
-            if (!got.channel().complete()) {
-                err.println("nanoplan: simulation stopped after " + got.channel().moleculesSimulated()
-                        + " molecules; no plan computed and nothing cached");
-                err.flush();
-                return null;
-            }
-        }
-        got.throwStoreFailure();
-        if (got.fromCache()) {
-            err.println("simulated channel: cache hit (" + got.file() + "), no simulation run");
-        } else {
-            err.println("simulated channel: stored in " + got.file());
-        }
-        err.flush();
-        return SimulatedChannelMatrix.of(got.channel());
     }
 
     /** Writes the three report files into {@code dir} (created if needed), each atomically. */

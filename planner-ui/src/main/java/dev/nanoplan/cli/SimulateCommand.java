@@ -54,6 +54,9 @@ public final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--dt", paramLabel = "S", description = "Time step (s); default: chosen from the geometry.")
     Double timeStepS;
 
+    @Option(names = "--force-dt", description = "Accept a --dt above the accuracy bound (every output then warns).")
+    boolean forceDt;
+
     @Option(names = "--threads", description = "Worker threads, default: the number of processors.")
     Integer threads;
 
@@ -87,6 +90,10 @@ public final class SimulateCommand implements Callable<Integer> {
         } catch (ScenarioException e) {
             throw new BadInputException(scenarioFile + ": " + e.getMessage());
         }
+        if (forceDt && timeStepS == null) {
+            throw new BadInputException("--force-dt: needs --dt");
+        }
+        String stepWarning = ChannelOptions.stepWarning(scenario, timeStepS, forceDt);
         SimulationSettings settings = new SimulationSettings(moleculesPerEmitter, seed,
                 timeStepS == null ? OptionalDouble.empty() : OptionalDouble.of(timeStepS), n);
         ParticleSimulator simulator = new ParticleSimulator(settings);
@@ -95,7 +102,7 @@ public final class SimulateCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         boolean showProgress = progress || System.console() != null;
         try (Engine engine = engineOptions.open(n, err); SimulationRun run = new SimulationRun()) {
-            SimulatedChannel channel = run.simulate(simulator, engine, scenario, err, showProgress);
+            SimulatedChannel channel = run.simulate(simulator, engine, scenario, err, showProgress, false);
             if (!channel.complete()) {
                 err.println("nanoplan: simulation stopped; reporting the " + channel.moleculesSimulated()
                         + " molecules that finished");
@@ -103,10 +110,14 @@ public final class SimulateCommand implements Callable<Integer> {
             }
             List<LinkComparison> links = SimulationComparison.compare(scenario, channel);
             PrintWriter out = spec.commandLine().getOut();
+            if (stepWarning != null) {
+                err.println("warning: " + stepWarning);
+                err.flush();
+            }
             if (json) {
-                out.println(json(channel, links, dt));
+                out.println(json(channel, links, dt, stepWarning));
             } else {
-                out.print(text(scenario, channel, links));
+                out.print(text(scenario, channel, links, stepWarning));
             }
             out.flush();
             return 0;
@@ -114,6 +125,11 @@ public final class SimulateCommand implements Callable<Integer> {
     }
 
     static String json(SimulatedChannel channel, List<LinkComparison> links, double dt) {
+        return json(channel, links, dt, null);
+    }
+
+    /** The JSON object; {@code warning} (a forced time step), when not null, goes into {@code warnings}. */
+    static String json(SimulatedChannel channel, List<LinkComparison> links, double dt, String warning) {
         ObjectMapper mapper = new ObjectMapper();
         ObjectNode o = mapper.createObjectNode();
         o.put("molecules_per_emitter", channel.moleculesRequestedPerEmitter());
@@ -132,6 +148,12 @@ public final class SimulateCommand implements Callable<Integer> {
             putFinite(l, "relative_difference", c.relativeDifference());
             l.put("flagged", c.flagged());
             l.put("reason", c.reason());
+            l.put("insufficient_molecules", c.insufficient());
+            if (c.insufficient() && c.minMoleculesPerEmitter() > 0) {
+                l.put("min_molecules_per_emitter", c.minMoleculesPerEmitter());
+            } else if (c.insufficient()) {
+                l.putNull("min_molecules_per_emitter");
+            }
             ArrayNode taps = l.putArray("simulated_taps");
             for (double p : c.simulatedTaps()) {
                 taps.add(p);
@@ -140,6 +162,10 @@ public final class SimulateCommand implements Callable<Integer> {
             for (double s : c.simulatedTapsStandardError()) {
                 se.add(s);
             }
+        }
+        ArrayNode warnings = o.putArray("warnings");
+        if (warning != null) {
+            warnings.add(warning);
         }
         o.put("caution", Cautions.SHORT);
         return o.toString();
@@ -154,7 +180,15 @@ public final class SimulateCommand implements Callable<Integer> {
     }
 
     static String text(Scenario scenario, SimulatedChannel channel, List<LinkComparison> links) {
+        return text(scenario, channel, links, null);
+    }
+
+    /** The text table; {@code warning} (a forced time step), when not null, is its first line. */
+    static String text(Scenario scenario, SimulatedChannel channel, List<LinkComparison> links, String warning) {
         StringBuilder sb = new StringBuilder();
+        if (warning != null) {
+            sb.append("warning: ").append(warning).append(System.lineSeparator());
+        }
         sb.append(String.format(Locale.ROOT, "particle simulation of \"%s\": %d molecules per emitter, seed %d, "
                 + "dt %.3g s%s%n", scenario.name(), channel.moleculesRequestedPerEmitter(), channel.seed(),
                 channel.timeStepS(), channel.complete() ? "" : " (stopped early: " + channel.moleculesSimulated()
@@ -166,10 +200,16 @@ public final class SimulateCommand implements Callable<Integer> {
         for (LinkComparison c : links) {
             sb.append(String.format(Locale.ROOT, "%-12s %-12s %12.5g %12.5g %10.2g %8.3g %8.3g%%  %s%n", c.from(),
                     c.to(), c.analyticHitProbability(), c.simulatedHitProbability(), c.standardError(), c.zScore(),
-                    100 * c.relativeDifference(), c.flagged() ? "FLAG" : ""));
+                    100 * c.relativeDifference(), c.flagged() ? "FLAG" : c.insufficient() ? "too few hits" : ""));
         }
         long flagged = links.stream().filter(LinkComparison::flagged).count();
         sb.append(System.lineSeparator());
+        for (LinkComparison c : links) {
+            if (c.insufficient()) {
+                sb.append(c.from()).append(" -> ").append(c.to()).append(": ").append(c.reason())
+                        .append(System.lineSeparator());
+            }
+        }
         if (flagged == 0) {
             sb.append("no link differs from the closed form by more than 5 % beyond 3 standard errors")
                     .append(System.lineSeparator());

@@ -10,6 +10,7 @@ import java.io.PrintWriter;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicBoolean;
+import java.util.concurrent.atomic.AtomicInteger;
 
 /**
  * Runs a particle simulation for a subcommand: progress bar on stderr (when asked or on a
@@ -36,21 +37,45 @@ final class SimulationRun implements AutoCloseable {
 
     /** Simulates with a progress bar on {@code err} when {@code showProgress}. */
     SimulatedChannel simulate(ParticleSimulator simulator, Scenario scenario, PrintWriter err, boolean showProgress) {
+        return simulate(simulator, scenario, err, showProgress, false);
+    }
+
+    /**
+     * Simulates with a progress bar on {@code err} when {@code showProgress}, else with one progress line
+     * per quarter of the molecules when {@code showLines} (for logs, where a redrawn bar is noise).
+     */
+    SimulatedChannel simulate(ParticleSimulator simulator, Scenario scenario, PrintWriter err, boolean showProgress,
+            boolean showLines) {
         try (LocalEngine engine = new LocalEngine(simulator.settings().threads())) {
-            return simulate(simulator, engine, scenario, err, showProgress);
+            return simulate(simulator, engine, scenario, err, showProgress, showLines);
         }
     }
 
-    /** Simulates on {@code engine} with a progress bar on {@code err} when {@code showProgress}. */
+    /** Simulates on {@code engine}, with a progress bar or quarter lines on {@code err} as above. */
     SimulatedChannel simulate(ParticleSimulator simulator, Engine engine, Scenario scenario, PrintWriter err,
-            boolean showProgress) {
+            boolean showProgress, boolean showLines) {
         SimulateCommand.ProgressBar bar = showProgress ? new SimulateCommand.ProgressBar(err) : null;
-        SimulatedChannel channel = simulator.simulate(scenario, engine, bar == null ? SimulationProgress.NONE : bar,
-                cancelled::get);
+        SimulationProgress lines = showLines ? quarterLines(err) : SimulationProgress.NONE;
+        SimulatedChannel channel = simulator.simulate(scenario, engine, bar == null ? lines : bar, cancelled::get);
         if (bar != null) {
             bar.finish();
         }
         return channel;
+    }
+
+    /** "simulating: 25 % (5000 of 20000 molecules)" at each new quarter, from worker threads. */
+    private static SimulationProgress quarterLines(PrintWriter err) {
+        AtomicInteger printed = new AtomicInteger();
+        return (done, total) -> {
+            int quarter = (int) (4 * done / Math.max(1, total));
+            int last = printed.get();
+            if (quarter > last && printed.compareAndSet(last, quarter)) {
+                synchronized (err) {
+                    err.println("simulating: " + 25 * quarter + " % (" + done + " of " + total + " molecules)");
+                    err.flush();
+                }
+            }
+        };
     }
 
     @Override
