@@ -93,7 +93,7 @@ public final class PlanCommand implements Callable<Integer> {
     Integer threads;
 
     @Option(names = "--cache-dir", paramLabel = "DIR",
-            description = "Simulated channel cache (default $NANOPLAN_CACHE_DIR, else ~/.cache/nanoplan/channels).")
+            description = "Simulated channel cache (default: $NANOPLAN_CACHE_DIR, else .cache/nanoplan/channels in your home).")
     Path cacheDir;
 
     @Option(names = "--progress", description = "Show the simulation progress bar even when stderr is not a terminal.")
@@ -108,19 +108,19 @@ public final class PlanCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         PlanOptions options = PlanOptions.DEFAULT;
         if (capacityFloorBits != null) {
-            if (!Double.isFinite(capacityFloorBits) || capacityFloorBits < 0) {
-                throw new BadInputException("--capacity-floor-bits: must be a finite number >= 0, got "
+            if (!(capacityFloorBits >= 0 && capacityFloorBits < 1)) {
+                throw new BadInputException("--capacity-floor-bits: must be in [0, 1) bit/symbol, got "
                         + capacityFloorBits);
             }
             options = options.withFloor(capacityFloorBits);
         }
         boolean simulated = channelChoice();
-        if (outDir != null && Files.exists(outDir) && !Files.isDirectory(outDir)) {
-            throw new BadInputException("--out: not a directory: " + outDir);
-        }
         ScenarioReader.Result read = ScenarioFiles.read(scenarioFile, lenient, err);
         if (read == null) {
             return ErrorHandling.BAD_INPUT;
+        }
+        if (outDir != null) {
+            OutputPaths.folder("--out", outDir);
         }
         ScenarioFiles.printWarnings(scenarioFile, read, err);
         if (simulated) {
@@ -238,6 +238,9 @@ public final class PlanCommand implements Callable<Integer> {
         static ScenarioReader.Result read(Path file, boolean lenient, PrintWriter err) {
             if (!Files.exists(file)) {
                 throw new BadInputException("no such file: " + file);
+            }
+            if (!Files.isReadable(file)) {
+                throw new BadInputException("cannot read file (permission denied): " + file);
             }
             if (Files.isDirectory(file)) {
                 throw new BadInputException("is a directory, not a scenario file: " + file);
