@@ -49,8 +49,14 @@ public final class CompareCommand implements Callable<Integer> {
         if (b == null) {
             return ErrorHandling.BAD_INPUT;
         }
-        Plan pa = NetworkPlanner.plan(a.scenario(), PlanOptions.DEFAULT);
-        Plan pb = NetworkPlanner.plan(b.scenario(), PlanOptions.DEFAULT);
+        Plan pa;
+        Plan pb;
+        try (ProgressLine p = ProgressLine.of(err, "planning A " + first.getFileName())) {
+            pa = NetworkPlanner.plan(a.scenario(), PlanOptions.DEFAULT.withProgress(p));
+        }
+        try (ProgressLine p = ProgressLine.of(err, "planning B " + second.getFileName())) {
+            pb = NetworkPlanner.plan(b.scenario(), PlanOptions.DEFAULT.withProgress(p));
+        }
         PlanComparison c = PlanComparison.of(pa, pb);
         if (json) {
             out.println(ComparisonJson.of(c).toString());

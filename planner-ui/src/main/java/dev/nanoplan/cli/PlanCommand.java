@@ -130,7 +130,10 @@ public final class PlanCommand implements Callable<Integer> {
             }
             options = options.withChannel(matrix);
         }
-        Plan plan = NetworkPlanner.plan(read.scenario(), options);
+        Plan plan;
+        try (ProgressLine progressLine = ProgressLine.of(err, "planning " + scenarioFile.getFileName())) {
+            plan = NetworkPlanner.plan(read.scenario(), options.withProgress(progressLine));
+        }
         if (json) {
             out.println(PlanJson.of(plan).toString());
             for (String w : plan.warnings()) {
