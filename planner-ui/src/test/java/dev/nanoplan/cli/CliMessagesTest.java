@@ -2,10 +2,12 @@ package dev.nanoplan.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Arrays;
 import java.util.Locale;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
@@ -137,6 +139,27 @@ class CliMessagesTest {
         assertThat(r.out()).contains("\"taps\"");
         int taps = r.out().substring(r.out().indexOf("\"taps\":[")).split("]")[0].split(",").length;
         assertThat(taps).isEqualTo(11);
+    }
+
+    @Test
+    void theVerdictFollowsOneRuleOnBitsPerSymbolForEveryNumberOfLevels() throws Exception {
+        ObjectMapper m = new ObjectMapper();
+        for (String[] extra : new String[][] {{"--molecules", "300"}, {"--molecules", "3000", "--levels", "4"},
+            {"--molecules", "40"}, {"--molecules", "30000", "--levels", "4"}}) {
+            double bits = m.readTree(CliRun.of(link(append(extra, "--json"))).out()).get("mutual_information_bits")
+                    .asDouble();
+            String text = CliRun.of(link(extra)).out();
+            // the README's rule: Strong >= 0.9, Usable >= 0.5, Weak >= 0.01 bit/symbol, whatever the levels
+            String word = bits >= 0.9 ? "Strong link" : bits >= 0.5 ? "Usable link" : bits >= 0.01 ? "Weak link"
+                    : "Unusable link";
+            assertThat(text).as(String.join(" ", extra) + " at " + bits + " bit").contains("\n" + word + ":");
+        }
+    }
+
+    private static String[] append(String[] a, String more) {
+        String[] out = Arrays.copyOf(a, a.length + 1);
+        out[a.length] = more;
+        return out;
     }
 
     @Test
