@@ -60,6 +60,15 @@ final class RouteAssembler {
         WidestPathFinder.Result<String> path = WidestPathFinder.find(graph.graph(), d.from(), d.to());
         if (!path.reachable()) {
             String why;
+            boolean speciesSent = nodes.values().stream()
+                    .anyMatch(n -> n.role().emits() && n.emitsSpecies().equals(dst.species()));
+            if (dst.role().absorbs() && !speciesSent) {
+                // no placement helps: nothing of its species is ever released (the scenario reader warns too)
+                String advice = "no route: " + d.to() + " senses species " + dst.species() + ", which no emitter "
+                        + "sends; give it a species an emitter sends, or add an emitter of " + dst.species();
+                warnings.add("demand " + d.from() + " -> " + d.to() + ": " + advice);
+                return new RouteReport(d.from(), d.to(), List.of(), 0, null, null, 0, 0, 0, direct, null, advice);
+            }
             if (!src.role().emits()) {
                 why = d.from() + " is a " + src.role().id() + " and cannot send";
             } else if (!dst.role().absorbs()) {

@@ -37,6 +37,9 @@ public final class ComparisonJson {
         num(o, "latency_s", s.latencyS());
         o.put("hops", s.hops());
         num(o, "molecules_per_bit", s.moleculesPerBit());
+        if (!Double.isFinite(s.moleculesPerBit())) {
+            o.putObject("null_reasons").put("molecules_per_bit", "nothing is delivered (unreachable or 0 bit/symbol)");
+        }
         if (s.bottleneck() == null) {
             o.putNull("bottleneck");
         } else {

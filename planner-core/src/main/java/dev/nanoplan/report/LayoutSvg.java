@@ -25,8 +25,8 @@ import java.util.Set;
  * <p>What is drawn, bottom to top: the volume outline (box: its rectangle; cylinder: the
  * rectangle 0..L × −R..R with its axis dash-dotted, the same in both views; open medium: the
  * dashed bounding box of the nodes), the links as lines coloured by capacity on the ramp of
- * {@link #capacityColour(double)} (weak first so strong ones stay visible), the route hops thick in
- * {@link #ROUTE_COLOUR} on a white halo, then the nodes: transmitter = filled disc, receiver =
+ * {@link #capacityColour(double)} (weak first so strong ones stay visible), the route hops outlined in
+ * {@link #ROUTE_COLOUR} and filled with their capacity colour, then the nodes (larger bodies first): transmitter = filled disc, receiver =
  * ring, relay = diamond (fill = emitted species, outline = absorbed species), each as large as its
  * radius to scale but at least {@link #MIN_NODE_PX} pixels. Node colours follow the species
  * ({@link #SPECIES_COLOURS}). Ids are written beside the nodes when there are at most
@@ -244,21 +244,27 @@ public final class LayoutSvg {
         }
         sb.append("</g>\n");
 
+        // route hops: an outline in the route colour, filled with the hop's capacity colour, so that routes
+        // and capacities read together even when every link is a hop
+        Map<String, LinkReport> byKey = new HashMap<>();
+        plan.links().forEach(l -> byKey.put(key(l.from(), l.to()), l));
         sb.append("<g class=\"routes\" stroke-linecap=\"round\">\n");
         for (String hop : routeHops) {
             String[] ends = hop.split("\u0000", 2);
             Node a = byId.get(ends[0]);
             Node b = byId.get(ends[1]);
             if (a != null && b != null) {
-                line(sb, t, view, a.positionUm(), b.positionUm(), "#ffffff", 6.0, 0.9);
+                line(sb, t, view, a.positionUm(), b.positionUm(), ROUTE_COLOUR, 6.0, 0.95);
             }
         }
         for (String hop : routeHops) {
             String[] ends = hop.split("\u0000", 2);
             Node a = byId.get(ends[0]);
             Node b = byId.get(ends[1]);
+            LinkReport l = byKey.get(hop);
             if (a != null && b != null) {
-                line(sb, t, view, a.positionUm(), b.positionUm(), ROUTE_COLOUR, 3.2, 0.95);
+                double frac = l == null ? 0 : capacityOrZero(l) / fullScaleBits;
+                line(sb, t, view, a.positionUm(), b.positionUm(), capacityColour(frac), 3.0, 1.0);
             }
         }
         sb.append("</g>\n");
@@ -460,7 +466,9 @@ public final class LayoutSvg {
     private static void nodes(StringBuilder sb, Scenario s, View view, Transform t) {
         Map<String, String> colours = speciesColours(s);
         List<Node> order = new ArrayList<>(s.nodes());
-        order.sort(Comparator.comparingDouble(n -> view.depth(n.positionUm())));
+        // larger bodies first, then far to near: a small node in front of or behind a large body is drawn
+        // on top of it, so no node is ever hidden
+        order.sort(Comparator.comparingDouble((Node n) -> -n.radiusUm()).thenComparingDouble(n -> view.depth(n.positionUm())));
         boolean many = order.size() > 1000;
         double minPx = many ? 1.5 : MIN_NODE_PX;
         boolean labels = order.size() <= LABEL_LIMIT;
@@ -536,7 +544,7 @@ public final class LayoutSvg {
         sb.append("<line x1=\"").append(f(rx)).append("\" y1=\"").append(f(rowA)).append("\" x2=\"").append(f(rx + 26))
                 .append("\" y2=\"").append(f(rowA)).append("\" stroke=\"").append(ROUTE_COLOUR)
                 .append("\" stroke-width=\"3.2\" stroke-linecap=\"round\"/>\n");
-        text(sb, rx + 32, rowA + 4, "route hop", 11, "#222", "start", null);
+        text(sb, rx + 32, rowA + 4, "route hop (outline)", 11, "#222", "start", null);
         // symbols and species
         Map<String, String> colours = speciesColours(s);
         String first = SPECIES_COLOURS.get(0);

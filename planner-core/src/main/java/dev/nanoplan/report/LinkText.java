@@ -5,6 +5,7 @@ import dev.nanoplan.detect.MultiLevelResult;
 import dev.nanoplan.network.LinkCapacity;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkSpec;
+import dev.nanoplan.plan.PlanOptions;
 import java.util.Arrays;
 import java.util.Locale;
 
@@ -83,22 +84,32 @@ public final class LinkText {
         return b.toString();
     }
 
-    /** One line saying whether the link is usable, and why not. */
+    /** Bits per symbol at or above which a link is "Usable" (below it, "Weak"). */
+    public static final double USABLE_BITS = 0.5;
+
+    /**
+     * One line saying whether the link is usable, and why not. One rule for every number of levels, on
+     * the bits per symbol at the operating point, the figure the plan routes on: "Strong" from the
+     * planner's advice target ({@link PlanOptions#DEFAULT_ADVICE_TARGET_BITS} bit), "Usable" from
+     * {@value #USABLE_BITS} bit, "Weak" from the plan's capacity floor
+     * ({@link PlanOptions#DEFAULT_FLOOR_BITS} bit), "Unusable" below it (a plan leaves such a link out).
+     * A 4-level link at 0.88 bit is thus "Usable", like a binary one at 0.88 bit.
+     */
     public static String verdict(LinkEvaluation e) {
         double c = e.mutualInformationBits();
         double max = Math.log(e.spec().levels()) / Math.log(2);
         String word;
-        if (c >= 0.9 * max) {
+        if (c >= PlanOptions.DEFAULT_ADVICE_TARGET_BITS) {
             word = "Strong link";
-        } else if (c >= 0.5 * max) {
+        } else if (c >= USABLE_BITS) {
             word = "Usable link";
-        } else if (c >= 0.1 * max) {
+        } else if (c >= PlanOptions.DEFAULT_FLOOR_BITS) {
             word = "Weak link";
         } else {
             word = "Unusable link";
         }
         String why = "";
-        if (c < 0.9 * max) {
+        if (c < Math.min(PlanOptions.DEFAULT_ADVICE_TARGET_BITS, 0.9 * max)) {
             double sig = Math.max(e.signalMeanMolecules(), 1e-300);
             double isi = e.isiMeanMolecules() / sig;
             double bg = e.backgroundMeanMolecules() / sig;

@@ -106,7 +106,10 @@ public final class PlanHtml {
             .bad { color: var(--bad); font-weight: 600; }
             .ok { color: var(--good); }
             .note { color: var(--muted); font-size: 0.85rem; }
-            .advice { max-width: 420px; }
+            tr.advice td { border-top: none; color: var(--muted); padding-bottom: 10px; }
+            tr.route td { border-bottom: none; }
+            table.routes th, table.routes td { min-width: 150px; }
+            td .sub { color: var(--muted); font-size: 0.9em; }
             td.hops { white-space: nowrap; }
             .tablewrap { overflow-x: auto; }
             ul.warnings li { margin: 2px 0; }
@@ -202,7 +205,7 @@ public final class PlanHtml {
 
     private static void views(StringBuilder h, Plan plan, Map<String, Vec3> ghostsUm) {
         h.append("<section><h2>Layout</h2>\n<p class=\"note\">Drawn to scale. Lines are links, coloured by "
-                + "capacity; red lines are the hops of the chosen routes. Node size follows the body radius "
+                + "capacity; the hops of the chosen routes are outlined in red. Node size follows the body radius "
                 + "(small bodies are enlarged to stay visible).</p>\n<div class=\"views\">\n");
         if (!ghostsUm.isEmpty()) {
             h.append("<p class=\"note\">Dashed grey rings: where moved nodes were before; arrows point to where "
@@ -220,44 +223,52 @@ public final class PlanHtml {
             return;
         }
         double target = plan.scenario().targets().minRateBitsPerS();
-        h.append("<div class=\"tablewrap\"><table>\n<tr><th>From</th><th>To</th><th>Hops</th><th>Bottleneck</th>"
-                + "<th class=\"n\">Bottleneck (bit)</th><th class=\"n\">End-to-end (bit)</th>"
-                + "<th class=\"n\">Rate (bit/s)</th><th class=\"n\">Shared rate (bit/s)</th>"
-                + "<th class=\"n\">Latency (s)</th>"
-                + "<th class=\"n\">Direct (bit)</th><th>Limited by</th><th>Advice</th></tr>\n");
+        // seven columns, each at least 150 px at a 1,300 px page; the advice gets its own full-width row
+        h.append("<div class=\"tablewrap\"><table class=\"routes\">\n<tr><th>Demand</th><th>Route (hops)</th>"
+                + "<th>Bottleneck hop</th><th class=\"n\">End-to-end (bit/symbol)</th>"
+                + "<th class=\"n\">Rate alone / shared (bit/s)</th><th class=\"n\">Latency (s)</th>"
+                + "<th class=\"n\">Direct link (bit/symbol)</th></tr>\n");
         List<SharedRates.Share> shares = SharedRates.of(plan);
         for (int i = 0; i < plan.routes().size(); i++) {
             RouteReport r = plan.routes().get(i);
             SharedRates.Share sh = shares.get(i);
-            h.append("<tr><td>").append(esc(r.from())).append("</td><td>").append(esc(r.to())).append("</td>");
+            h.append("<tr class=\"route\"><td class=\"hops\">").append(esc(r.from() + " → " + r.to())).append("</td>");
             if (!r.reachable()) {
-                h.append("<td class=\"bad\">unreachable</td><td></td>");
+                h.append("<td class=\"bad\">unreachable</td>");
+                missingCell(h, "no route: see the advice below");
+                missingCell(h, "no route");
+                missingCell(h, "no route");
+                missingCell(h, "no route");
             } else {
-                h.append("<td class=\"hops\">").append(esc(String.join(" → ", r.hops()))).append("</td><td class=\"hops\">")
-                        .append(esc(r.bottleneckFrom() + " → " + r.bottleneckTo())).append("</td>");
+                h.append("<td class=\"hops\">").append(esc(String.join(" → ", r.hops()))).append("</td><td>")
+                        .append(esc(r.bottleneckFrom() + " → " + r.bottleneckTo())).append("<br><span class=\"sub\">")
+                        .append(esc(Numbers.bits(r.bottleneckCapacityBits()) + " bit/symbol, "
+                                + r.bottleneckLimitedBy().id())).append("</span></td>");
+                numCell(h, Numbers.bits(r.endToEndCapacityBits()));
+                boolean slow = r.rateBitsPerS() < target;
+                boolean slowShared = sh.rateBitsPerS() < target;
+                h.append("<td class=\"n\"><span").append(slow ? " class=\"bad\"" : "").append(">")
+                        .append(esc(Numbers.quantity(r.rateBitsPerS()))).append("</span> / <span")
+                        .append(slowShared ? " class=\"bad\"" : "");
+                if (sh.limitedAt() != null && sh.sharedWith() > 1) {
+                    h.append(" title=\"").append(esc(sh.limitedAt() + "'s slots carry " + sh.sharedWith() + " demands"))
+                            .append("\"");
+                }
+                h.append(">").append(esc(Numbers.quantity(sh.rateBitsPerS()))).append("</span></td>");
+                numCell(h, Numbers.quantity(r.latencyS()));
             }
-            numCell(h, r.reachable() ? Numbers.bits(r.bottleneckCapacityBits()) : Numbers.MISSING);
-            numCell(h, r.reachable() ? Numbers.bits(r.endToEndCapacityBits()) : Numbers.MISSING);
-            boolean slow = r.reachable() && r.rateBitsPerS() < target;
-            h.append("<td class=\"n").append(slow || !r.reachable() ? " bad" : "").append("\">")
-                    .append(r.reachable() ? esc(Numbers.quantity(r.rateBitsPerS())) : "0").append("</td>");
-            boolean slowShared = r.reachable() && sh.rateBitsPerS() < target;
-            h.append("<td class=\"n").append(slowShared ? " bad" : "").append("\"");
-            if (sh.limitedAt() != null && sh.sharedWith() > 1) {
-                h.append(" title=\"").append(esc(sh.limitedAt() + "'s slots carry " + sh.sharedWith() + " demands"))
-                        .append("\"");
+            if (r.directCapacityBits() == null) {
+                missingCell(h, "no direct link above the capacity floor");
+            } else {
+                numCell(h, Numbers.bits(r.directCapacityBits()));
             }
-            h.append(">").append(r.reachable() ? esc(Numbers.quantity(sh.rateBitsPerS())) : "0").append("</td>");
-            numCell(h, r.reachable() ? Numbers.quantity(r.latencyS()) : Numbers.MISSING);
-            numCell(h, r.directCapacityBits() == null ? "none" : Numbers.bits(r.directCapacityBits()));
-            h.append("<td>").append(r.bottleneckLimitedBy() == null ? "" : esc(r.bottleneckLimitedBy().id()))
-                    .append("</td><td class=\"advice\">").append(esc(r.advice() == null ? "" : r.advice()))
-                    .append("</td></tr>\n");
+            h.append("</tr>\n<tr class=\"advice\"><td colspan=\"7\"><strong>Advice:</strong> ")
+                    .append(esc(r.advice() == null ? "none" : r.advice())).append("</td></tr>\n");
         }
         h.append("</table></div>\n");
         h.append("<p class=\"note\">Shared rate: when several demands' routes pass through one emitter, its one "
-                + "symbol stream is time-shared among them (max-min fair); the rate column is what a demand gets "
-                + "alone.</p>\n");
+                + "symbol stream is time-shared among them (max-min fair): the rate column gives what a demand gets "
+                + "alone, then its shared rate. — marks a value that does not exist (hover for why).</p>\n");
         if (target > 0) {
             h.append("<p class=\"note\">Rates below the target of ").append(esc(Numbers.quantity(target)))
                     .append(" bit/s are marked in red.</p>\n");
@@ -271,14 +282,25 @@ public final class PlanHtml {
             h.append("<p class=\"note\">No emitting node sends on a route.</p>\n</section>\n");
             return;
         }
-        h.append("<div class=\"tablewrap\"><table>\n<tr><th>Node</th><th class=\"n\">Needed per symbol</th>"
-                + "<th class=\"n\">Molecules/s</th><th class=\"n\">Per mission</th><th>Feasible</th>"
-                + "<th>Reason</th></tr>\n");
+        h.append("<div class=\"tablewrap\"><table>\n<tr><th>Node</th><th class=\"n\">Needed (molecules/symbol)</th>"
+                + "<th class=\"n\">Release (molecules/s)</th><th class=\"n\">Per mission (molecules)</th>"
+                + "<th>Feasible</th><th>Reason</th></tr>\n");
         for (BudgetReport b : plan.budgets()) {
             h.append("<tr><td>").append(esc(b.node())).append("</td>");
-            numCell(h, b.moleculesPerSymbolNeeded() < 0 ? Numbers.MISSING : Numbers.count(b.moleculesPerSymbolNeeded()));
-            numCell(h, Numbers.molecules(b.moleculesPerS()));
-            numCell(h, Numbers.molecules(b.moleculesPerMission()));
+            if (b.moleculesPerSymbolNeeded() < 0) {
+                String why = b.feasible() ? "not sized: see the reason" : "out of reach: see the reason";
+                missingCell(h, why);
+                missingCell(h, why);
+                missingCell(h, why);
+            } else {
+                numCell(h, Numbers.count(b.moleculesPerSymbolNeeded()));
+                numCell(h, Numbers.molecules(b.moleculesPerS()));
+                if (Double.isFinite(b.moleculesPerMission())) {
+                    numCell(h, Numbers.molecules(b.moleculesPerMission()));
+                } else {
+                    missingCell(h, "beyond the range of a double: the mission is too long to total");
+                }
+            }
             h.append(b.feasible() ? "<td class=\"ok\">yes</td>" : "<td class=\"bad\">no</td>");
             h.append("<td>").append(esc(b.reason() == null ? "" : b.reason())).append("</td></tr>\n");
         }
@@ -302,10 +324,11 @@ public final class PlanHtml {
                         + "rate are at the operating point (the file's prior, the information-maximising threshold); "
                         + "capacity is the headroom at the emitter's best prior, computed for route hops.</p>\n");
         h.append("<div class=\"tablewrap\"><table>\n<tr><th>From</th><th>To</th><th>Species</th>"
-                + "<th class=\"n\">Hit prob. p<sub>0</sub></th><th class=\"n\">Signal</th>"
-                + "<th class=\"n\">ISI</th><th class=\"n\">Crosstalk</th><th class=\"n\">Threshold</th>"
-                + "<th class=\"n\">Error prob.</th><th class=\"n\">Information (bit)</th><th class=\"n\">Rate (bit/s)</th>"
-                + "<th class=\"n\">Capacity (bit)</th>"
+                + "<th class=\"n\">Hit prob. p<sub>0</sub> (fraction)</th><th class=\"n\">Signal (molecules)</th>"
+                + "<th class=\"n\">ISI (molecules)</th><th class=\"n\">Crosstalk (molecules)</th>"
+                + "<th class=\"n\">Threshold (molecules)</th><th class=\"n\">Error prob. (per symbol)</th>"
+                + "<th class=\"n\">Information (bit/symbol)</th><th class=\"n\">Rate (bit/s)</th>"
+                + "<th class=\"n\">Capacity (bit/symbol)</th>"
                 + "<th>Limited by</th><th>Top interferer</th><th>Caveat</th><th>Channel</th></tr>\n");
         for (LinkReport l : sorted.subList(0, shown)) {
             h.append("<tr><td>").append(esc(l.from())).append("</td><td>").append(esc(l.to())).append("</td><td>")
@@ -351,6 +374,11 @@ public final class PlanHtml {
 
     private static void numCell(StringBuilder h, String escapedLater) {
         cell(h, esc(escapedLater), true);
+    }
+
+    /** A value that does not exist: a dash, with the reason as a tooltip (never a sentinel number). */
+    private static void missingCell(StringBuilder h, String why) {
+        h.append("<td class=\"n na\" title=\"").append(esc(why)).append("\">—</td>");
     }
 
     private static void cell(StringBuilder h, String html, boolean numeric) {

@@ -10,7 +10,9 @@ import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.plan.SharedRates;
 import dev.nanoplan.plan.SlotSchedule;
 import dev.nanoplan.scenario.Node;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 
 /**
  * The {@code plan --json} object of docs/architecture.md §4.3 (stable snake_case keys; more may be added).
@@ -30,11 +32,17 @@ import java.util.List;
  * {@code shared_rate_bits_per_s}, {@code shared_at} (the emitter whose stream is used up, or
  * null) and {@code shared_with} (demands through it).
  *
- * <p>JSON has no NaN or infinity: every non-finite number is written as {@code null}; so is a
- * budget's {@code molecules_per_symbol_needed} when it is unknown (negative in the record), and
- * an unreachable route's {@code bottleneck_link}. Cost O(total taps + links + routes + budgets).
+ * <p>No sentinels: a value that does not exist or is not known is {@code null} (JSON has no NaN or
+ * infinity either), and every link, route and budget entry ends with {@value #NULL_REASONS}, an object
+ * giving for each of its null keys the reason in words (e.g. a budget out of reach has
+ * {@code molecules_per_symbol_needed}, {@code molecules_per_s} and {@code molecules_per_mission} null;
+ * an unreachable route has {@code latency_s}, {@code bottleneck_link} and {@code limited_by} null).
+ * Cost O(total taps + links + routes + budgets).
  */
 public final class PlanJson {
+
+    /** Key of the object, in every link, route and budget entry, that says why each null value is null. */
+    public static final String NULL_REASONS = "null_reasons";
 
     private PlanJson() {
     }
@@ -61,12 +69,7 @@ public final class PlanJson {
         ArrayNode routes = o.putArray("routes");
         List<SharedRates.Share> shares = SharedRates.of(plan);
         for (int i = 0; i < plan.routes().size(); i++) {
-            ObjectNode r = route(plan.routes().get(i));
-            SharedRates.Share sh = shares.get(i);
-            number(r, "shared_rate_bits_per_s", sh.rateBitsPerS());
-            text(r, "shared_at", sh.limitedAt());
-            r.put("shared_with", sh.sharedWith());
-            routes.add(r);
+            routes.add(route(plan.routes().get(i), shares.get(i)));
         }
         ArrayNode budgets = o.putArray("budgets");
         for (BudgetReport b : plan.budgets()) {
@@ -83,6 +86,7 @@ public final class PlanJson {
     /** One {@code links} entry. */
     public static ObjectNode link(LinkReport l) {
         ObjectNode o = LinkJson.MAPPER.createObjectNode();
+        Why why = new Why();
         o.put("from", l.from());
         o.put("to", l.to());
         o.put("species", l.species());
@@ -100,33 +104,45 @@ public final class PlanJson {
         o.put("threshold", l.threshold());
         number(o, "error_probability", l.errorProbability());
         number(o, "mutual_information_bits", l.mutualInformationBits());
-        number(o, "capacity_bits", l.capacityBits() == null ? Double.NaN : l.capacityBits());
-        number(o, "capacity_prior_one", l.capacityPriorOne() == null ? Double.NaN : l.capacityPriorOne());
+        String noCapacity = "computed for route hops only (and not in the preview)";
+        number(o, "capacity_bits", l.capacityBits() == null ? Double.NaN : l.capacityBits(), why, noCapacity);
+        number(o, "capacity_prior_one", l.capacityPriorOne() == null ? Double.NaN : l.capacityPriorOne(), why,
+                l.capacityBits() == null ? noCapacity : "more than two levels: see the input distribution");
         number(o, "rate_bits_per_s", l.rateBitsPerS());
         if (l.minErrorThreshold() >= 0) {
             o.put("min_error_threshold", l.minErrorThreshold());
         } else {
             o.putNull("min_error_threshold");
+            why.put("min_error_threshold", "more than two levels: the minimum error is the MAP symbol decision, "
+                    + "not one threshold");
         }
         number(o, "min_error_probability", l.minErrorProbability());
         o.put("count_blind", l.countBlind());
         impairment(o, "limited_by", l.limitedBy());
-        text(o, "top_interferer", l.topInterferer());
+        text(o, "top_interferer", l.topInterferer(), why, "no other emitter is heard at this receiver");
         number(o, "log10_error_probability", l.log10ErrorProbability());
         number(o, "isi_mean", l.isiMean());
         number(o, "background_mean", l.backgroundMean());
         number(o, "top_interferer_share", l.topInterfererShare());
         number(o, "crossover_zero", l.crossoverZero());
         number(o, "crossover_one", l.crossoverOne());
-        text(o, "model_caveat", l.modelCaveat());
+        text(o, "model_caveat", l.modelCaveat(), why, "none: no walls or flow the closed forms leave out");
         text(o, "channel", l.channel());
         text(o, "channel_reason", l.channelReason());
+        why.into(o);
         return o;
     }
 
     /** One {@code routes} entry. */
     public static ObjectNode route(RouteReport r) {
+        return route(r, null);
+    }
+
+    /** One {@code routes} entry with its shared rate ({@link SharedRates}; null to leave it out). */
+    static ObjectNode route(RouteReport r, SharedRates.Share sh) {
         ObjectNode o = LinkJson.MAPPER.createObjectNode();
+        Why why = new Why();
+        String unreachable = "unreachable: " + r.advice();
         o.put("from", r.from());
         o.put("to", r.to());
         ArrayNode hops = o.putArray("hops");
@@ -138,32 +154,52 @@ public final class PlanJson {
             b.put("to", r.bottleneckTo());
         } else {
             o.putNull("bottleneck_link");
+            why.put("bottleneck_link", unreachable);
         }
         number(o, "end_to_end_capacity_bits", r.endToEndCapacityBits());
         number(o, "rate_bits_per_s", r.rateBitsPerS());
-        number(o, "latency_s", r.latencyS());
-        number(o, "direct_capacity_bits", r.directCapacityBits() == null ? Double.NaN : r.directCapacityBits());
+        number(o, "latency_s", r.reachable() ? r.latencyS() : Double.NaN, why, unreachable);
+        number(o, "direct_capacity_bits", r.directCapacityBits() == null ? Double.NaN : r.directCapacityBits(), why,
+                "no direct link above the capacity floor");
         o.put("reachable", r.reachable());
-        impairment(o, "limited_by", r.bottleneckLimitedBy());
+        if (r.bottleneckLimitedBy() == null) {
+            o.putNull("limited_by");
+            why.put("limited_by", unreachable);
+        } else {
+            o.put("limited_by", r.bottleneckLimitedBy().id());
+        }
         text(o, "advice", r.advice());
+        if (sh != null) {
+            number(o, "shared_rate_bits_per_s", sh.rateBitsPerS());
+            text(o, "shared_at", sh.limitedAt(), why, r.reachable()
+                    ? "no shared emitter limits this demand: it gets the rate it would have alone" : unreachable);
+            o.put("shared_with", sh.sharedWith());
+        }
+        why.into(o);
         return o;
     }
 
     /** One {@code budgets} entry. */
     public static ObjectNode budget(BudgetReport b) {
         ObjectNode o = LinkJson.MAPPER.createObjectNode();
+        Why why = new Why();
         o.put("node", b.node());
-        if (b.moleculesPerSymbolNeeded() >= 0) {
+        boolean sized = b.moleculesPerSymbolNeeded() >= 0;
+        String notSized = b.feasible() ? "not sized: see reason" : "out of reach: see reason";
+        if (sized) {
             o.put("molecules_per_symbol_needed", b.moleculesPerSymbolNeeded());
         } else {
             o.putNull("molecules_per_symbol_needed");
+            why.put("molecules_per_symbol_needed", notSized);
         }
-        number(o, "molecules_per_s", b.moleculesPerS());
-        number(o, "molecules_per_mission", b.moleculesPerMission());
+        number(o, "molecules_per_s", sized ? b.moleculesPerS() : Double.NaN, why, notSized);
+        number(o, "molecules_per_mission", sized ? b.moleculesPerMission() : Double.NaN, why, sized
+                ? "beyond the range of a double (about 1.8e308): the mission is too long to total" : notSized);
         o.put("feasible", b.feasible());
         text(o, "reason", b.reason());
         o.put("method", b.method());
         o.put("count_blind_target", b.countBlindTarget());
+        why.into(o);
         return o;
     }
 
@@ -172,6 +208,39 @@ public final class PlanJson {
             o.put(key, v);
         } else {
             o.putNull(key);
+        }
+    }
+
+    /** As {@link #number(ObjectNode, String, double)}; a null is explained in {@code why}. */
+    private static void number(ObjectNode o, String key, double v, Why why, String reason) {
+        number(o, key, v);
+        if (!Double.isFinite(v)) {
+            why.put(key, reason);
+        }
+    }
+
+    /** As {@link #text(ObjectNode, String, String)}; a null is explained in {@code why}. */
+    private static void text(ObjectNode o, String key, String v, Why why, String reason) {
+        text(o, key, v);
+        if (v == null) {
+            why.put(key, reason);
+        }
+    }
+
+    /**
+     * The reasons of an entry's null values, written last as the sibling object {@value #NULL_REASONS}
+     * (key of the null value → words), always present (empty when nothing is null).
+     */
+    private static final class Why {
+        private final Map<String, String> reasons = new LinkedHashMap<>();
+
+        void put(String key, String reason) {
+            reasons.put(key, reason);
+        }
+
+        void into(ObjectNode o) {
+            ObjectNode w = o.putObject(NULL_REASONS);
+            reasons.forEach(w::put);
         }
     }
 

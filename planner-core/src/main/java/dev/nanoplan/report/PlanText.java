@@ -38,20 +38,31 @@ public final class PlanText {
             sb.setLength(sb.length() - 1);
             sb.append(" — rates per frame, latencies one frame per hop)\n");
         }
-        sb.append(String.format(Locale.ROOT, "%d links above the floor, %d demands%n%n", plan.links().size(),
-                plan.routes().size()));
+        sb.append(plural(plan.links().size(), "link")).append(" above the floor, ")
+                .append(plural(plan.routes().size(), "demand")).append("\n\n");
         List<LinkReport> sorted = new ArrayList<>(plan.links());
         sorted.sort(Comparator.comparingDouble(LinkReport::mutualInformationBits).reversed());
-        List<LinkReport> shown = new ArrayList<>(sorted.subList(0, Math.min(TOP_LINKS, sorted.size())));
-        for (int i = Math.max(shown.size(), sorted.size() - TOP_LINKS); i < sorted.size(); i++) {
-            shown.add(sorted.get(i));
+        int top = Math.min(TOP_LINKS, sorted.size());
+        int bottomFrom = Math.max(top, sorted.size() - TOP_LINKS);
+        int hidden = bottomFrom - top;
+        if (sorted.size() <= top) {
+            sb.append("Links (all ").append(sorted.size()).append(", strongest first)\n");
+        } else {
+            sb.append("Links (strongest ").append(top).append(", then weakest ").append(sorted.size() - bottomFrom)
+                    .append(" of ").append(sorted.size()).append(hidden > 0 ? "; " + hidden + " in between not shown)"
+                            : ")").append('\n');
         }
-        sb.append("Links (strongest ").append(Math.min(TOP_LINKS, sorted.size())).append(" and weakest)\n");
         sb.append("(tau, Pe and bit/sym at the operating point: the file's prior, the information-maximising "
                 + "threshold; cap = consistent capacity at its best prior, route hops only)\n");
         sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10s %10s %10s %6s %10s %9s %7s %-9s %s%n", "from",
                 "to", "sp", "signal", "interf.", "isi", "tau", "Pe", "bit/sym", "cap", "limit", "top interferer"));
-        for (LinkReport l : shown) {
+        for (int i = 0; i < sorted.size(); i++) {
+            if (i == top && hidden > 0) {
+                sb.append(String.format(Locale.ROOT, "  ... %s not shown (all are in plan --json and links.csv of "
+                        + "--out) ...%n", plural(hidden, "link")));
+                i = bottomFrom;
+            }
+            LinkReport l = sorted.get(i);
             sb.append(String.format(Locale.ROOT, "%-12s %-12s %-4s %10s %10s %10s %6s %10s %9s %7s %-9s %s%s%n",
                     l.from(), l.to(), l.species(), Numbers.quantity(l.signalMean()),
                     Numbers.quantity(l.interferenceMean()), Numbers.quantity(l.isiMean()),
@@ -131,5 +142,10 @@ public final class PlanText {
             sb.append(String.format(Locale.ROOT, "  %s -> %s: %s (%s)%n", l.from(), l.to(), l.channel(),
                     l.channelReason() == null ? "no reason given" : l.channelReason()));
         }
+    }
+
+    /** "1 link", "26 links". */
+    static String plural(int n, String word) {
+        return n + " " + word + (n == 1 ? "" : "s");
     }
 }

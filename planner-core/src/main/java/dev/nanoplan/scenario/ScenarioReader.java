@@ -11,6 +11,7 @@ import java.io.InputStream;
 import java.io.InputStreamReader;
 import java.io.Reader;
 import java.io.StringReader;
+import java.nio.charset.CharacterCodingException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
@@ -128,6 +129,8 @@ public final class ScenarioReader {
             String msg = e.getOriginalMessage().replace('\n', ' ');
             throw new ScenarioException(List.of(at == null ? ScenarioProblem.at("", "invalid JSON: " + msg)
                     : new ScenarioProblem("", "invalid JSON: " + msg, at.getLineNr(), at.getColumnNr())));
+        } catch (CharacterCodingException e) {
+            throw single("not a UTF-8 text file (binary data?); a scenario is JSON text");
         } catch (IOException e) {
             throw single("cannot read scenario: " + e.getMessage());
         }
@@ -147,6 +150,7 @@ public final class ScenarioReader {
         if (!s.errors.isEmpty() || scenario == null) {
             throw new ScenarioException(s.located(s.errors));
         }
+        s.warnings.addAll(Plausibility.check(scenario));
         return new Result(scenario, s.located(s.warnings));
     }
 

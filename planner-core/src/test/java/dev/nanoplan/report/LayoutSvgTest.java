@@ -82,7 +82,8 @@ class LayoutSvgTest {
     void drawsRoutesOnTopAndIsWellFormedXml() throws Exception {
         String svg = LayoutSvg.render(PlanFixtures.demo("<script>x</script>"), LayoutSvg.View.TOP);
         // three reachable routes, hops s1→relay, relay→gw, s2→relay, odd→gw: four distinct hops
-        assertThat(count(svg, "stroke=\"" + LayoutSvg.ROUTE_COLOUR + "\" stroke-width=\"3.20\"")).isEqualTo(4);
+        // each hop is outlined in the route colour under its capacity colour
+        assertThat(count(svg, "stroke=\"" + LayoutSvg.ROUTE_COLOUR + "\" stroke-width=\"6.00\"")).isEqualTo(4);
         assertThat(svg).doesNotContain("<script>").contains("&lt;script&gt;x&lt;/script&gt;");
         // parses as XML (W3C, Extensible Markup Language 1.0, 2008): escaping and nesting are right
         DocumentBuilderFactory.newInstance().newDocumentBuilder().parse(new InputSource(new StringReader(svg)));

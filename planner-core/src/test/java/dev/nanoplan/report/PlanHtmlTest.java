@@ -39,6 +39,17 @@ class PlanHtmlTest {
     }
 
     @Test
+    void putsTheAdviceUnderEachRouteAndNoSentinelInTheBudgets() {
+        Plan p = PlanFixtures.demo("s3");
+        String html = PlanHtml.render(p);
+        // one full-width advice row per route (seven columns)
+        assertThat(html.split("<tr class=\"advice\"><td colspan=\"7\">", -1)).hasSize(p.routes().size() + 1);
+        // units in the link table's headers; a budget without a value is a dash with its reason, never -1
+        assertThat(html).contains("Signal (molecules)", "ISI (molecules)", "Crosstalk (molecules)")
+                .doesNotContain(">-1<");
+    }
+
+    @Test
     void isSelfContained() {
         String html = PlanHtml.render(PlanFixtures.demo("s3"));
         // no fetched resource: no src/href attributes, no @import or url() other than in-page gradients
@@ -54,9 +65,9 @@ class PlanHtmlTest {
         Plan grid = PlanFixtures.grid(30);
         String html = PlanHtml.render(grid);
         int rows = html.split("<tr><td>n", -1).length - 1;
-        // 30 × 30 grid: 435 links; routes table adds one row starting with a node id
+        // 30 × 30 grid: 435 links; the routes table's rows are of class "route", so only link rows count
         assertThat(grid.links()).hasSizeGreaterThan(PlanHtml.MAX_LINK_ROWS);
-        assertThat(rows).isEqualTo(PlanHtml.MAX_LINK_ROWS + 1);
+        assertThat(rows).isEqualTo(PlanHtml.MAX_LINK_ROWS);
         assertThat(html).contains("The 200 most informative links of " + grid.links().size());
     }
 }

@@ -60,8 +60,8 @@ public final class CompareCommand implements Callable<Integer> {
         if (b == null) {
             return ErrorHandling.BAD_INPUT;
         }
-        Plan pa = plan(a.scenario(), err);
-        Plan pb = plan(b.scenario(), err);
+        Plan pa = plan(a.scenario(), err, "planning A " + first.getFileName());
+        Plan pb = plan(b.scenario(), err, "planning B " + second.getFileName());
         if (pa == null || pb == null) {
             return ErrorHandling.INTERNAL;
         }
@@ -78,13 +78,16 @@ public final class CompareCommand implements Callable<Integer> {
     }
 
     /** The plan on the chosen channel (auto by default), or null when a simulation was stopped. */
-    private Plan plan(Scenario scenario, PrintWriter err) throws IOException {
+    private Plan plan(Scenario scenario, PrintWriter err, String what) throws IOException {
         channelOptions.checkStep(scenario);
         boolean[] stopped = new boolean[1];
         ChannelMatrix matrix = channelOptions.channel(scenario, PlanOptions.DEFAULT, System.getenv(), err, stopped);
         if (stopped[0]) {
             return null;
         }
-        return NetworkPlanner.plan(scenario, matrix == null ? PlanOptions.DEFAULT : PlanOptions.DEFAULT.withChannel(matrix));
+        PlanOptions options = matrix == null ? PlanOptions.DEFAULT : PlanOptions.DEFAULT.withChannel(matrix);
+        try (ProgressLine p = ProgressLine.of(err, what)) {
+            return NetworkPlanner.plan(scenario, options.withProgress(p));
+        }
     }
 }

@@ -24,7 +24,8 @@ final class ErrorHandling {
         @Override
         public int handleParseException(CommandLine.ParameterException ex, String[] args) {
             CommandLine cl = ex.getCommandLine();
-            cl.getErr().println("nanoplan: " + oneLine(ex.getMessage()));
+            String own = OptionForms.message(ex);
+            cl.getErr().println("nanoplan: " + oneLine(own != null ? own : ex.getMessage()));
             cl.getErr().println("(see: " + cl.getCommandSpec().qualifiedName() + " --help)");
             cl.getErr().flush();
             return BAD_INPUT;

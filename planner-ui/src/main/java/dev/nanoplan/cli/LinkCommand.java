@@ -12,6 +12,8 @@ import dev.nanoplan.physics.StokesEinstein;
 import dev.nanoplan.report.LinkJson;
 import dev.nanoplan.report.LinkPlotFiles;
 import dev.nanoplan.report.LinkText;
+import dev.nanoplan.scenario.Medium;
+import dev.nanoplan.scenario.Signalling;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -43,10 +45,10 @@ public final class LinkCommand implements Callable<Integer> {
             description = "Instead of --diffusion-um2-per-s: molecule radius (nm); D by Stokes–Einstein.")
     Double hydrodynamicRadiusNm;
 
-    @Option(names = "--temperature-k", defaultValue = "310.15", description = "Temperature for Stokes–Einstein (K), default ${DEFAULT-VALUE}.")
+    @Option(names = "--temperature-k", defaultValue = "" + Medium.DEFAULT_TEMPERATURE_K, description = "Temperature for Stokes–Einstein (K), default ${DEFAULT-VALUE}.")
     double temperatureK;
 
-    @Option(names = "--viscosity-mpa-s", defaultValue = "0.69", description = "Viscosity for Stokes–Einstein (mPa·s), default ${DEFAULT-VALUE}.")
+    @Option(names = "--viscosity-mpa-s", defaultValue = "" + Medium.DEFAULT_VISCOSITY_MPA_S, description = "Viscosity for Stokes–Einstein (mPa·s), default ${DEFAULT-VALUE}.")
     double viscosityMPaS;
 
     @Option(names = "--symbol-time-s", description = "Symbol time T (s).")
@@ -58,7 +60,8 @@ public final class LinkCommand implements Callable<Integer> {
     @Option(names = "--molecules-zero", defaultValue = "0", description = "Molecules released for a \"0\", default ${DEFAULT-VALUE}.")
     long moleculesZero;
 
-    @Option(names = "--isi-memory", defaultValue = "0", description = "Earlier symbols whose leftovers count (L), default ${DEFAULT-VALUE}.")
+    @Option(names = "--isi-memory", defaultValue = "" + Signalling.DEFAULT_ISI_MEMORY,
+            description = "Earlier symbols whose leftovers count (L), default ${DEFAULT-VALUE} as in scenario files.")
     int isiMemory;
 
     @Option(names = "--half-life-s", description = "Half-life of the molecule (s); none = stable.")
@@ -97,6 +100,9 @@ public final class LinkCommand implements Callable<Integer> {
         if (plot != null && !LinkPlotFiles.supported(plot)) {
             throw new BadInputException("--plot: file name must end in .svg or .png, got " + plot);
         }
+        if (plot != null) {
+            OutputPaths.file("--plot", plot);
+        }
         CountModelKind model;
         try {
             model = CountModelKind.parse(countModel);
@@ -114,8 +120,9 @@ public final class LinkCommand implements Callable<Integer> {
         if (moleculesZero < 0) {
             throw new BadInputException("--molecules-zero: must be >= 0, got " + moleculesZero);
         }
-        if (isiMemory < 0) {
-            throw new BadInputException("--isi-memory: must be >= 0, got " + isiMemory);
+        if (isiMemory < 0 || isiMemory > Signalling.MAX_ISI_MEMORY) {
+            throw new BadInputException("--isi-memory: must be in 0.." + Signalling.MAX_ISI_MEMORY + " symbols, got "
+                    + isiMemory);
         }
         if (symbolTimeS == null) {
             throw new BadInputException("--symbol-time-s: missing (the symbol time is needed for rates and taps)");

@@ -14,6 +14,9 @@ import picocli.CommandLine.Command;
             UiCommand.class, CommandLine.HelpCommand.class})
 public final class NanoplanCommand implements Runnable {
 
+    /** Columns of the help text. */
+    static final int HELP_WIDTH = 110;
+
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
@@ -25,6 +28,9 @@ public final class NanoplanCommand implements Runnable {
     /** Builds the command line with nanoplan's error handling. */
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new NanoplanCommand());
+        OptionForms.register(cl);
+        // wide enough that option names, paths and units are not broken across lines
+        cl.setUsageHelpWidth(HELP_WIDTH);
         cl.setExecutionExceptionHandler(new ErrorHandling.ExecutionErrors());
         cl.setParameterExceptionHandler(new ErrorHandling.ParameterErrors());
         return cl;

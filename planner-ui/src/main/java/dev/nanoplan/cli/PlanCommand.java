@@ -78,19 +78,19 @@ public final class PlanCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         PlanOptions options = PlanOptions.DEFAULT;
         if (capacityFloorBits != null) {
-            if (!Double.isFinite(capacityFloorBits) || capacityFloorBits < 0) {
-                throw new BadInputException("--capacity-floor-bits: must be a finite number >= 0, got "
+            if (!(capacityFloorBits >= 0 && capacityFloorBits < 1)) {
+                throw new BadInputException("--capacity-floor-bits: must be in [0, 1) bit/symbol, got "
                         + capacityFloorBits);
             }
             options = options.withFloor(capacityFloorBits);
         }
         channelOptions.check();
-        if (outDir != null && Files.exists(outDir) && !Files.isDirectory(outDir)) {
-            throw new BadInputException("--out: not a directory: " + outDir);
-        }
         ScenarioReader.Result read = ScenarioFiles.read(scenarioFile, lenient, err);
         if (read == null) {
             return ErrorHandling.BAD_INPUT;
+        }
+        if (outDir != null) {
+            OutputPaths.folder("--out", outDir);
         }
         ScenarioFiles.printWarnings(scenarioFile, read, err);
         channelOptions.checkStep(read.scenario());
@@ -102,7 +102,10 @@ public final class PlanCommand implements Callable<Integer> {
         if (matrix != null) {
             options = options.withChannel(matrix);
         }
-        Plan plan = NetworkPlanner.plan(read.scenario(), options);
+        Plan plan;
+        try (ProgressLine progressLine = ProgressLine.of(err, "planning " + scenarioFile.getFileName())) {
+            plan = NetworkPlanner.plan(read.scenario(), options.withProgress(progressLine));
+        }
         if (json) {
             out.println(PlanJson.of(plan).toString());
             for (String w : plan.warnings()) {
@@ -146,6 +149,9 @@ public final class PlanCommand implements Callable<Integer> {
         static ScenarioReader.Result read(Path file, boolean lenient, PrintWriter err) {
             if (!Files.exists(file)) {
                 throw new BadInputException("no such file: " + file);
+            }
+            if (!Files.isReadable(file)) {
+                throw new BadInputException("cannot read file (permission denied): " + file);
             }
             if (Files.isDirectory(file)) {
                 throw new BadInputException("is a directory, not a scenario file: " + file);

@@ -4,7 +4,9 @@ import dev.nanoplan.desktop.DesktopLauncher;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import javafx.application.Platform;
 import picocli.CommandLine.Command;
@@ -34,17 +36,56 @@ public final class UiCommand implements Callable<Integer> {
     @Option(names = "--height", defaultValue = "860", description = "Snapshot height in pixels, default ${DEFAULT-VALUE}.")
     int height;
 
+    /** The side panels of the desktop window, in its order (the titles {@code --tab} accepts, any case). */
+    static final List<String> TABS = List.of("Links", "Routes", "Budgets", "Compare", "Link charts", "Simulation",
+            "Warnings", "Settings");
+
     @Option(names = "--tab", paramLabel = "PANEL",
-            description = "Snapshot with this side panel shown: Links, Routes, Budgets, Compare, \"Link charts\", Warnings.")
+            description = "Snapshot with this side panel shown: Links, Routes, Budgets, Compare, \"Link charts\", "
+                    + "Simulation, Warnings or Settings.")
     String tab;
+
+    /** Environment (a field so tests can replace it). */
+    Map<String, String> environment = System.getenv();
+
+    /**
+     * On Linux and other X11/Wayland systems, refuses early (one line, exit 2) when no display is set,
+     * instead of letting the toolkit fail with an internal error; Monocle (headless) runs are let through.
+     */
+    private void requireDisplay() {
+        String os = System.getProperty("os.name", "").toLowerCase(Locale.ROOT);
+        if (os.contains("win") || os.contains("mac") || "Monocle".equalsIgnoreCase(System.getProperty("glass.platform"))) {
+            return;
+        }
+        if (blank(environment.get("DISPLAY")) && blank(environment.get("WAYLAND_DISPLAY"))) {
+            throw new BadInputException("ui: " + noDisplay());
+        }
+    }
+
+    private static String noDisplay() {
+        return "no display to open a window on (DISPLAY is not set); run it in a desktop session, or headless as "
+                + "xvfb-run -a ./nanoplan ui ...";
+    }
+
+    private static boolean blank(String s) {
+        return s == null || s.isBlank();
+    }
 
     @Override
     public Integer call() throws Exception {
         if (file != null && !Files.isRegularFile(file)) {
             throw new BadInputException("FILE: no such file: " + file);
         }
+        if (tab != null && TABS.stream().noneMatch(t -> t.equalsIgnoreCase(tab))) {
+            throw new BadInputException("--tab: no panel '" + tab + "'; one of: " + String.join(", ", TABS));
+        }
         if (snapshot == null) {
-            DesktopLauncher.launch(file);
+            requireDisplay();
+            try {
+                DesktopLauncher.launch(file);
+            } catch (UnsupportedOperationException e) {
+                throw new BadInputException("ui: " + noDisplay());
+            }
             return 0;
         }
         if (file == null) {
@@ -57,6 +98,8 @@ public final class UiCommand implements Callable<Integer> {
             throw new BadInputException("--width/--height: must be 200..8000 × 150..8000 pixels, got " + width + " × "
                     + height);
         }
+        OutputPaths.file("--snapshot", snapshot);
+        requireDisplay();
         try {
             DesktopLauncher.SnapshotResult r = DesktopLauncher.snapshot(file, snapshot, width, height, tab);
             PrintWriter err = spec.commandLine().getErr();
