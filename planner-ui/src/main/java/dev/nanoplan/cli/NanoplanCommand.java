@@ -9,7 +9,7 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = ManifestVersion.class,
         description = "Plans networks of nanomachines that talk by releasing molecules into a fluid.",
-        subcommands = {LinkCommand.class, PlanCommand.class, CompareCommand.class, ValidateCommand.class, SimulateCommand.class,
+        subcommands = {LinkCommand.class, PlanCommand.class, SlotsCommand.class, CompareCommand.class, ValidateCommand.class, SimulateCommand.class,
             UiCommand.class, CommandLine.HelpCommand.class})
 public final class NanoplanCommand implements Runnable {
 
