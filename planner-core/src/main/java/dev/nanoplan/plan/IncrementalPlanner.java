@@ -4,6 +4,8 @@ import dev.nanoplan.network.ChannelEntry;
 import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Signalling;
+import dev.nanoplan.scenario.Species;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.HashSet;
@@ -25,8 +27,8 @@ import java.util.Set;
  * the channel of the edited scenario (analytic closed forms, a small part of the cost; or the
  * {@link PlanOptions#channel()} given, unchanged) and re-evaluates receiver r when any of these holds:
  * <ul>
- *   <li>the signalling, the medium or the volume changed, or under a schedule other than all-active the
- *       slot assignment changed (then every receiver);</li>
+ *   <li>the signalling (but for its slot plan), the medium or the volume changed (then every receiver);</li>
+ *   <li>the frame of r's species changed, or an emitter heard at r changed its slot;</li>
  *   <li>r is new, or its node changed (position, radius, molecules, role, species), or its species
  *       changed (diffusion, half-life);</li>
  *   <li>the list of channel entries at r changed (an emitter entered or left r's cutoff, or its taps
@@ -201,14 +203,30 @@ public final class IncrementalPlanner {
             PlanInputs next, ChannelMatrix nextChannel, ReceiverEvaluator evaluator) {
         Scenario before = inputs.scenario();
         Scenario edited = next.scenario();
-        boolean all = !before.signalling().equals(edited.signalling()) || !before.medium().equals(edited.medium())
-                || !before.volume().equals(edited.volume()) || !inputs.slots().equals(next.slots());
+        boolean all = !withoutSlots(before.signalling()).equals(withoutSlots(edited.signalling()))
+                || !before.medium().equals(edited.medium()) || !before.volume().equals(edited.volume());
         Set<String> changedNodes = changedNodes(inputs.nodes(), next.nodes());
+        Set<String> reframed = new HashSet<>();
+        if (!all && !inputs.slots().equals(next.slots())) {
+            // a new slot moves the emitter against every emitter heard with it: redo the receivers hearing it,
+            // and every receiver of a species whose frame changed
+            for (Node n : next.nodes().values()) {
+                if (n.role().emits() && inputs.nodes().containsKey(n.id()) && inputs.nodes().get(n.id()).role().emits()
+                        && inputs.slots().slotOf(n.id()) != next.slots().slotOf(n.id())) {
+                    changedNodes.add(n.id());
+                }
+            }
+            for (Species sp : edited.species()) {
+                if (inputs.slots().frameSlots(sp.name()) != next.slots().frameSlots(sp.name())) {
+                    reframed.add(sp.name());
+                }
+            }
+        }
         Map<String, ReceiverLinks> kept = new HashMap<>();
         List<String> redo = new ArrayList<>();
         for (String r : nextChannel.receivers()) {
             ReceiverLinks old = links.get(r);
-            if (!all && old != null && !changedNodes.contains(r)
+            if (!all && old != null && !changedNodes.contains(r) && !reframed.contains(next.nodes().get(r).species())
                     && Objects.equals(inputs.species().get(next.nodes().get(r).species()),
                             next.species().get(next.nodes().get(r).species()))
                     && sameEntries(channel.atReceiver(r), nextChannel.atReceiver(r), changedNodes)) {
@@ -219,6 +237,12 @@ public final class IncrementalPlanner {
         }
         kept.putAll(PlanPipeline.evaluate(next, nextChannel, redo, evaluator, f -> { }));
         return new Relinked(kept, redo.size());
+    }
+
+    /** The signalling without its slot plan (a slot change re-evaluates only the receivers it touches). */
+    private static Signalling withoutSlots(Signalling s) {
+        return new Signalling(s.symbolTimeS(), s.isiMemorySymbols(), s.levels(), s.priorOne(), s.countModel(),
+                s.schedule());
     }
 
     /** Ids of nodes added, removed or changed in any field. */

@@ -85,6 +85,16 @@ class SlotsPlannerTest {
         assertThat(PlanJson.of(rr).get("frame_slots").asInt()).isEqualTo(3);
     }
 
+    @Test
+    void aReplanAfterASlotMoveIsTheFullPlan() {
+        List<Node> nodes = RoundRobinPlannerTest.nodes(300, new Vec3(12, 0, 0), new Vec3(-14, 0, 0), new Vec3(0, 16, 0));
+        Scenario first = layout(nodes, 6, signalling(6, Schedule.SLOTS).withSlots(0, Map.of("t0", 0, "t1", 1, "t2", 1)));
+        Scenario moved = layout(nodes, 6, signalling(6, Schedule.SLOTS).withSlots(0, Map.of("t0", 0, "t1", 1, "t2", 0)));
+        IncrementalPlanner planner = IncrementalPlanner.exact(first, ALL_LINKS);
+        // the incremental planner's contract: a re-plan equals the full plan of the edited scenario
+        assertThat(PlanJson.of(planner.replan(moved))).isEqualTo(PlanJson.of(NetworkPlanner.plan(moved, ALL_LINKS)));
+    }
+
     /**
      * K = 3, L = 4: t0 and t1 share slot 0, t2 sends in slot 1. Decoding t0 hears its own symbols at lags
      * 0 and 3, t1's at lags 0 and 3 (same slot), t2's at lag 2 ((0 − 1) mod 3). The count law is built by

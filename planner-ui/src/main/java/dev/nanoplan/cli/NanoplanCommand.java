@@ -9,8 +9,8 @@ import picocli.CommandLine.Command;
         mixinStandardHelpOptions = true,
         versionProvider = ManifestVersion.class,
         description = "Plans networks of nanomachines that talk by releasing molecules into a fluid.",
-        subcommands = {LinkCommand.class, PlanCommand.class, ImproveCommand.class, CompareCommand.class, ValidateCommand.class,
-            SimulateCommand.class, ToleranceCommand.class,
+        subcommands = {LinkCommand.class, PlanCommand.class, SlotsCommand.class, ImproveCommand.class, CompareCommand.class,
+            ValidateCommand.class, SimulateCommand.class, ToleranceCommand.class,
             UiCommand.class, CommandLine.HelpCommand.class})
 public final class NanoplanCommand implements Runnable {
 
