@@ -53,7 +53,7 @@ final class ExactReceiverEvaluator implements ReceiverEvaluator {
     }
 
     @Override
-    public List<String> leadingWarnings() {
+    public List<String> leadingWarnings(double largestDeviationBits) {
         return List.of();
     }
 

@@ -5,7 +5,9 @@ import dev.nanoplan.info.BlahutArimoto;
 import dev.nanoplan.info.ChannelCascade;
 import dev.nanoplan.info.Entropy;
 import dev.nanoplan.math.LogSpace;
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.List;
 import java.util.Objects;
 import org.apache.commons.numbers.gamma.Erfc;
 
@@ -138,6 +140,85 @@ public final class NormalLinkApproximation {
                 }
             }
             return new Mixture(cw, cm, cv);
+        }
+
+        /**
+         * This mixture plus one more independent term ({@link #plus}), reduced to at most
+         * {@code maxComponents} by merging components two at a time while keeping the mixture's mean
+         * and variance exact: each step merges the pair of components adjacent in mean whose merge
+         * costs least by Runnalls' upper bound on the Kullback–Leibler discrimination,
+         * B(i, j) = ½[(w_i + w_j)·ln σ²_ij − w_i·ln σ²_i − w_j·ln σ²_j], σ²_ij the variance of the
+         * merged pair (A. R. Runnalls, "Kullback-Leibler approach to Gaussian mixture reduction",
+         * IEEE Trans. Aerosp. Electron. Syst. 43(3), 2007, eq. 21; the moment-preserving merge of
+         * D. J. Salmond, 1990). Component variances enter the cost floored at 1 molecule² (counts are
+         * integers; equal point masses then merge at no cost). Restricting merges to neighbours in
+         * mean is a simplification of Runnalls' all-pairs greedy that keeps a step O(components).
+         *
+         * @param maxComponents at least 1 and at most {@link #MAX_COMPONENTS}
+         */
+        public Mixture plusReduced(double[] w, double[] m, double[] v, int maxComponents) {
+            if (maxComponents < 1 || maxComponents > MAX_COMPONENTS) {
+                throw new IllegalArgumentException("maxComponents: must be in [1, " + MAX_COMPONENTS + "], got "
+                        + maxComponents);
+            }
+            int n = weights.length * w.length;
+            double[][] comp = new double[n][];
+            int k = 0;
+            for (int a = 0; a < weights.length; a++) {
+                for (int b = 0; b < w.length; b++) {
+                    comp[k++] = new double[] {weights[a] * w[b], means[a] + m[b], variances[a] + v[b]};
+                }
+            }
+            Arrays.sort(comp, (x, y) -> Double.compare(x[1], y[1]));
+            List<double[]> list = new ArrayList<>(Arrays.asList(comp));
+            while (list.size() > maxComponents) {
+                int best = 0;
+                double bestCost = Double.POSITIVE_INFINITY;
+                for (int i = 0; i + 1 < list.size(); i++) {
+                    double cost = mergeCost(list.get(i), list.get(i + 1));
+                    if (cost < bestCost) {
+                        bestCost = cost;
+                        best = i;
+                    }
+                }
+                list.set(best, merge(list.get(best), list.get(best + 1)));
+                list.remove(best + 1);
+            }
+            double[] cw = new double[list.size()];
+            double[] cm = new double[list.size()];
+            double[] cv = new double[list.size()];
+            double sum = 0;
+            for (int c = 0; c < cw.length; c++) {
+                sum += list.get(c)[0];
+            }
+            for (int c = 0; c < cw.length; c++) {
+                cw[c] = list.get(c)[0] / sum;
+                cm[c] = list.get(c)[1];
+                cv[c] = list.get(c)[2];
+            }
+            return new Mixture(cw, cm, cv);
+        }
+
+        /** The moment-preserving merge of two components {weight, mean, variance}. */
+        private static double[] merge(double[] x, double[] y) {
+            double w = x[0] + y[0];
+            if (!(w > 0)) {
+                return new double[] {0, (x[1] + y[1]) / 2, Math.max(x[2], y[2])};
+            }
+            double mean = (x[0] * x[1] + y[0] * y[1]) / w;
+            double var = (x[0] * x[2] + y[0] * y[2]) / w + x[0] * y[0] * (x[1] - y[1]) * (x[1] - y[1]) / (w * w);
+            return new double[] {w, mean, var};
+        }
+
+        /** Runnalls' cost B(i, j) of merging two components, variances floored at 1. */
+        private static double mergeCost(double[] x, double[] y) {
+            double w = x[0] + y[0];
+            if (!(w > 0)) {
+                return 0;
+            }
+            double merged = Math.max(1, merge(x, y)[2]);
+            return 0.5 * (w * Math.log(merged) - x[0] * Math.log(Math.max(1, x[2]))
+                    - y[0] * Math.log(Math.max(1, y[2])));
         }
 
         /** Number of components. */

@@ -31,8 +31,8 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
     }
 
     @Override
-    public List<String> leadingWarnings() {
-        return List.of(PreviewPlanner.WARNING);
+    public List<String> leadingWarnings(double largestDeviationBits) {
+        return List.of(PreviewPlanner.warning(largestDeviationBits));
     }
 
     @Override
@@ -129,7 +129,8 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
         int top2 = -1;
         // the strongest on/off terms at this receiver, strongest first (one more than a link may use,
         // since a link's own current symbol is its signal, not a term)
-        List<Term> strongest = new ArrayList<>(strongMax + 2);
+        List<Term> strongest = new ArrayList<>(MAX_TERMS + 2);
+        double band = 0;
         for (int i = 0; i < n; i++) {
             ChannelEntry e = entries.get(i);
             levels[i] = LinkContext.levelsOf(sig, nodes.get(e.emitter()).moleculesPerSymbol());
@@ -146,13 +147,13 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
             double spread = spreadOf(levels[i], w);
             for (int k = 0; k < taps[i].length; k++) {
                 double sv = taps[i][k] * taps[i][k] * spread;
-                if (sv > 0 && (strongest.size() <= strongMax || sv > strongest.get(strongMax).spreadVar())) {
+                if (sv > 0 && (strongest.size() <= MAX_TERMS || sv > strongest.get(MAX_TERMS).spreadVar())) {
                     int at = strongest.size();
                     while (at > 0 && strongest.get(at - 1).spreadVar() < sv) {
                         at--;
                     }
                     strongest.add(at, new Term(i, k, sv));
-                    if (strongest.size() > strongMax + 1) {
+                    if (strongest.size() > MAX_TERMS + 1) {
                         strongest.remove(strongest.size() - 1);
                     }
                 }
@@ -181,7 +182,7 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
             List<double[][]> isiTerms = new ArrayList<>();
             List<double[][]> xtTerms = new ArrayList<>();
             for (Term t : strongest) {
-                if ((t.emitter() == i && t.tap() == 0) || isiTerms.size() + xtTerms.size() == strongMax
+                if ((t.emitter() == i && t.tap() == 0) || isiTerms.size() + xtTerms.size() == MAX_TERMS
                         || t.spreadVar() < STRONG_FRACTION * sharedVar) {
                     continue;
                 }
@@ -216,6 +217,7 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
             if (c < options.capacityFloorBits()) {
                 continue;
             }
+            band = PreviewDeviation.bandBits(m);
             // the what-ifs use the plain normal law (no mixture) and compare with its own baseline, as
             // the exact plan's what-ifs use the Gaussian count model: a search, not the reported value
             NormalLinkApproximation.Mixture none = NormalLinkApproximation.Mixture.NONE;
@@ -242,11 +244,14 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
                     null, null));
             evaluatedCapacity.put(new LinkKey(e.emitter(), e.receiver()), c);
         }
-        return new ReceiverLinks(out, evaluatedCapacity);
+        return new ReceiverLinks(out, evaluatedCapacity, band);
     }
 
+    /** Most on/off terms a link keeps apart (the mixture is reduced to {@link NormalLinkApproximation#MAX_COMPONENTS} as they are added). */
+    static final int MAX_TERMS = 24;
+
     /** A term is kept apart as a mixture when its spread variance is at least this share of the link's shared variance. */
-    static final double STRONG_FRACTION = 0.01;
+    static final double STRONG_FRACTION = 0.001;
 
     private static double spreadOf(long[] levels, double[] w) {
         double a = 0;
@@ -280,10 +285,10 @@ final class NormalReceiverEvaluator implements ReceiverEvaluator {
     private static NormalLinkApproximation.Mixture mixture(List<double[][]> first, List<double[][]> second) {
         NormalLinkApproximation.Mixture mix = NormalLinkApproximation.Mixture.NONE;
         for (double[][] c : first) {
-            mix = mix.plus(c[0], c[1], c[2]);
+            mix = mix.plusReduced(c[0], c[1], c[2], NormalLinkApproximation.MAX_COMPONENTS);
         }
         for (double[][] c : second) {
-            mix = mix.plus(c[0], c[1], c[2]);
+            mix = mix.plusReduced(c[0], c[1], c[2], NormalLinkApproximation.MAX_COMPONENTS);
         }
         return mix;
     }

@@ -220,7 +220,11 @@ final class PlanPipeline {
         PlanOptions options = in.options();
         DoubleConsumer progress = complete ? options.progress() : f -> { };
         Signalling sig = scenario.signalling();
-        List<String> warnings = new ArrayList<>(evaluator.leadingWarnings());
+        double deviation = 0;
+        for (ReceiverLinks links : byReceiver.values()) {
+            deviation = Math.max(deviation, links.deviationBits());
+        }
+        List<String> warnings = new ArrayList<>(evaluator.leadingWarnings(deviation));
         warnings.addAll(channel.notes());
         addScheduleWarnings(in, warnings);
 

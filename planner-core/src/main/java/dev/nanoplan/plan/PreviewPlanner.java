@@ -62,7 +62,7 @@ import dev.nanoplan.scenario.Schedule;
  */
 public final class PreviewPlanner {
 
-    /** First warning of every preview plan. */
+    /** First warning of every preview plan (followed by the stated deviation, {@link #warning}). */
     public static final String WARNING = "preview: normal approximation of the counts; no budgets or advice yet "
             + "- the exact plan follows";
     /** Advice of a reachable route in a preview. */
@@ -71,9 +71,36 @@ public final class PreviewPlanner {
     private PreviewPlanner() {
     }
 
-    /** Whether the plan came from {@link #plan} (its first warning is {@link #WARNING}). */
+    /** Whether the plan came from {@link #plan} (its first warning starts with {@link #WARNING}). */
     public static boolean isPreview(Plan plan) {
-        return !plan.warnings().isEmpty() && plan.warnings().get(0).equals(WARNING);
+        return !plan.warnings().isEmpty() && plan.warnings().get(0).startsWith(WARNING);
+    }
+
+    /**
+     * The first warning of a preview whose links may differ from the exact plan by up to
+     * {@code largestDeviationBits} in operating mutual information ({@link PreviewDeviation}).
+     */
+    static String warning(double largestDeviationBits) {
+        return WARNING + WITHIN + largestDeviationBits + " bit of the exact plan (operating mutual information)";
+    }
+
+    private static final String WITHIN = "; each link within ";
+
+    /**
+     * The stated largest deviation of a preview plan, bits (0 when the preview states none, or for an
+     * exact plan): parsed back from its first warning.
+     */
+    public static double deviationBits(Plan plan) {
+        if (!isPreview(plan)) {
+            return 0;
+        }
+        String w = plan.warnings().get(0);
+        int at = w.indexOf(WITHIN);
+        if (at < 0) {
+            return 0;
+        }
+        String rest = w.substring(at + WITHIN.length());
+        return Double.parseDouble(rest.substring(0, rest.indexOf(' ')));
     }
 
     /**

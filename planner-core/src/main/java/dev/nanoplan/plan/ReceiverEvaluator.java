@@ -30,8 +30,12 @@ interface ReceiverEvaluator {
      */
     ReceiverLinks evaluate(PlanInputs in, List<ChannelEntry> entries);
 
-    /** Warnings a plan starts with (before the channel's notes). */
-    List<String> leadingWarnings();
+    /**
+     * Warnings a plan starts with (before the channel's notes).
+     *
+     * @param largestDeviationBits the largest {@link ReceiverLinks#deviationBits()} of the plan's receivers
+     */
+    List<String> leadingWarnings(double largestDeviationBits);
 
     /**
      * The advice of a reachable route whose weakest hop is {@code weakest}, as the route is assembled;

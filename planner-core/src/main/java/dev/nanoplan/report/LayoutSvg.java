@@ -91,15 +91,11 @@ public final class LayoutSvg {
     /** Node ids are written when the layout has at most this many nodes. */
     public static final int LABEL_LIMIT = 40;
     /** Colour of route hops. */
-    public static final String ROUTE_COLOUR = "#d7263d";
+    public static final String ROUTE_COLOUR = Palette.ROUTE;
     /** Node colours, by species in the scenario's order (repeating). */
     public static final List<String> SPECIES_COLOURS =
             List.of("#2d2a32", "#7b4fa0", "#b8660b", "#11806a", "#3a6fb0", "#8a8f99");
 
-    /** Capacity ramp stops: fraction of the full scale → colour (our own light-sand to deep-blue ramp). */
-    private static final double[] RAMP_AT = {0.0, 0.25, 0.5, 0.75, 1.0};
-    private static final int[][] RAMP_RGB = {
-        {0xe6, 0xe1, 0xd3}, {0xd4, 0xb4, 0x6a}, {0x7f, 0xa8, 0x6e}, {0x2f, 0x86, 0x8f}, {0x1c, 0x32, 0x6b}};
 
     private LayoutSvg() {
     }
@@ -276,26 +272,9 @@ public final class LayoutSvg {
         return sb.toString();
     }
 
-    /**
-     * The capacity colour: our ramp from light sand (0) through ochre, sage and teal to deep blue
-     * (1), linear in sRGB between the stops. Fractions outside [0, 1] are clamped; NaN gives the
-     * colour of 0.
-     *
-     * @param fraction capacity as a fraction of the full scale (bits / log2 levels)
-     * @return {@code #rrggbb}
-     */
+    /** The capacity colour of the desktop and the report ({@link Palette#capacity}); NaN gives the colour of 0. */
     public static String capacityColour(double fraction) {
-        double f = Double.isNaN(fraction) ? 0 : Math.max(0, Math.min(1, fraction));
-        int i = 0;
-        while (i < RAMP_AT.length - 2 && f > RAMP_AT[i + 1]) {
-            i++;
-        }
-        double w = (f - RAMP_AT[i]) / (RAMP_AT[i + 1] - RAMP_AT[i]);
-        int[] c = new int[3];
-        for (int k = 0; k < 3; k++) {
-            c[k] = (int) Math.round(RAMP_RGB[i][k] + w * (RAMP_RGB[i + 1][k] - RAMP_RGB[i][k]));
-        }
-        return String.format(Locale.ROOT, "#%02x%02x%02x", c[0], c[1], c[2]);
+        return Palette.capacity(Double.isNaN(fraction) ? 0 : fraction);
     }
 
     /** The nodes' colour: the species' place in the scenario, cycling through {@link #SPECIES_COLOURS}. */

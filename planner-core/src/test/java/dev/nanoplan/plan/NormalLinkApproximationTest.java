@@ -2,9 +2,11 @@ package dev.nanoplan.plan;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.offset;
 
 import dev.nanoplan.info.BinaryChannel;
 import java.util.stream.IntStream;
+import java.util.stream.LongStream;
 import java.util.stream.Stream;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
@@ -38,10 +40,10 @@ class NormalLinkApproximationTest {
             long tau = Math.max(0, Math.round(mean + (rng.nextDouble() * 8 - 4) * sd));
             double reference = tau == 0 ? 1 : exact.survivalProbability((int) tau - 1);
             assertThat(NormalLinkApproximation.upperTail(mean, sd * sd, tau)).as("n=%d p=%g tau=%d", n, p, tau)
-                    .isCloseTo(reference, org.assertj.core.data.Offset.offset(bound));
+                    .isCloseTo(reference, offset(bound));
             double lower = tau == 0 ? 0 : exact.cumulativeProbability((int) tau - 1);
             assertThat(NormalLinkApproximation.lowerTail(mean, sd * sd, tau))
-                    .isCloseTo(lower, org.assertj.core.data.Offset.offset(bound));
+                    .isCloseTo(lower, offset(bound));
         }
     }
 
@@ -72,7 +74,7 @@ class NormalLinkApproximationTest {
                 new double[] {n0 * p * (1 - p), n1 * p * (1 - p)}, 0.5).capacityBits();
         // tolerance 0.012 bit: ours, about 2× the largest difference measured over these 40 draws (0.0055)
         assertThat(normal).as("n0=%d n1=%d p=%g exact %f", n0, n1, p, exact)
-                .isCloseTo(exact, org.assertj.core.data.Offset.offset(0.012));
+                .isCloseTo(exact, offset(0.012));
     }
 
     /**
@@ -132,7 +134,7 @@ class NormalLinkApproximationTest {
                 .isLessThanOrEqualTo(Math.abs(single - exact));
         // tolerance 0.012 bit: ours, about 2× the largest mixture difference measured over these draws
         // (0.0058; one normal law was off by 0.22 to 0.31 bit on every draw)
-        assertThat(mixture).isCloseTo(exact, org.assertj.core.data.Offset.offset(0.012));
+        assertThat(mixture).isCloseTo(exact, offset(0.012));
     }
 
     @ParameterizedTest
@@ -163,7 +165,7 @@ class NormalLinkApproximationTest {
         for (double z : new double[] {0.5, 2, 10, 30}) {
             double viaExp = Math.log(NormalLinkApproximation.upperTail(0, 1, Math.round(z + 0.5)));
             assertThat(NormalLinkApproximation.logUpperTail(0, 1, Math.round(z + 0.5))).isCloseTo(viaExp,
-                    org.assertj.core.data.Offset.offset(1e-12 * Math.max(1, Math.abs(viaExp))));
+                    offset(1e-12 * Math.max(1, Math.abs(viaExp))));
         }
         for (double z : new double[] {40, 100, 1e3, 1e5}) {
             long tau = Math.round(z + 0.5); // (τ − ½ − 0)/1 = z
@@ -173,14 +175,14 @@ class NormalLinkApproximationTest {
             double ref = -x * x / 2 - Math.log(x * Math.sqrt(2 * Math.PI))
                     + Math.log1p(-1 / (x * x) + 3 / Math.pow(x, 4) - 15 / Math.pow(x, 6));
             assertThat(NormalLinkApproximation.logUpperTail(0, 1, tau)).isCloseTo(ref,
-                    org.assertj.core.data.Offset.offset(1e-9 * Math.abs(ref)));
+                    offset(1e-9 * Math.abs(ref)));
         }
         // a near-perfect link: the minimum error underflows but its log is finite and matches the tail
         NormalLinkApproximation.Result r = NormalLinkApproximation.evaluate(new double[] {0, 2000},
                 new double[] {25, 2000}, 0.5);
         assertThat(r.minErrorProbability()).isZero();
         assertThat(r.log10ErrorProbability()).isFinite().isLessThan(-300);
-        assertThat(r.capacityBits()).isCloseTo(1.0, org.assertj.core.data.Offset.offset(1e-12));
+        assertThat(r.capacityBits()).isCloseTo(1.0, offset(1e-12));
     }
 
     @Test
@@ -193,5 +195,48 @@ class NormalLinkApproximationTest {
                 .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("priorOne");
         assertThatThrownBy(() -> new NormalLinkApproximation.Mixture(new double[] {0.5}, new double[] {0},
                 new double[] {0})).isInstanceOf(IllegalArgumentException.class).hasMessageContaining("sum to 1");
+    }
+
+    @ParameterizedTest
+    @MethodSource("mixtureSeeds")
+    void aReducedMixtureKeepsTheMeanAndVarianceOfTheFullProductAndItsComponentLimit(long seed) {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+        NormalLinkApproximation.Mixture full = NormalLinkApproximation.Mixture.NONE;
+        NormalLinkApproximation.Mixture reduced = NormalLinkApproximation.Mixture.NONE;
+        double mean = 0;
+        double variance = 0;
+        for (int t = 0; t < 8; t++) {
+            double q = 0.02 + 0.5 * rng.nextDouble();
+            double on = 1 + 500 * rng.nextDouble();
+            double[] w = {1 - q, q};
+            double[] m = {0, on};
+            double[] v = {0, on * rng.nextDouble()};
+            // independent sums: means and variances add; each term by the law of total variance
+            mean += q * on;
+            variance += q * v[1] + q * (1 - q) * on * on;
+            reduced = reduced.plusReduced(w, m, v, NormalLinkApproximation.MAX_COMPONENTS);
+            if (t < 4) {
+                full = full.plus(w, m, v);
+            }
+        }
+        assertThat(reduced.size()).isLessThanOrEqualTo(NormalLinkApproximation.MAX_COMPONENTS);
+        // moment-preserving merges (Runnalls 2007, Salmond 1990): brute-force sum of the terms' moments
+        assertThat(reduced.mean()).isCloseTo(mean, offset(1e-9 * (1 + mean)));
+        assertThat(reduced.variance()).isCloseTo(variance, offset(1e-9 * (1 + variance)));
+        // four terms fit in 16 components: no merge, the reduced mixture equals the full product (sorted by mean)
+        NormalLinkApproximation.Mixture four = NormalLinkApproximation.Mixture.NONE;
+        UniformRandomProvider again = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+        for (int t = 0; t < 4; t++) {
+            double q = 0.02 + 0.5 * again.nextDouble();
+            double on = 1 + 500 * again.nextDouble();
+            four = four.plusReduced(new double[] {1 - q, q}, new double[] {0, on}, new double[] {0, on * again.nextDouble()},
+                    NormalLinkApproximation.MAX_COMPONENTS);
+        }
+        assertThat(four.size()).isEqualTo(full.size());
+        assertThat(four.variance()).isCloseTo(full.variance(), offset(1e-9 * (1 + full.variance())));
+    }
+
+    static LongStream mixtureSeeds() {
+        return LongStream.of(1, 2, 3, 5, 8);
     }
 }

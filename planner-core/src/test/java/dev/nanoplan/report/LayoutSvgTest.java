@@ -8,6 +8,7 @@ import dev.nanoplan.geometry.Volume;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.scenario.Medium;
 import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.Signalling;
 import dev.nanoplan.scenario.Species;
@@ -104,12 +105,24 @@ class LayoutSvgTest {
     }
 
     @Test
-    void colourRampHitsItsEndsAndClamps() {
-        assertThat(LayoutSvg.capacityColour(0)).isEqualTo("#e6e1d3");
-        assertThat(LayoutSvg.capacityColour(1)).isEqualTo("#1c326b");
-        assertThat(LayoutSvg.capacityColour(7)).isEqualTo("#1c326b");
-        assertThat(LayoutSvg.capacityColour(Double.NaN)).isEqualTo("#e6e1d3");
-        assertThat(LayoutSvg.capacityColour(0.5)).isEqualTo("#7fa86e");
+    void colourRampIsViridisAndClamps() {
+        // matplotlib's viridis listed map (van der Walt and Smith 2015): index 0 (0.267, 0.005, 0.329),
+        // 128 of 256 (0.128, 0.567, 0.551) and 255 (0.993, 0.906, 0.144), as #rrggbb
+        assertThat(LayoutSvg.capacityColour(0)).isEqualTo("#440154");
+        assertThat(LayoutSvg.capacityColour(0.5)).isEqualTo("#21918c");
+        assertThat(LayoutSvg.capacityColour(1)).isEqualTo("#fde725");
+        assertThat(LayoutSvg.capacityColour(7)).isEqualTo("#fde725");
+        assertThat(LayoutSvg.capacityColour(Double.NaN)).isEqualTo("#440154");
+    }
+
+    @Test
+    void roleAndRouteColoursAreOkabeIto() {
+        // M. Okabe and K. Ito, "Color Universal Design", 2008: sky blue (86,180,233), orange (230,159,0),
+        // reddish purple (204,121,167), vermilion (213,94,0)
+        assertThat(Palette.role(Role.TRANSMITTER)).isEqualTo("#56b4e9");
+        assertThat(Palette.role(Role.RECEIVER)).isEqualTo("#e69f00");
+        assertThat(Palette.role(Role.RELAY)).isEqualTo("#cc79a7");
+        assertThat(LayoutSvg.ROUTE_COLOUR).isEqualTo("#d55e00");
     }
 
     @Test

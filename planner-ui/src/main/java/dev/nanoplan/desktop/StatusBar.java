@@ -1,6 +1,8 @@
 package dev.nanoplan.desktop;
 
+import dev.nanoplan.plan.PreviewPlanner;
 import dev.nanoplan.report.Cautions;
+import dev.nanoplan.report.Numbers;
 import javafx.beans.binding.Bindings;
 import javafx.geometry.Insets;
 import javafx.scene.control.Label;
@@ -34,7 +36,14 @@ final class StatusBar {
                     + vm.tables().routes().size() + " routes";
         }, vm.scenarioProperty(), vm.tables().links(), vm.tables().routes()));
         // a preview (normal approximation) is on screen until the exact plan replaces it
-        Label preview = new Label("preview — exact plan running");
+        Label preview = new Label();
+        // the band the preview states (PreviewPlanner.deviationBits), checked against the exact plan in the core's tests
+        preview.textProperty().bind(Bindings.createStringBinding(() -> {
+            var p = vm.tables().planProperty().get();
+            double band = p == null ? 0 : PreviewPlanner.deviationBits(p);
+            return band > 0 ? "preview (each link within ±" + Numbers.bits(band) + " bit) — exact plan running"
+                    : "preview — exact plan running";
+        }, vm.tables().planProperty()));
         preview.setId("preview-badge");
         preview.getStyleClass().add("preview-badge");
         preview.setTooltip(new Tooltip("Links and routes from the normal approximation of the counts; "
