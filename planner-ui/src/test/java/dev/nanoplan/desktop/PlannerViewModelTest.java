@@ -219,7 +219,8 @@ class PlannerViewModelTest {
         // every intermediate layout passed planner-core's validation: re-check the last one
         Scenario last = vm.scenarioProperty().get();
         assertThat(new Scenario(last.name(), last.volume(), last.medium(), last.species(), last.signalling(),
-                last.nodes(), last.demands(), last.targets())).isEqualTo(last);
+                last.nodes(), last.demands(), last.targets(), last.candidateSpecies(), last.tolerances()))
+                .isEqualTo(last);
     }
 
     @Test
