@@ -56,7 +56,7 @@ final class ChannelOptions {
     Integer threads;
 
     @Option(names = "--cache-dir", paramLabel = "DIR",
-            description = "Simulated channel cache (default $NANOPLAN_CACHE_DIR, else ~/.cache/nanoplan/channels).")
+            description = "Simulated channel cache (default: $NANOPLAN_CACHE_DIR, else .cache/nanoplan/channels in your home).")
     Path cacheDir;
 
     @Option(names = "--progress", description = "Draw the simulation progress bar even when stderr is not a terminal.")
