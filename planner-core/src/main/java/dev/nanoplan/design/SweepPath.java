@@ -3,6 +3,7 @@ package dev.nanoplan.design;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.DoubleNode;
+import com.fasterxml.jackson.databind.node.IntNode;
 import com.fasterxml.jackson.databind.node.LongNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.Serializable;
@@ -89,7 +90,8 @@ public record SweepPath(String text) implements Serializable {
         Object last = steps.get(steps.size() - 1);
         // a whole number stays a whole number where the file has one (counts such as molecules_per_symbol)
         JsonNode v = node.isIntegralNumber() && value == Math.rint(value) && Math.abs(value) < 1e15
-                ? LongNode.valueOf((long) value) : DoubleNode.valueOf(value);
+                ? (Math.abs(value) <= Integer.MAX_VALUE ? IntNode.valueOf((int) value) : LongNode.valueOf((long) value))
+                : DoubleNode.valueOf(value);
         if (last instanceof Integer idx) {
             ((ArrayNode) parent).set(idx.intValue(), v);
         } else if (last instanceof String field) {
