@@ -45,9 +45,10 @@ public final class SweepCommand implements Callable<Integer> {
     Path scenarioFile;
 
     @Option(names = "--vary", paramLabel = "PATH=SPEC", required = true,
-            description = {"A field and its values, repeatable (the first --vary varies slowest). PATH: e.g. "
-                    + "signalling.symbol_time_s, nodes[relay-w].molecules_per_symbol, nodes[relay-w].position_um[0], "
-                    + "species[A].diffusion_um2_per_s. SPEC: a list a,b,c or a range start:stop:step."})
+            description = {"A field and its values, repeatable; the first --vary varies slowest.",
+                "PATH e.g. signalling.symbol_time_s, nodes[relay-w].molecules_per_symbol,",
+                "nodes[relay-w].position_um[0], species[A].diffusion_um2_per_s.",
+                "SPEC: a list a,b,c or a range start:stop:step."})
     List<String> vary;
 
     @Option(names = "--threads", description = "Worker threads of the local engine, default: the number of processors.")
