@@ -99,7 +99,7 @@ class CoreArchitectureTest {
                 .whereLayer("sim").mayOnlyAccessLayers(below("detect", "scenario", "network"))
                 .whereLayer("design").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan"))
                 .whereLayer("tolerance").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan"))
-                .whereLayer("report").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan", "sim",
+                .whereLayer("report").mayOnlyAccessLayers(below("detect", "scenario", "network", "plan", "sim", "design",
                         "tolerance"))
                 .because("each package uses only the layers below it (docs/architecture.md §3)")
                 .check(core);

@@ -3,6 +3,10 @@ package dev.nanoplan.spark;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
+import dev.nanoplan.design.SweepPath;
+import dev.nanoplan.design.SweepPoint;
+import dev.nanoplan.design.SweepPoints;
+import dev.nanoplan.design.SweepResult;
 import dev.nanoplan.engine.EngineUnavailableException;
 import dev.nanoplan.engine.LocalEngine;
 import dev.nanoplan.engine.UnitResults;
@@ -91,6 +95,27 @@ class SparkEngineTest {
         // oracle: the local engine on the same units, sample by sample, and the yields combined from them
         assertThat(spark.finished()).containsExactlyElementsOf(local.finished());
         assertThat(units.summary(spark).result(false)).isEqualTo(units.summary(local).result(false));
+    }
+
+    @Test
+    void aSmallSweepGivesTheLocalEnginesPoints() throws Exception {
+        Path dir = Path.of("").toAbsolutePath();
+        while (!Files.isDirectory(dir.resolve("scenarios"))) {
+            dir = dir.getParent();
+        }
+        SweepPoints units = new SweepPoints(Files.readString(dir.resolve("scenarios/relay-chain-relayed.json")),
+                List.of(SweepPath.parse("signalling.symbol_time_s"), SweepPath.parse("nodes[relay1].molecules_per_symbol")),
+                List.of(List.of(4.0, 6.0), List.of(10000.0, 30000.0)));
+        UnitResults<SweepPoint> local = new LocalEngine(2).run(units);
+        UnitResults<SweepPoint> spark;
+        try (SparkEngine engine = SparkEngine.over(context, NOTES::add)) {
+            spark = engine.run(units);
+        }
+        // oracle: the local engine on the same units, point by point, and the same Pareto marks
+        assertThat(spark.complete()).isTrue();
+        assertThat(spark.finished()).containsExactlyElementsOf(local.finished());
+        List<String> fields = List.of("signalling.symbol_time_s", "nodes[relay1].molecules_per_symbol");
+        assertThat(SweepResult.of(fields, spark.finished())).isEqualTo(SweepResult.of(fields, local.finished()));
     }
 
     @Test

@@ -10,7 +10,7 @@ import picocli.CommandLine.Command;
         versionProvider = ManifestVersion.class,
         description = "Plans networks of nanomachines that talk by releasing molecules into a fluid.",
         subcommands = {LinkCommand.class, PlanCommand.class, SlotsCommand.class, ImproveCommand.class, CompareCommand.class,
-            ValidateCommand.class, SimulateCommand.class, ToleranceCommand.class,
+            ValidateCommand.class, SimulateCommand.class, ToleranceCommand.class, SweepCommand.class,
             UiCommand.class, CommandLine.HelpCommand.class})
 public final class NanoplanCommand implements Runnable {
 
