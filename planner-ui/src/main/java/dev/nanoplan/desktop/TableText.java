@@ -4,7 +4,6 @@ import dev.nanoplan.plan.BudgetReport;
 import dev.nanoplan.plan.Impairment;
 import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.scenario.Role;
-import java.util.Locale;
 
 /**
  * The words and cell texts of the plan tables: roles and impairments in words, numbers through
@@ -34,7 +33,7 @@ final class TableText {
 
     /** A role in words: "transmitter", "receiver", "relay". */
     static String role(Role r) {
-        return r.name().toLowerCase(Locale.ROOT);
+        return r.id();
     }
 
     /** What limits a link, in words (empty when nothing is named). */
@@ -55,22 +54,26 @@ final class TableText {
         return v == null || !Double.isFinite(v) ? Cell.notApplicable(why) : Cell.of(Formats.sig(v));
     }
 
+    private static Cell molecules(double v, String why) {
+        return Double.isFinite(v) ? Cell.of(Formats.molecules(v)) : Cell.notApplicable(why);
+    }
+
     /** Molecules per symbol a node needs: not applicable (with the budget's reason) when there is no budget. */
     static Cell moleculesPerSymbol(BudgetReport b) {
         return b.moleculesPerSymbolNeeded() < 0 ? Cell.notApplicable(noBudget(b))
-                : Cell.of(Formats.sig(b.moleculesPerSymbolNeeded()));
+                : Cell.of(Formats.count(b.moleculesPerSymbolNeeded()));
     }
 
     /** Molecules per second at the needed budget: not applicable when there is no budget. */
     static Cell moleculesPerS(BudgetReport b) {
         return b.moleculesPerSymbolNeeded() < 0 || b.moleculesPerS() < 0 ? Cell.notApplicable(noBudget(b))
-                : number(b.moleculesPerS(), noBudget(b));
+                : molecules(b.moleculesPerS(), noBudget(b));
     }
 
     /** Molecules over the mission at the needed budget: not applicable when there is no budget. */
     static Cell moleculesPerMission(BudgetReport b) {
         return b.moleculesPerSymbolNeeded() < 0 || b.moleculesPerMission() < 0 ? Cell.notApplicable(noBudget(b))
-                : number(b.moleculesPerMission(), "the mission duration is not finite");
+                : molecules(b.moleculesPerMission(), "not applicable: the mission duration is not finite");
     }
 
     /** A route's latency: not applicable when the route is unreachable. */
