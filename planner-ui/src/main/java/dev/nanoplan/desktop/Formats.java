@@ -26,6 +26,16 @@ final class Formats {
         return Numbers.errorProbability(p, log10);
     }
 
+    /** Molecules per second or per mission in the reports' {@link Numbers#molecules} format ("8,133"). */
+    static String molecules(double v) {
+        return Numbers.molecules(v);
+    }
+
+    /** A whole count (molecules per symbol) in the reports' {@link Numbers#count} format ("2,440"). */
+    static String count(long n) {
+        return Numbers.count(n);
+    }
+
     /** Two significant digits: a rough size (work estimates). */
     static String twoDigits(double v) {
         return String.format(Locale.ROOT, "%.2g", v);

@@ -6,6 +6,7 @@ import static dev.nanoplan.desktop.Widgets.field;
 import dev.nanoplan.plan.RouteReport;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
+import java.util.Locale;
 import javafx.beans.property.ObjectProperty;
 import javafx.geometry.Insets;
 import javafx.geometry.Pos;
@@ -19,6 +20,7 @@ import javafx.scene.layout.GridPane;
 import javafx.scene.layout.HBox;
 import javafx.scene.layout.Region;
 import javafx.scene.layout.VBox;
+import javafx.util.StringConverter;
 
 /**
  * The inspector on the left of the window (a View): the selected node's fields bound to the
@@ -51,6 +53,17 @@ final class InspectorPane {
         TextField id = field(in.idProperty());
         ChoiceBox<Role> role = new ChoiceBox<>();
         role.getItems().addAll(Role.values());
+        role.setConverter(new StringConverter<>() {
+            @Override
+            public String toString(Role r) {
+                return r == null ? "" : TableText.role(r);
+            }
+
+            @Override
+            public Role fromString(String s) {
+                return Role.valueOf(s.toUpperCase(Locale.ROOT));
+            }
+        });
         role.valueProperty().bindBidirectional(in.roleProperty());
         g.addRow(row++, new Label("id"), id);
         g.addRow(row++, new Label("role"), role);

@@ -20,6 +20,9 @@ final class LayoutGeometry {
     /** The 26 unit directions to the neighbours of a cell in a 3 × 3 × 3 grid, after {@link Vec3#ZERO}. */
     private static final List<Vec3> DIRECTIONS = directions();
 
+    /** Margin around the nodes' box, as a fraction of its half-diagonal. */
+    static final double NODES_MARGIN = 0.15;
+
     private LayoutGeometry() {
     }
 
@@ -66,8 +69,20 @@ final class LayoutGeometry {
     }
 
     /**
+     * The frame the 3D view opens on and "Fit" returns to: the bounding box of the nodes' spheres
+     * grown by {@link #NODES_MARGIN} on every side (at least 1 µm), whatever the volume around them.
+     */
+    static Frame nodesFrame(Volume v, List<Node> nodes) {
+        if (nodes.isEmpty()) {
+            return frame(v, nodes);
+        }
+        Frame f = frame(new Volume.Open(), nodes);
+        return new Frame(f.centreUm(), f.extentUm() * (1 + NODES_MARGIN));
+    }
+
+    /**
      * The frame of the volume (box corners, or the cylinder's bounding box) and of every node's
-     * sphere together; an open medium is framed by its nodes alone.
+     * sphere together; an open medium is framed by its nodes alone. The "Volume" preset looks at it.
      */
     static Frame frame(Volume v, List<Node> nodes) {
         double[] lo = {Double.MAX_VALUE, Double.MAX_VALUE, Double.MAX_VALUE};

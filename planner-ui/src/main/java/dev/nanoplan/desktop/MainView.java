@@ -21,6 +21,7 @@ import javafx.scene.control.TabPane;
 import javafx.scene.control.TableView;
 import javafx.scene.control.ToggleButton;
 import javafx.scene.control.ToolBar;
+import javafx.scene.control.Tooltip;
 import javafx.scene.layout.BorderPane;
 import javafx.scene.layout.Region;
 import javafx.scene.layout.StackPane;
@@ -141,7 +142,11 @@ public final class MainView {
         undo.disableProperty().bind(vm.document().undoStack().canUndoProperty().not());
         Button redo = button("Redo", "Redo (Ctrl+Y)", vm::redo);
         redo.disableProperty().bind(vm.document().undoStack().canRedoProperty().not());
-        Button fit = button("Fit", "Fit the layout in view (F)", sceneView::fit);
+        Button fit = button("Fit", "Fit the nodes in view (F)", sceneView::fit);
+        Button volume = button("Volume", "Show the whole volume (V)", () -> sceneView.preset(SceneView.Preset.VOLUME));
+        ToggleButton ids = new ToggleButton("Ids");
+        ids.setTooltip(new Tooltip("Show node ids (a label that would overlap another is left out)"));
+        ids.selectedProperty().bindBidirectional(sceneView.showLabelsProperty());
         Button front = button("Front", "Look along +y (1)", () -> sceneView.preset(SceneView.Preset.FRONT));
         Button side = button("Side", "Look along the x axis (2)", () -> sceneView.preset(SceneView.Preset.SIDE));
         Button top = button("Top", "Look down the z axis (3)", () -> sceneView.preset(SceneView.Preset.TOP));
@@ -157,8 +162,8 @@ public final class MainView {
             bar.getItems().addAll(button("Open…", "Open a scenario file", actions::open),
                     button("Save", "Save (atomic)", actions::save), new Separator(Orientation.VERTICAL));
         }
-        bar.getItems().addAll(undo, redo, new Separator(Orientation.VERTICAL), fit, persp, front, side, top,
-                routesOnly, new Separator(Orientation.VERTICAL), keep, cancel);
+        bar.getItems().addAll(undo, redo, new Separator(Orientation.VERTICAL), fit, volume, persp, front, side, top,
+                ids, routesOnly, new Separator(Orientation.VERTICAL), keep, cancel);
         return bar;
     }
 

@@ -1,5 +1,6 @@
 package dev.nanoplan.desktop;
 
+import javafx.beans.InvalidationListener;
 import javafx.geometry.Point3D;
 import javafx.scene.PerspectiveCamera;
 import javafx.scene.transform.Rotate;
@@ -26,6 +27,17 @@ public final class OrbitCamera {
         camera.setNearClip(0.5);
         camera.setFarClip(1e6);
         camera.getTransforms().addAll(target, yaw, pitch, back);
+    }
+
+    /** Calls {@code onChange} whenever the target, the orientation or the distance changes. */
+    public void addListener(Runnable onChange) {
+        InvalidationListener l = o -> onChange.run();
+        target.xProperty().addListener(l);
+        target.yProperty().addListener(l);
+        target.zProperty().addListener(l);
+        yaw.angleProperty().addListener(l);
+        pitch.angleProperty().addListener(l);
+        back.zProperty().addListener(l);
     }
 
     public PerspectiveCamera camera() {

@@ -1,5 +1,7 @@
 package dev.nanoplan.desktop;
 
+import static dev.nanoplan.desktop.Widgets.cell;
+import static dev.nanoplan.desktop.Widgets.fitColumns;
 import static dev.nanoplan.desktop.Widgets.number;
 import static dev.nanoplan.desktop.Widgets.numberText;
 import static dev.nanoplan.desktop.Widgets.text;
@@ -7,6 +9,7 @@ import static dev.nanoplan.desktop.Widgets.text;
 import dev.nanoplan.plan.BudgetReport;
 import dev.nanoplan.plan.LinkReport;
 import dev.nanoplan.plan.RouteReport;
+import dev.nanoplan.report.Numbers;
 import java.util.List;
 import javafx.collections.ListChangeListener;
 import javafx.css.PseudoClass;
@@ -63,16 +66,18 @@ final class PlanTablesView {
                 text("to", LinkReport::to),
                 text("species", LinkReport::species),
                 number("info bit", LinkReport::mutualInformationBits),
-                number("capacity bit", l -> l.capacityBits() == null ? Double.NaN : l.capacityBits()),
+                cell("capacity bit", l -> l.capacityBits() == null ? Double.NaN : l.capacityBits(),
+                        l -> TableText.number(l.capacityBits(), "not applicable: capacity not computed for this plan")),
                 number("rate bit/s", LinkReport::rateBitsPerS),
                 numberText("error", l -> l.errorProbability() > 0 ? l.errorProbability() : Math.pow(10, l.log10ErrorProbability()),
                         l -> Formats.error(l.errorProbability(), l.log10ErrorProbability())),
-                number("τ", l -> (double) l.threshold()),
-                text("limited by", l -> l.limitedBy() == null ? "" : l.limitedBy().id()),
+                numberText("τ", l -> (double) l.threshold(), l -> Numbers.threshold(l.threshold())),
+                text("limited by", l -> TableText.impairment(l.limitedBy())),
                 text("top interferer", l -> l.topInterferer() == null ? "" : l.topInterferer())));
         linkTable.setItems(vm.tables().links());
         linkTable.setPlaceholder(new Label("no links above the planner's capacity floor"));
         linkTable.setId("link-table");
+        fitColumns(linkTable);
         linkTable.getSelectionModel().selectedItemProperty().addListener((o, a, b) -> {
             if (!syncing && b != null) {
                 syncing = true;
@@ -116,14 +121,14 @@ final class PlanTablesView {
                 number("bottleneck bit", RouteReport::bottleneckCapacityBits),
                 text("bottleneck hop", r -> r.bottleneckFrom() == null ? "" : r.bottleneckFrom() + " → " + r.bottleneckTo()),
                 number("end-to-end bit", RouteReport::endToEndCapacityBits),
-                number("rate bit/s", RouteReport::rateBitsPerS),
-                number("shared bit/s", r -> {
-                    var sh = vm.tables().sharedRate(r);
-                    return sh == null ? Double.NaN : sh.rateBitsPerS();
-                }),
-                number("latency s", RouteReport::latencyS),
-                number("direct bit", r -> r.directCapacityBits() == null ? Double.NaN : r.directCapacityBits())));
+                cell("rate bit/s", RouteReport::rateBitsPerS, TableText::routeRate),
+                cell("shared bit/s", this::sharedRate, r -> r.reachable()
+                        ? TableText.number(sharedRate(r), "not applicable: no shared rate") : TableText.routeRate(r)),
+                cell("latency s", RouteReport::latencyS, TableText::latency),
+                cell("direct bit", r -> r.directCapacityBits() == null ? Double.NaN : r.directCapacityBits(),
+                        TableText::direct)));
         routeTable.setItems(vm.tables().routes());
+        fitColumns(routeTable);
         routeTable.setPlaceholder(new Label("no demands"));
         routeTable.getSelectionModel().selectedItemProperty().addListener((o, a, b) -> {
             if (b != null) {
@@ -133,13 +138,19 @@ final class PlanTablesView {
 
         budgetTable.getColumns().addAll(List.of(
                 text("node", BudgetReport::node),
-                number("needed molecules/symbol", b -> (double) b.moleculesPerSymbolNeeded()),
-                number("molecules/s", BudgetReport::moleculesPerS),
-                number("per mission", BudgetReport::moleculesPerMission),
+                cell("needed molecules/symbol", b -> (double) b.moleculesPerSymbolNeeded(), TableText::moleculesPerSymbol),
+                cell("molecules/s", BudgetReport::moleculesPerS, TableText::moleculesPerS),
+                cell("per mission", BudgetReport::moleculesPerMission, TableText::moleculesPerMission),
                 text("feasible", b -> b.feasible() ? "yes" : "no"),
                 text("reason", BudgetReport::reason)));
         budgetTable.setItems(vm.tables().budgets());
         budgetTable.setPlaceholder(new Label("no budgets"));
+        fitColumns(budgetTable);
+    }
+
+    private Double sharedRate(RouteReport r) {
+        var sh = vm.tables().sharedRate(r);
+        return sh == null ? Double.NaN : sh.rateBitsPerS();
     }
 
     private int indexOf(LinkReport l) {
@@ -174,6 +185,7 @@ final class PlanTablesView {
                 number("kept mol/bit", DemandComparison::baselineMolPerBit),
                 number("now mol/bit", DemandComparison::molPerBit)));
         t.setPlaceholder(new Label("Press \"Keep for compare\", edit the layout, and compare here."));
+        fitColumns(t);
         return t;
     }
 }

@@ -103,6 +103,7 @@ final class SceneControls {
                 case DIGIT1, NUMPAD1 -> view.preset(SceneView.Preset.FRONT);
                 case DIGIT2, NUMPAD2 -> view.preset(SceneView.Preset.SIDE);
                 case DIGIT3, NUMPAD3 -> view.preset(SceneView.Preset.TOP);
+                case V -> view.preset(SceneView.Preset.VOLUME);
                 default -> {
                     return;
                 }

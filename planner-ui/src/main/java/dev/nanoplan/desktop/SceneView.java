@@ -10,9 +10,11 @@ import java.util.Collections;
 import java.util.HashMap;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import javafx.application.Platform;
+import javafx.beans.property.BooleanProperty;
 import javafx.beans.property.ObjectProperty;
 import javafx.beans.property.SimpleObjectProperty;
 import javafx.geometry.Point3D;
@@ -21,6 +23,7 @@ import javafx.scene.Group;
 import javafx.scene.PointLight;
 import javafx.scene.SceneAntialiasing;
 import javafx.scene.SubScene;
+import javafx.scene.control.Label;
 import javafx.scene.layout.Pane;
 import javafx.scene.paint.Color;
 import javafx.scene.paint.PhongMaterial;
@@ -42,7 +45,10 @@ import javafx.scene.transform.Translate;
 public final class SceneView {
 
     /** Preset directions. */
-    public enum Preset { PERSPECTIVE, FRONT, SIDE, TOP }
+    public enum Preset { PERSPECTIVE, FRONT, SIDE, TOP, VOLUME }
+
+    /** Smallest on-screen diameter of a node, in pixels, at the camera target's depth. */
+    static final double MIN_NODE_DIAMETER_PX = 9;
 
     /** Plane a dragged node moves in (layout axes). */
     public enum DragPlane { XY, XZ, YZ }
@@ -58,14 +64,20 @@ public final class SceneView {
     private final Group linkGroup = new Group();
     private final Group routeGroup = new Group();
     private final Group nodeGroup = new Group();
+    private final NodeLabels labels;
     private final SubScene subScene;
     private final Pane host = new Pane();
     private final Map<String, Sphere> spheres = new LinkedHashMap<>();
     private final Map<String, Cylinder> linkShapes = new LinkedHashMap<>();
     private final Map<Integer, PhongMaterial> materials = new HashMap<>();
     private final ObjectProperty<DragPlane> dragPlane = new SimpleObjectProperty<>(DragPlane.XY);
+    /** The volume's and nodes' frame (outline thickness, the "Volume" preset). */
     private double extent = 100;
     private Point3D centre = Point3D.ZERO;
+    /** The nodes' frame (Fit and the opening view). */
+    private double nodesExtent = 100;
+    private Point3D nodesCentre = Point3D.ZERO;
+    private boolean framingVolume;
     private final SceneControls controls;
 
     public SceneView(PlannerViewModel vm) {
@@ -80,7 +92,14 @@ public final class SceneView {
         subScene.setFocusTraversable(true);
         subScene.widthProperty().bind(host.widthProperty());
         subScene.heightProperty().bind(host.heightProperty());
-        host.getChildren().add(subScene);
+        labels = new NodeLabels(orbit.camera());
+        labels.layer().prefWidthProperty().bind(host.widthProperty());
+        labels.layer().prefHeightProperty().bind(host.heightProperty());
+        host.getChildren().addAll(subScene, labels.layer());
+        orbit.addListener(this::cameraMoved);
+        host.widthProperty().addListener((o, a, b) -> cameraMoved());
+        host.heightProperty().addListener((o, a, b) -> cameraMoved());
+        labels.shownProperty().addListener((o, a, b) -> placeLabels());
         host.setMinSize(200, 150);
         host.getStyleClass().add("scene-host");
         host.widthProperty().addListener((o, a, b) -> refitIfUntouched());
@@ -132,6 +151,16 @@ public final class SceneView {
         return orbit;
     }
 
+    /** Whether node ids are drawn beside the nodes (decluttered). */
+    public BooleanProperty showLabelsProperty() {
+        return labels.shownProperty();
+    }
+
+    /** The id labels now shown, by node id (for tests). */
+    Map<String, Label> visibleLabels() {
+        return labels.visible();
+    }
+
     public ObjectProperty<DragPlane> dragPlaneProperty() {
         return dragPlane;
     }
@@ -148,16 +177,30 @@ public final class SceneView {
 
     private void refitIfUntouched() {
         if (!controls.userMovedCamera()) {
-            fit();
+            if (framingVolume) {
+                frameVolume();
+            } else {
+                fit();
+            }
         }
     }
 
-    /** Looks at the whole layout from the current direction. */
+    /** Looks at the nodes (their bounding box with a margin) from the current direction. */
     public void fit() {
-        orbit.fit(centre, extent, subScene.getWidth() / Math.max(1, subScene.getHeight()));
+        framingVolume = false;
+        orbit.fit(nodesCentre, nodesExtent, aspect());
     }
 
-    /** Turns the camera to a preset direction and fits. */
+    private void frameVolume() {
+        framingVolume = true;
+        orbit.fit(centre, extent, aspect());
+    }
+
+    private double aspect() {
+        return subScene.getWidth() / Math.max(1, subScene.getHeight());
+    }
+
+    /** Turns the camera to a preset direction and fits the nodes; VOLUME frames the whole volume in perspective. */
     public void preset(Preset p) {
         switch (p) {
             case FRONT -> orbit.orient(0, 0);
@@ -165,7 +208,40 @@ public final class SceneView {
             case TOP -> orbit.orient(0, -90);
             default -> orbit.orient(-30, -28);
         }
-        fit();
+        if (p == Preset.VOLUME) {
+            frameVolume();
+        } else {
+            fit();
+        }
+    }
+
+    // ------------------------------------------------------------------ size on screen and labels
+
+    private void placeLabels() {
+        labels.place(spheres);
+    }
+
+    private void cameraMoved() {
+        resizeSpheres();
+        placeLabels();
+    }
+
+    /**
+     * Draws every node at least {@link #MIN_NODE_DIAMETER_PX} across at the target's depth: a body
+     * smaller than that on screen is scaled up with the camera distance, a larger one keeps its size.
+     */
+    private void resizeSpheres() {
+        Scenario s = vm.scenarioProperty().get();
+        if (s == null) {
+            return;
+        }
+        double minR = MIN_NODE_DIAMETER_PX / 2 * orbit.worldPerPixel(subScene.getHeight());
+        for (Node n : s.nodes()) {
+            Sphere sp = spheres.get(n.id());
+            if (sp != null) {
+                sp.setRadius(Math.max(n.radiusUm(), minR));
+            }
+        }
     }
 
     private static Point3D fx(Vec3 v) {
@@ -210,6 +286,7 @@ public final class SceneView {
             sp.setTranslateY(p.getY());
             sp.setTranslateZ(p.getZ());
         }
+        placeLabels();
         return true;
     }
 
@@ -223,15 +300,15 @@ public final class SceneView {
         volumeGroup.getChildren().clear();
         nodeGroup.getChildren().clear();
         spheres.clear();
+        labels.rebuild(List.of());
         if (s == null) {
             return;
         }
         measure(s);
         PhongMaterial outline = new PhongMaterial(OUTLINE);
-        volumeGroup.getChildren().addAll(Shapes3D.outline(s.volume(), layout(centre), extent, outline));
-        double minR = extent * 0.007;
+        volumeGroup.getChildren().addAll(Shapes3D.outline(s.volume(), layout(nodesCentre), nodesExtent, outline));
         for (Node n : s.nodes()) {
-            Sphere sp = new Sphere(Math.max(n.radiusUm(), minR), 24);
+            Sphere sp = new Sphere(n.radiusUm(), 24);
             Color c = CapacityColours.role(n.role());
             PhongMaterial m = new PhongMaterial(c);
             m.setSpecularColor(Color.gray(0.35));
@@ -248,8 +325,11 @@ public final class SceneView {
             spheres.put(n.id(), sp);
             nodeGroup.getChildren().add(sp);
         }
+        labels.rebuild(s.nodes().stream().map(Node::id).toList());
         halo = null;
+        resizeSpheres();
         updateHalo();
+        Platform.runLater(this::placeLabels);
     }
 
     /** The wire sphere around the selected node, following it when it is dragged. */
@@ -269,6 +349,7 @@ public final class SceneView {
             return;
         }
         halo = new Sphere(sp.getRadius() * 1.8, 16);
+        halo.radiusProperty().bind(sp.radiusProperty().multiply(1.8));
         halo.setDrawMode(DrawMode.LINE);
         halo.setMaterial(new PhongMaterial(Color.WHITE));
         halo.setMouseTransparent(true);
@@ -304,7 +385,7 @@ public final class SceneView {
         }
         Map<String, Node> byId = s.nodesById();
         double max = vm.maxCapacityBits();
-        double r = extent * 0.003;
+        double r = nodesExtent * 0.003;
         LinkReport selected = vm.tables().selectedLinkProperty().get();
         RouteReport route = vm.tables().selectedRouteProperty().get();
         Set<String> routeHops = new HashSet<>();
@@ -372,6 +453,9 @@ public final class SceneView {
         LayoutGeometry.Frame f = LayoutGeometry.frame(s.volume(), s.nodes());
         centre = fx(f.centreUm());
         extent = f.extentUm();
+        LayoutGeometry.Frame n = LayoutGeometry.nodesFrame(s.volume(), s.nodes());
+        nodesCentre = fx(n.centreUm());
+        nodesExtent = n.extentUm();
     }
 
 }

@@ -2,6 +2,7 @@ package dev.nanoplan.desktop;
 
 import java.util.function.Function;
 import javafx.beans.property.ReadOnlyObjectWrapper;
+import javafx.collections.ListChangeListener;
 import javafx.beans.property.ReadOnlyStringWrapper;
 import javafx.beans.property.StringProperty;
 import javafx.beans.value.ObservableValue;
@@ -9,9 +10,11 @@ import javafx.scene.control.Button;
 import javafx.scene.control.Label;
 import javafx.scene.control.TableCell;
 import javafx.scene.control.TableColumn;
+import javafx.scene.control.TableView;
 import javafx.scene.control.TextField;
 import javafx.scene.control.Tooltip;
 import javafx.scene.layout.GridPane;
+import javafx.scene.text.Text;
 
 /**
  * Small controls the desktop panes share: buttons with tooltips, text fields bound to a property,
@@ -19,6 +22,11 @@ import javafx.scene.layout.GridPane;
  * {@link Formats}, sorted by value).
  */
 final class Widgets {
+
+    /** Column property holding the function that gives a row's shown text (for fitting widths). */
+    private static final String SHOWN = "nanoplan.shownText";
+    /** Room for a cell's padding and a header's sort arrow, in pixels. */
+    private static final double COLUMN_PADDING_PX = 26;
 
     private Widgets() {
     }
@@ -60,6 +68,7 @@ final class Widgets {
     static <T> TableColumn<T, String> text(String name, Function<T, String> f) {
         TableColumn<T, String> c = new TableColumn<>(name);
         c.setCellValueFactory(cd -> new ReadOnlyStringWrapper(f.apply(cd.getValue())));
+        c.getProperties().put(SHOWN, f);
         return c;
     }
 
@@ -68,7 +77,16 @@ final class Widgets {
     }
 
     static <T> TableColumn<T, Double> numberText(String name, Function<T, Double> value, Function<T, String> shown) {
+        return cell(name, value, t -> TableText.Cell.of(shown.apply(t)));
+    }
+
+    /**
+     * A number column sorted by {@code value} and showing {@code shown}: its text, and its tooltip
+     * (why a value is not applicable) when there is one.
+     */
+    static <T> TableColumn<T, Double> cell(String name, Function<T, Double> value, Function<T, TableText.Cell> shown) {
         TableColumn<T, Double> c = new TableColumn<>(name);
+        c.getProperties().put(SHOWN, (Function<T, String>) t -> shown.apply(t).text());
         c.setCellValueFactory(cd -> (ObservableValue<Double>) new ReadOnlyObjectWrapper<>(value.apply(cd.getValue())));
         c.setCellFactory(col -> new TableCell<>() {
             @Override
@@ -76,13 +94,44 @@ final class Widgets {
                 super.updateItem(item, empty);
                 if (empty || getTableRow() == null || getTableRow().getItem() == null) {
                     setText(null);
+                    setTooltip(null);
                 } else {
-                    setText(shown.apply(getTableRow().getItem()));
+                    TableText.Cell cell = shown.apply(getTableRow().getItem());
+                    setText(cell.text());
+                    setTooltip(cell.tooltip() == null ? null : new Tooltip(cell.tooltip()));
                 }
             }
         });
         c.setComparator((a, b) -> Double.compare(a == null ? Double.NaN : a, b == null ? Double.NaN : b));
         c.getStyleClass().add("number");
         return c;
+    }
+
+    /**
+     * Sizes every column of {@code table} to its header and its widest shown text, now and whenever
+     * the rows change, so no header or value is clipped at any window size (the table scrolls
+     * sideways instead).
+     */
+    static <T> void fitColumns(TableView<T> table) {
+        Runnable fit = () -> {
+            for (TableColumn<T, ?> c : table.getColumns()) {
+                @SuppressWarnings("unchecked")
+                Function<T, String> shown = (Function<T, String>) c.getProperties().get(SHOWN);
+                double w = textWidth(c.getText()) * 1.1;
+                if (shown != null) {
+                    for (T row : table.getItems()) {
+                        w = Math.max(w, textWidth(shown.apply(row)));
+                    }
+                }
+                c.setPrefWidth(Math.ceil(w + COLUMN_PADDING_PX));
+            }
+        };
+        table.getItems().addListener((ListChangeListener<T>) ch -> fit.run());
+        table.itemsProperty().addListener((o, a, b) -> fit.run());
+        fit.run();
+    }
+
+    private static double textWidth(String s) {
+        return s == null || s.isEmpty() ? 0 : new Text(s).getLayoutBounds().getWidth();
     }
 }

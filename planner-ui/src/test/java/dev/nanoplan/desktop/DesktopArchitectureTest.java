@@ -24,13 +24,13 @@ class DesktopArchitectureTest {
 
     /** The desktop's non-view classes besides those named *ViewModel (nested classes follow their outer class). */
     static final Set<String> MODELS = Set.of("CorePlanService", "DemandComparison", "Formats", "LayoutEditor",
-            "LayoutEdits", "LayoutGeometry", "LinkDetails", "NodeInspector", "PlanScheduler", "PlanService",
+            "LabelDeclutter", "LayoutEdits", "LayoutGeometry", "LinkDetails", "NodeInspector", "PlanScheduler", "PlanService",
             "PlanTables", "RecentFiles", "RouteSummary", "ScenarioDocument", "ScenarioSettings", "SettingsText",
-            "SimulationFields", "SimulationRow", "SimulationRun", "SpeciesRow", "UndoStack");
+            "SimulationFields", "SimulationRow", "SimulationRun", "SpeciesRow", "TableText", "UndoStack");
 
     /** The view classes: they build controls and bind them to the models. */
     static final Set<String> VIEWS = Set.of("AppActions", "CapacityColours", "DesktopLauncher", "InspectorPane",
-            "Legend", "LinkChartsView", "MainView", "NanoplanApp", "OrbitCamera", "PlanTablesView", "SceneControls",
+            "Legend", "LinkChartsView", "MainView", "NanoplanApp", "NodeLabels", "OrbitCamera", "PlanTablesView", "SceneControls",
             "SceneView", "SettingsPane", "Shapes3D", "SimulationView", "Snapshots", "StatusBar", "Widgets");
 
     private static JavaClasses desktop;
