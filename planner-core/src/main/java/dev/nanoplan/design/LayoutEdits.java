@@ -65,12 +65,12 @@ final class LayoutEdits {
 
     static Node moved(Node n, Vec3 to) {
         return new Node(n.id(), n.role(), to, n.radiusUm(), n.species(), n.emitsSpecies(), n.moleculesPerSymbol(),
-                n.fixed());
+                n.fixed(), n.receiver());
     }
 
     static Node withMolecules(Node n, long molecules) {
         return new Node(n.id(), n.role(), n.positionUm(), n.radiusUm(), n.species(), n.emitsSpecies(), molecules,
-                n.fixed());
+                n.fixed(), n.receiver());
     }
 
     /** The node absorbing {@code absorbs} (receivers and relays) and emitting {@code emits} (relays). */
@@ -78,10 +78,10 @@ final class LayoutEdits {
         if (n.role() != Role.RELAY) {
             String one = n.role() == Role.RECEIVER ? absorbs : emits;
             return new Node(n.id(), n.role(), n.positionUm(), n.radiusUm(), one, one, n.moleculesPerSymbol(),
-                    n.fixed());
+                    n.fixed(), n.receiver());
         }
         return new Node(n.id(), n.role(), n.positionUm(), n.radiusUm(), absorbs, emits, n.moleculesPerSymbol(),
-                n.fixed());
+                n.fixed(), n.receiver());
     }
 
     /** {@code s} with node {@code id} replaced by {@code map} of it. */

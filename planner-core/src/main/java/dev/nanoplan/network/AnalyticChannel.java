@@ -5,15 +5,22 @@ import dev.nanoplan.geometry.Volume;
 import dev.nanoplan.physics.DecayingSphereHitting;
 import dev.nanoplan.physics.HittingModel;
 import dev.nanoplan.physics.OpenSphereHitting;
+import dev.nanoplan.physics.PassiveSphereObservation;
+import dev.nanoplan.physics.ReactiveSphereHitting;
+import dev.nanoplan.physics.TapModel;
 import dev.nanoplan.scenario.Flow;
 import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.ReceiverModel;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.Species;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Set;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.DoubleConsumer;
 import java.util.stream.IntStream;
@@ -23,7 +30,9 @@ import org.apache.commons.numbers.gamma.Erfc;
  * Builds a {@link ChannelMatrix} from the open-medium closed forms (docs/architecture.md §5.1–5.3): for each
  * emitter → receiver pair sharing a species, the hitting model of an absorbing sphere of the
  * receiver's radius r at centre distance d, with the species' D and half-life
- * ({@link OpenSphereHitting}, {@link DecayingSphereHitting}), sampled into taps p_0..p_L.
+ * ({@link OpenSphereHitting}, {@link DecayingSphereHitting}), sampled into taps p_0..p_L; a receiver
+ * whose scenario model is reactive uses the Collins–Kimball sphere ({@link ReactiveSphereHitting}), a
+ * passive one the probability of being inside at the sampling instants ({@link PassiveSphereObservation}).
  *
  * <p><b>Self pairs.</b> A relay that emits the species it senses does not count its own releases
  * (it knows what it sent): that pair is skipped, but its releases reach every other receiver.
@@ -32,7 +41,8 @@ import org.apache.commons.numbers.gamma.Erfc;
  * N is the emitter's molecules per "1" and F((L+1)T) = Σ_k p_k the fraction of one release counted
  * within the memory; N·F((L+1)T) bounds the pair's mean count per slot from above (all-active
  * schedule: at most one release of N per slot, each counted over L+1 slots), and is itself at most
- * N·r/d. Candidates come from a {@link SpatialGrid}: per species, the radius beyond which even the
+ * N·r/d (for a passive receiver, whose taps may each reach F((L+1)T), at most (L+1)·N·r/d: a molecule
+ * inside the sphere at t has reached it by t). Candidates come from a {@link SpatialGrid}: per species, the radius beyond which even the
  * largest emitter and receiver stay below the cutoff, N_max·(r_max/d)·erfc((d − r_max)/√(4D(L+1)T))
  * &lt; cutoff, is found by bisection, so a layout of n nodes costs O(n·neighbours), not O(n²).
  *
@@ -77,9 +87,13 @@ public final class AnalyticChannel {
             }
         }
         double maxRadius = 0;
+        Set<String> passiveSpecies = new HashSet<>();
         for (Node n : nodes) {
             if (n.role().absorbs()) {
                 maxRadius = Math.max(maxRadius, n.radiusUm());
+                if (!n.absorbs()) {
+                    passiveSpecies.add(n.species());
+                }
             }
         }
         Map<String, SpatialGrid> grids = new HashMap<>();
@@ -93,7 +107,8 @@ public final class AnalyticChannel {
                 pts.add(nodes.get(i).positionUm());
             }
             double diff = species.get(e.getKey()).diffusionUm2PerS();
-            double rho = reachUm(maxN, maxRadius, diff, horizonS, cutoffMolecules);
+            long slots = passiveSpecies.contains(e.getKey()) ? memory + 1L : 1L;
+            double rho = reachUm(maxN * slots, maxRadius, diff, horizonS, cutoffMolecules);
             reach.put(e.getKey(), rho);
             double cell = Double.isFinite(rho) ? Math.max(rho / 2, 1.0) : 1e6;
             grids.put(e.getKey(), new SpatialGrid(pts, cell));
@@ -128,11 +143,21 @@ public final class AnalyticChannel {
                         continue; // a relay does not count its own releases
                     }
                     double d = tx.positionUm().distance(rx.positionUm());
-                    HittingModel model = model(d, rx.radiusUm(), sp);
-                    if (tx.moleculesPerSymbol() * model.cumulative(horizonS) < cutoffMolecules) {
+                    TapModel model = tapModel(d, rx, sp);
+                    double[] taps = null;
+                    double counted;
+                    if (model instanceof HittingModel h) {
+                        counted = h.cumulative(horizonS);
+                    } else {
+                        taps = model.taps(symbolTimeS, memory);
+                        counted = Arrays.stream(taps).sum();
+                    }
+                    if (tx.moleculesPerSymbol() * counted < cutoffMolecules) {
                         continue;
                     }
-                    double[] taps = model.taps(symbolTimeS, memory);
+                    if (taps == null) {
+                        taps = model.taps(symbolTimeS, memory);
+                    }
                     boolean walls = rxNearWall || nearWall(scenario.volume(), tx.positionUm(), wallReach);
                     String caveat = walls && flows ? "walls+flow" : walls ? "walls" : flows ? "flow" : null;
                     list.add(new ChannelEntry(tx.id(), rx.id(), rx.species(), taps, ChannelMatrix.ANALYTIC, caveat));
@@ -182,6 +207,23 @@ public final class AnalyticChannel {
         return species.isStable()
                 ? OpenSphereHitting.of(distanceUm, radiusUm, species.diffusionUm2PerS())
                 : DecayingSphereHitting.of(distanceUm, radiusUm, species.diffusionUm2PerS(), species.halfLifeS());
+    }
+
+    /**
+     * The tap model of one pair for the receiver's scenario model: the absorbing sphere of
+     * {@link #model}, the reactive sphere with the receiver's binding rate, or the passive observer with
+     * its sampling offset; each with the species' decay.
+     */
+    public static TapModel tapModel(double distanceUm, Node receiver, Species species) {
+        ReceiverModel rm = receiver.receiver();
+        double halfLife = species.halfLifeS(); // +∞: stable
+        return switch (rm.kind()) {
+            case ABSORBING -> model(distanceUm, receiver.radiusUm(), species);
+            case REACTIVE -> ReactiveSphereHitting.of(distanceUm, receiver.radiusUm(), species.diffusionUm2PerS(),
+                    rm.bindingRateUmPerS(), halfLife);
+            case PASSIVE -> PassiveSphereObservation.of(distanceUm, receiver.radiusUm(), species.diffusionUm2PerS(),
+                    halfLife, rm.samplingOffsetS());
+        };
     }
 
     /** Whether the medium moves (any non-zero velocity). */

@@ -39,7 +39,8 @@ import java.util.Map;
  *       reached r with probability at most (r/ρ)·e^{−(ρ − r)√(λ/D)}, ρ = d_ar − r_a, the eventual
  *       catch of r from a's surface under decay at rate λ (Redner 2001, ch. 6; the lifetime left is
  *       again exponential). Their sum over the other absorbers, the most shading can remove, is at most
- *       {@value #MAX_RELATIVE_EFFECT} of F(d, H). Absorbers whose pair with the emitter was cut off
+ *       {@value #MAX_RELATIVE_EFFECT} of F(d, H). Passive (transparent) receivers take nothing and do not
+ *       count. Absorbers whose pair with the emitter was cut off
  *       (below the spatial cutoff) take too little to count.</li>
  * </ol>
  * A wall or shading effect above that fraction still passes when it moves the pair's mean count over the
@@ -242,6 +243,9 @@ public final class ChannelApplicability {
                 continue;
             }
             Node a = nodes.get(o.receiver());
+            if (!a.absorbs()) {
+                continue; // a passive observer is transparent: it takes nothing
+            }
             double rho = Math.max(a.positionUm().distance(receiver.positionUm()) - a.radiusUm(), receiver.radiusUm());
             sum += o.tapSum() * receiver.radiusUm() / rho * Math.exp(-(rho - receiver.radiusUm()) * root);
         }

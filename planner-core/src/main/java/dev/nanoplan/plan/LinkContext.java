@@ -287,7 +287,7 @@ final class LinkContext {
 
     /** Analytic only: the link with the emitter moved to centre distance {@code distanceUm}. */
     LinkEvaluation atDistance(double distanceUm) {
-        double[] taps = slots.own(entry.species(), AnalyticChannel.model(distanceUm, receiver.radiusUm(), species)
+        double[] taps = slots.own(entry.species(), AnalyticChannel.tapModel(distanceUm, receiver, species)
                 .taps(symbolTimeS(), signalling().isiMemorySymbols()));
         return whatIf(taps, emitter.moleculesPerSymbol(), symbolTimeS(), scenario.medium().backgroundMoleculesPerS(),
                 interferers);
@@ -297,13 +297,13 @@ final class LinkContext {
     LinkEvaluation withSymbolTime(double t, Map<String, Node> nodes) {
         int memory = signalling().isiMemorySymbols();
         double[] taps = slots.own(entry.species(),
-                AnalyticChannel.model(distance(), receiver.radiusUm(), species).taps(t, memory));
+                AnalyticChannel.tapModel(distance(), receiver, species).taps(t, memory));
         List<Crosstalk.Interferer> others = new ArrayList<>(interferers.size());
         for (Crosstalk.Interferer i : interferers) {
             Node n = nodes.get(i.id());
             double d = n.positionUm().distance(receiver.positionUm());
             double[] it = slots.interferer(entry.species(), emitter.id(), i.id(),
-                    AnalyticChannel.model(d, receiver.radiusUm(), species).taps(t, memory));
+                    AnalyticChannel.tapModel(d, receiver, species).taps(t, memory));
             others.add(new Crosstalk.Interferer(i.id(), it, i.levelMolecules(), i.weights()));
         }
         return whatIf(taps, emitter.moleculesPerSymbol(), t, scenario.medium().backgroundMoleculesPerS(), others);

@@ -65,7 +65,7 @@ public sealed interface ScenarioEdit {
             Vec3 to = newPositionUm(scenario);
             return withNodes(scenario, n -> n.id().equals(nodeId)
                     ? new Node(n.id(), n.role(), to, n.radiusUm(), n.species(), n.emitsSpecies(),
-                            n.moleculesPerSymbol(), n.fixed())
+                            n.moleculesPerSymbol(), n.fixed(), n.receiver())
                     : n, scenario.species(), scenario.signalling());
         }
 
@@ -125,7 +125,7 @@ public sealed interface ScenarioEdit {
                     emits = newSpecies;
                 }
                 return new Node(m.id(), m.role(), m.positionUm(), m.radiusUm(), absorbs, emits,
-                        m.moleculesPerSymbol(), m.fixed());
+                        m.moleculesPerSymbol(), m.fixed(), m.receiver());
             }, species, scenario.signalling());
         }
 
@@ -182,7 +182,7 @@ public sealed interface ScenarioEdit {
             node(scenario, nodeId);
             return withNodes(scenario, n -> n.id().equals(nodeId)
                     ? new Node(n.id(), n.role(), n.positionUm(), n.radiusUm(), n.species(), n.emitsSpecies(),
-                            moleculesPerSymbol, n.fixed())
+                            moleculesPerSymbol, n.fixed(), n.receiver())
                     : n, scenario.species(), scenario.signalling());
         }
 

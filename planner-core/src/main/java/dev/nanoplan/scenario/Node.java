@@ -23,9 +23,11 @@ import dev.nanoplan.geometry.Vec3;
  *     transmitters and relays, ≥ 0 for receivers (file default 0 for receivers, required otherwise)
  * @param fixed true when design aids ({@code nanoplan improve}) must never move or re-assign this node
  *     (file {@code fixed}, default false)
+ * @param receiver how a receiver or relay counts its species (file {@code receiver}, default
+ *     {@link ReceiverModel#ABSORBING}); must be absorbing for a transmitter
  */
 public record Node(String id, Role role, Vec3 positionUm, double radiusUm, String species, String emitsSpecies,
-        long moleculesPerSymbol, boolean fixed) {
+        long moleculesPerSymbol, boolean fixed, ReceiverModel receiver) {
 
     /** @throws IllegalArgumentException if a value is out of range or inconsistent with the role */
     public Node {
@@ -42,15 +44,29 @@ public record Node(String id, Role role, Vec3 positionUm, double radiusUm, Strin
             throw new IllegalArgumentException("moleculesPerSymbol must be >= " + (role.emits() ? 1 : 0)
                     + " for a " + role.id() + ", got " + moleculesPerSymbol);
         }
+        Checks.required("receiver", receiver);
+        if (!role.absorbs() && !receiver.isAbsorbing()) {
+            throw new IllegalArgumentException("receiver: only receivers and relays have a receiver model, node " + id);
+        }
+    }
+
+    /** A node with the default absorbing receiver model. */
+    public Node(String id, Role role, Vec3 positionUm, double radiusUm, String species, String emitsSpecies,
+            long moleculesPerSymbol, boolean fixed) {
+        this(id, role, positionUm, radiusUm, species, emitsSpecies, moleculesPerSymbol, fixed, ReceiverModel.ABSORBING);
+    }
+
+    /** This node with receiver model {@code model}. */
+    public Node withReceiver(ReceiverModel model) {
+        return new Node(id, role, positionUm, radiusUm, species, emitsSpecies, moleculesPerSymbol, fixed, model);
     }
 
     /**
-     * Whether this node takes the molecules of its {@code species} out of the medium (receivers and
-     * relays today). The hook for neighbour-absorber checks: a passive (transparent) receiver model, once
-     * scenario files can name it, returns false here while still counting molecules.
+     * Whether this node takes the molecules of its {@code species} out of the medium: receivers and relays
+     * except passive (transparent) observers, which count molecules without removing them.
      */
     public boolean absorbs() {
-        return role.absorbs();
+        return role.absorbs() && receiver.absorbs();
     }
 
     /** A node that design aids may change ({@code fixed} false). */

@@ -46,7 +46,9 @@ import java.util.Set;
  * viscosity_mPa_s 0.69, flow none, background_molecules_per_s 0), {@code species[].half_life_s}
  * null = stable, {@code signalling} (isi_memory_symbols 10, levels 2, prior_one 0.5, count_model
  * exact, schedule all-active), {@code nodes[].emits_species} (relays only, default = species),
- * {@code nodes[].molecules_per_symbol} (receivers only, default 0), {@code nodes[].fixed} (false), {@code demands} [],
+ * {@code nodes[].molecules_per_symbol} (receivers only, default 0), {@code nodes[].fixed} (false),
+ * {@code nodes[].receiver} (absorbing; reactive needs {@code binding_rate_um_per_s}, passive may give
+ * {@code sampling_offset_s}, default the end of the slot), {@code demands} [],
  * {@code targets} (max_error_probability 1e-3, min_rate_bits_per_s 0, mission_duration_s 3600).
  * Required: format, volume, species (non-empty), signalling.symbol_time_s, nodes (non-empty); under
  * {@code signalling.schedule} {@code slots} every emitter's {@code slot} (an integer ≥ 0, below
@@ -362,6 +364,8 @@ public final class ScenarioReader {
         Schedule scheduleSeen;
         /** {@code signalling.frame_slots}, 0 when absent or not accepted. */
         int frameSlotsSeen;
+        /** {@code signalling.symbol_time_s} if it parsed (null otherwise); bounds a passive sampling offset. */
+        Double symbolTimeSeen;
         /** {@code nodes[].slot} by node id, under the {@code slots} schedule. */
         final Map<String, Integer> slotsSeen = new LinkedHashMap<>();
 
@@ -497,6 +501,7 @@ public final class ScenarioReader {
                 return null;
             }
             Double t = o.number("symbol_time_s", null, Bound.POSITIVE);
+            symbolTimeSeen = t;
             Long isi = o.integer("isi_memory_symbols", (long) Signalling.DEFAULT_ISI_MEMORY, 0,
                     Signalling.MAX_ISI_MEMORY);
             Long levels = o.integer("levels", 2L, Signalling.MIN_LEVELS, Signalling.MAX_LEVELS);
@@ -574,17 +579,69 @@ public final class ScenarioReader {
             }
             boolean fixed = o.flag("fixed");
             slot(o, id, role);
+            ReceiverModel receiver = receiver(o, role);
             o.finish();
             String emitted = role == Role.RELAY ? (emits == null ? species : emits) : null;
             ScenarioValidator.NodeFact fact = new ScenarioValidator.NodeFact(index, id, role, position,
                     radius == null ? Double.NaN : radius, species, emitted);
             Node node = null;
             if (id != null && role != null && position != null && radius != null && species != null && emitsOk
-                    && molecules != null) {
+                    && molecules != null && receiver != null) {
                 node = new Node(id, role, position, radius, species, role == Role.RELAY ? emitted : species,
-                        molecules, fixed);
+                        molecules, fixed, receiver);
             }
             return new NodeParts(fact, node);
+        }
+
+        /**
+         * A node's {@code receiver} model with {@code binding_rate_um_per_s} (reactive only, &gt; 0) and
+         * {@code sampling_offset_s} (passive only, in (0, symbol_time_s]); null after a problem.
+         */
+        ReceiverModel receiver(Obj o, Role role) {
+            String text = o.string("receiver", ReceiverModel.Kind.ABSORBING.id());
+            ReceiverModel.Kind kind = null;
+            if (text != null) {
+                try {
+                    kind = ReceiverModel.Kind.parse(text);
+                } catch (IllegalArgumentException e) {
+                    o.problem("receiver", "unknown receiver '" + text + "', expected " + ReceiverModel.EXPECTED);
+                }
+            }
+            if (kind != null && kind != ReceiverModel.Kind.ABSORBING && role == Role.TRANSMITTER) {
+                o.problem("receiver", "only receivers and relays have a receiver model; this node is a transmitter");
+                kind = null;
+            }
+            Double rate = null;
+            if (o.has("binding_rate_um_per_s")) {
+                rate = o.number("binding_rate_um_per_s", null, Bound.POSITIVE);
+                if (kind != null && kind != ReceiverModel.Kind.REACTIVE) {
+                    o.problem("binding_rate_um_per_s", "only with receiver reactive; this receiver is " + kind.id());
+                    kind = null;
+                }
+            } else if (kind == ReceiverModel.Kind.REACTIVE) {
+                o.problem("binding_rate_um_per_s", "missing required field (receiver is reactive)");
+                kind = null;
+            }
+            Double offset = null;
+            if (o.has("sampling_offset_s")) {
+                offset = o.number("sampling_offset_s", null, Bound.POSITIVE);
+                if (kind != null && kind != ReceiverModel.Kind.PASSIVE) {
+                    o.problem("sampling_offset_s", "only with receiver passive; this receiver is " + kind.id());
+                    kind = null;
+                } else if (offset != null && symbolTimeSeen != null && offset > symbolTimeSeen) {
+                    o.problem("sampling_offset_s", "must be <= signalling.symbol_time_s " + symbolTimeSeen
+                            + ", got " + offset);
+                    offset = null;
+                }
+                if (offset == null) {
+                    kind = null;
+                }
+            }
+            if (kind == null || (kind == ReceiverModel.Kind.REACTIVE && rate == null)) {
+                return null;
+            }
+            return new ReceiverModel(kind, kind == ReceiverModel.Kind.REACTIVE ? rate : null,
+                    kind == ReceiverModel.Kind.PASSIVE ? offset : null);
         }
 
         /** A node's {@code slot}: required of emitters under {@code slots}, refused otherwise. */

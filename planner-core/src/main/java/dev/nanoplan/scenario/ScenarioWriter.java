@@ -107,6 +107,16 @@ public final class ScenarioWriter {
                 if (n.fixed()) {
                     g.writeBooleanField("fixed", true);
                 }
+                ReceiverModel rm = n.receiver();
+                if (!rm.isAbsorbing()) { // absorbing is the default: existing files stay byte-identical
+                    g.writeStringField("receiver", rm.kind().id());
+                    if (rm.bindingRateUmPerS() != null) {
+                        g.writeNumberField("binding_rate_um_per_s", rm.bindingRateUmPerS());
+                    }
+                    if (rm.samplingOffsetS() != null) {
+                        g.writeNumberField("sampling_offset_s", rm.samplingOffsetS());
+                    }
+                }
                 g.writeEndObject();
             }
             g.writeEndArray();

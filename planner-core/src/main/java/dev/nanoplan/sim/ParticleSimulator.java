@@ -111,8 +111,24 @@ public final class ParticleSimulator {
         return blocks.combine(engine.run(blocks, progress::update, cancelled));
     }
 
+    /**
+     * Refuses a layout with a passive or reactive receiver: the simulator models perfect absorbers only.
+     *
+     * @throws IllegalArgumentException one line naming the first such node
+     */
+    public static void requireAbsorbingReceivers(Scenario scenario) {
+        for (Node n : scenario.nodes()) {
+            if (n.role().absorbs() && !n.receiver().isAbsorbing()) {
+                throw new IllegalArgumentException("nodes[" + n.id() + "].receiver: the particle simulator models "
+                        + "absorbing receivers only, got " + n.receiver().kind().id()
+                        + " (use --channel analytic for this layout)");
+            }
+        }
+    }
+
     /** The simulation of {@code scenario} with these settings as work units. */
     public SimulationBlocks blocks(Scenario scenario) {
+        requireAbsorbingReceivers(scenario);
         return new SimulationBlocks(scenario, settings.moleculesPerEmitter(), settings.seed(), timeStepS(scenario),
                 settings.emitterIds());
     }

@@ -232,7 +232,7 @@ public final class Perturbation {
             }
             if (changed) {
                 nodes.set(i, new Node(n.id(), n.role(), Vec3.of(pos), radius, n.species(), n.emitsSpecies(), molecules,
-                        n.fixed()));
+                        n.fixed(), n.receiver()));
             }
         }
         for (; j < k; j++) {

@@ -8,6 +8,10 @@ import dev.nanoplan.network.LinkSpec;
 import dev.nanoplan.physics.DecayingSphereHitting;
 import dev.nanoplan.physics.HittingModel;
 import dev.nanoplan.physics.OpenSphereHitting;
+import dev.nanoplan.physics.PassiveSphereObservation;
+import dev.nanoplan.physics.ReactiveSphereHitting;
+import dev.nanoplan.physics.TapModel;
+import dev.nanoplan.scenario.ReceiverModel;
 import dev.nanoplan.physics.StokesEinstein;
 import dev.nanoplan.report.LinkJson;
 import dev.nanoplan.report.LinkPlotFiles;
@@ -66,6 +70,18 @@ public final class LinkCommand implements Callable<Integer> {
 
     @Option(names = "--half-life-s", description = "Half-life of the molecule (s); none = stable.")
     Double halfLifeS;
+
+    @Option(names = "--receiver", defaultValue = "absorbing",
+            description = "absorbing | passive (counts the molecules inside at one instant per slot) | reactive"
+                    + " (binds at --binding-rate-um-per-s), default ${DEFAULT-VALUE}.")
+    String receiver;
+
+    @Option(names = "--binding-rate-um-per-s", description = "Reactive receiver: binding rate κ (µm/s), > 0.")
+    Double bindingRateUmPerS;
+
+    @Option(names = "--sampling-offset-s",
+            description = "Passive receiver: sampling instant after each slot starts (s), in (0, T]; default T.")
+    Double samplingOffsetS;
 
     @Option(names = "--background-per-s", defaultValue = "0", description = "Background molecules counted per second (Poisson), default ${DEFAULT-VALUE}.")
     double backgroundPerS;
@@ -140,11 +156,16 @@ public final class LinkCommand implements Callable<Integer> {
                     throw new BadInputException("--taps: entry " + k + " must be a probability in [0, 1], got " + taps[k]);
                 }
             }
+            if (!receiverModel().isAbsorbing()) {
+                throw new BadInputException("--receiver: give the receiver model with the geometry options, not with --taps");
+            }
             channelTaps = taps.clone();
         } else {
-            HittingModel hm = hittingModel();
-            channelTaps = hm.taps(symbolTimeS, isiMemory);
-            eventual = hm.eventual();
+            TapModel tm = tapModel();
+            channelTaps = tm.taps(symbolTimeS, isiMemory);
+            if (tm instanceof HittingModel hm) {
+                eventual = hm.eventual();
+            }
         }
 
         long[] lm = levelMolecules();
@@ -218,6 +239,53 @@ public final class LinkCommand implements Callable<Integer> {
         return LinkSpec.evenLevels(levels, molecules);
     }
 
+    /** The {@code --receiver} model with its rate or offset, checked against each other and T. */
+    private ReceiverModel receiverModel() {
+        ReceiverModel.Kind kind;
+        try {
+            kind = ReceiverModel.Kind.parse(receiver);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("--receiver: " + e.getMessage());
+        }
+        if (bindingRateUmPerS != null && kind != ReceiverModel.Kind.REACTIVE) {
+            throw new BadInputException("--binding-rate-um-per-s: only with --receiver reactive, got --receiver " + receiver);
+        }
+        if (samplingOffsetS != null && kind != ReceiverModel.Kind.PASSIVE) {
+            throw new BadInputException("--sampling-offset-s: only with --receiver passive, got --receiver " + receiver);
+        }
+        if (kind == ReceiverModel.Kind.REACTIVE) {
+            if (bindingRateUmPerS == null) {
+                throw new BadInputException("--binding-rate-um-per-s: missing (--receiver reactive needs it)");
+            }
+            requirePositive("--binding-rate-um-per-s", bindingRateUmPerS);
+            return ReceiverModel.reactive(bindingRateUmPerS);
+        }
+        if (kind == ReceiverModel.Kind.PASSIVE) {
+            if (samplingOffsetS != null) {
+                requirePositive("--sampling-offset-s", samplingOffsetS);
+                if (samplingOffsetS > symbolTimeS) {
+                    throw new BadInputException("--sampling-offset-s: must be <= --symbol-time-s " + symbolTimeS
+                            + ", got " + samplingOffsetS);
+                }
+            }
+            return ReceiverModel.passive(samplingOffsetS);
+        }
+        return ReceiverModel.ABSORBING;
+    }
+
+    /** The taps' model: the absorbing sphere of the geometry options, or the {@code --receiver} model. */
+    private TapModel tapModel() {
+        HittingModel absorbing = hittingModel();
+        ReceiverModel rm = receiverModel();
+        double d = diffusion();
+        double halfLife = halfLifeS == null ? Double.POSITIVE_INFINITY : halfLifeS;
+        return switch (rm.kind()) {
+            case ABSORBING -> absorbing;
+            case REACTIVE -> ReactiveSphereHitting.of(distanceUm, radiusUm, d, rm.bindingRateUmPerS(), halfLife);
+            case PASSIVE -> PassiveSphereObservation.of(distanceUm, radiusUm, d, halfLife, rm.samplingOffsetS());
+        };
+    }
+
     private HittingModel hittingModel() {
         if (distanceUm == null) {
             throw new BadInputException("--distance-um: missing (or give --taps)");
@@ -231,6 +299,16 @@ public final class LinkCommand implements Callable<Integer> {
             throw new BadInputException("--distance-um: must exceed --radius-um (" + radiusUm
                     + " µm): the emitter must lie outside the receiver, got " + distanceUm);
         }
+        double d = diffusion();
+        if (halfLifeS != null) {
+            requirePositive("--half-life-s", halfLifeS);
+            return DecayingSphereHitting.of(distanceUm, radiusUm, d, halfLifeS);
+        }
+        return OpenSphereHitting.of(distanceUm, radiusUm, d);
+    }
+
+    /** D in µm²/s from --diffusion-um2-per-s or Stokes–Einstein. */
+    private double diffusion() {
         double d;
         if (diffusionUm2PerS != null) {
             if (hydrodynamicRadiusNm != null) {
@@ -246,11 +324,7 @@ public final class LinkCommand implements Callable<Integer> {
         } else {
             throw new BadInputException("--diffusion-um2-per-s: missing (or give --hydrodynamic-radius-nm, or --taps)");
         }
-        if (halfLifeS != null) {
-            requirePositive("--half-life-s", halfLifeS);
-            return DecayingSphereHitting.of(distanceUm, radiusUm, d, halfLifeS);
-        }
-        return OpenSphereHitting.of(distanceUm, radiusUm, d);
+        return d;
     }
 
     static void requirePositive(String option, double v) {

@@ -166,7 +166,7 @@ final class LayoutEdits {
 
     private static Node at(Node n, String id, Vec3 positionUm) {
         return new Node(id, n.role(), positionUm, n.radiusUm(), n.species(), n.emitsSpecies(), n.moleculesPerSymbol(),
-                n.fixed());
+                n.fixed(), n.receiver());
     }
 
     private static int indexOf(List<Node> nodes, String id) {

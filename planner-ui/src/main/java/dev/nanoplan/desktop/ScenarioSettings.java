@@ -250,7 +250,7 @@ public final class ScenarioSettings {
             String em = renamed.getOrDefault(n.emitsSpecies(), n.emitsSpecies());
             nodes.add(sp.equals(n.species()) && em.equals(n.emitsSpecies()) ? n
                     : new Node(n.id(), n.role(), n.positionUm(), n.radiusUm(), sp, em, n.moleculesPerSymbol(),
-                            n.fixed()));
+                            n.fixed(), n.receiver()));
         }
         Map<String, List<String>> nowUsing = usersBySpecies(nodes);
         for (String gone : removed) {
