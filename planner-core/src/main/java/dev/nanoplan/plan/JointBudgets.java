@@ -26,7 +26,7 @@ import java.util.List;
  *
  * <p><b>Fixed point</b> (G. J. Foschini and Z. Miljanic, "A simple distributed autonomous power control
  * algorithm and its convergence", IEEE Trans. Veh. Technol. 42(4), 1993): P_i ← P_i · max_h need/achieved,
- * all emitters at once, until no power moves by more than 1e-9 relatively; for a feasible linear problem
+ * all emitters at once, until no power moves by more than a given tolerance; for a feasible linear problem
  * it converges geometrically (rate ρ(F)) to the minimal fixed point (I − F)^{-1} u. Powers are clamped to
  * [floor, cap]; an emitter still short at the cap is out of reach.
  *
@@ -38,7 +38,6 @@ final class JointBudgets {
 
     static final int MAX_ITERATIONS = 5000;
     static final int MAX_RADIUS_ITERATIONS = 20000;
-    private static final double TOLERANCE = 1e-9;
 
     /** One constraint of one emitter. */
     interface Hop {
@@ -128,11 +127,12 @@ final class JointBudgets {
     }
 
     /**
-     * Zander's test, then the Foschini–Miljanic iteration from {@code start} (clamped to [floor, cap]).
+     * Zander's test, then the Foschini–Miljanic iteration from {@code start} (clamped to [floor, cap]) until
+     * no power moves by more than {@code tolerance} relatively.
      *
      * @throws IllegalArgumentException if a bound is not positive or floor &gt; cap
      */
-    static Result solve(int n, List<Hop> hops, double[] start, double floor, double cap) {
+    static Result solve(int n, List<Hop> hops, double[] start, double floor, double cap, double tolerance) {
         if (!(floor > 0 && cap >= floor) || start.length != n) {
             throw new IllegalArgumentException("floor, cap: need 0 < floor <= cap and one start per emitter, got "
                     + floor + ", " + cap + ", " + start.length);
@@ -156,14 +156,15 @@ final class JointBudgets {
             moved = false;
             for (int i = 0; i < n; i++) {
                 double next = Math.min(cap, Math.max(floor, p[i] * factor[i]));
-                moved |= Math.abs(next - p[i]) > TOLERANCE * p[i];
+                moved |= Math.abs(next - p[i]) > tolerance * p[i];
                 p[i] = next;
             }
         }
         boolean feasible = true;
         List<Integer> missing = new ArrayList<>();
         for (Hop h : hops) {
-            if (h.ratio(p) > 1 + 1e-6 && !missing.contains(h.emitter())) {
+            // short only at the cap: below it the iteration still had room (a tolerance-sized gap is left to the caller)
+            if (p[h.emitter()] >= cap && h.ratio(p) > 1 && !missing.contains(h.emitter())) {
                 feasible = false;
                 missing.add(h.emitter());
             }

@@ -48,7 +48,7 @@ class JointBudgetsTest {
     @Test
     void twoLinksConvergeToTheMinimalFixedPointWorkedByHand() {
         double[][] f = {{0, 0.25}, {0.5, 0}};
-        JointBudgets.Result r = JointBudgets.solve(2, linear(f, new double[] {1, 2}), new double[] {1, 1}, 1e-6, 1e9);
+        JointBudgets.Result r = JointBudgets.solve(2, linear(f, new double[] {1, 2}), new double[] {1, 1}, 1e-6, 1e9, 1e-12);
         assertThat(r.feasible()).isTrue();
         // by hand: P1 = 1 + P2/4, P2 = 2 + P1/2 → P1 = 12/7, P2 = 20/7 (Foschini and Miljanic 1993: the limit is (I − F)^-1 u)
         assertThat(r.power()[0]).isCloseTo(12.0 / 7, within(1e-7));
@@ -62,7 +62,7 @@ class JointBudgetsTest {
         double[][] f = {{0, 0.5, 0}, {0, 0, 0.5}, {0.5, 0, 0}};
         // started above the fixed point: the iteration comes down to the same (unique) point
         JointBudgets.Result r = JointBudgets.solve(3, linear(f, new double[] {1, 2, 4}), new double[] {50, 50, 50},
-                1e-6, 1e9);
+                1e-6, 1e9, 1e-12);
         assertThat(r.feasible()).isTrue();
         // by hand: P1 = 1 + P2/2, P2 = 2 + P3/2, P3 = 4 + P1/2 → P1 = 3 + P1/8 = 24/7, P2 = 34/7, P3 = 40/7
         assertThat(r.power()).containsExactly(new double[] {24.0 / 7, 34.0 / 7, 40.0 / 7}, within(1e-7));
@@ -73,7 +73,7 @@ class JointBudgetsTest {
     @Test
     void aRadiusAboveOneIsReportedInfeasibleWithBothLinksInConflict() {
         double[][] f = {{0, 2}, {0.8, 0}};
-        JointBudgets.Result r = JointBudgets.solve(2, linear(f, new double[] {1, 1}), new double[] {1, 1}, 1e-6, 1e9);
+        JointBudgets.Result r = JointBudgets.solve(2, linear(f, new double[] {1, 1}), new double[] {1, 1}, 1e-6, 1e9, 1e-12);
         assertThat(r.feasible()).isFalse();
         // by hand: sqrt(2 · 0.8) = 1.2649 > 1 (Zander 1992: no powers meet both)
         assertThat(r.spectralRadius()).isCloseTo(Math.sqrt(1.6), within(1e-9));
@@ -83,7 +83,7 @@ class JointBudgetsTest {
     @Test
     void aRadiusBelowOneButACapTooLowIsOutOfReach() {
         double[][] f = {{0, 0.25}, {0.5, 0}};
-        JointBudgets.Result r = JointBudgets.solve(2, linear(f, new double[] {1, 2}), new double[] {1, 1}, 1e-6, 2.0);
+        JointBudgets.Result r = JointBudgets.solve(2, linear(f, new double[] {1, 2}), new double[] {1, 1}, 1e-6, 2.0, 1e-12);
         // by hand: the fixed point needs P1 = 12/7 ≤ 2 but P2 = 20/7 > 2
         assertThat(r.feasible()).isFalse();
         assertThat(r.conflict()).containsExactly(1);
