@@ -133,6 +133,12 @@ final class JointBudgets {
      * @throws IllegalArgumentException if a bound is not positive or floor &gt; cap
      */
     static Result solve(int n, List<Hop> hops, double[] start, double floor, double cap, double tolerance) {
+        return solve(n, hops, start, floor, cap, tolerance, MAX_ITERATIONS);
+    }
+
+    /** As above, with at most {@code maxIterations} fixed-point iterations. */
+    static Result solve(int n, List<Hop> hops, double[] start, double floor, double cap, double tolerance,
+            int maxIterations) {
         if (!(floor > 0 && cap >= floor) || start.length != n) {
             throw new IllegalArgumentException("floor, cap: need 0 < floor <= cap and one start per emitter, got "
                     + floor + ", " + cap + ", " + start.length);
@@ -147,7 +153,7 @@ final class JointBudgets {
         }
         int it = 0;
         boolean moved = true;
-        while (moved && it < MAX_ITERATIONS) {
+        while (moved && it < maxIterations) {
             it++;
             double[] factor = new double[n];
             for (Hop h : hops) {

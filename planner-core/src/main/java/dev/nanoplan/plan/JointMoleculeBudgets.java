@@ -41,6 +41,11 @@ import org.apache.commons.statistics.distribution.NormalDistribution;
 final class JointMoleculeBudgets {
 
     static final int MAX_ROUNDS = 6;
+    /**
+     * Gaussian iterations at most: budgets are integers, so the iterate can hop between two neighbouring
+     * counts without settling to 1e-3; the exact stage polishes what is left.
+     */
+    static final int GAUSSIAN_ITERATIONS = 300;
     private static final long MAX_MOLECULES = 1L << 20;
     private static final NormalDistribution STANDARD = NormalDistribution.of(0, 1);
 
@@ -78,7 +83,7 @@ final class JointMoleculeBudgets {
             int levels = scenario.signalling().levels();
             double floor = (double) (levels - 1) * (levels - 1);
             JointBudgets.Result r = JointBudgets.solve(open.size(), hops, start, floor,
-                    (double) MAX_MOLECULES * MAX_MOLECULES, 1e-3);
+                    (double) MAX_MOLECULES * MAX_MOLECULES, 1e-3, GAUSSIAN_ITERATIONS);
             if (r.feasible()) {
                 for (int i = 0; i < open.size(); i++) {
                     budget.put(open.get(i), (long) Math.ceil(Math.sqrt(r.power()[i])));
