@@ -84,7 +84,7 @@ final class ExactReceiverEvaluator implements ReceiverEvaluator {
 
     @Override
     public List<BudgetReport> budgets(PlanInputs in, List<List<EvaluatedLink>> routeHops, DoubleConsumer progress) {
-        return MoleculeBudgets.compute(in.scenario(), routeHops, progress);
+        return MoleculeBudgets.compute(in.scenario(), routeHops, progress, in.options().jointBudgets());
     }
 
     @Override

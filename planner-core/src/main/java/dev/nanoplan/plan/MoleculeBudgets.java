@@ -72,6 +72,8 @@ final class MoleculeBudgets {
 
     /** The {@link BudgetReport#method()} of every budget: per node, the others at their file budgets. */
     static final String INDEPENDENT = "independent";
+    /** The {@link BudgetReport#method()} of budgets found together ({@link JointMoleculeBudgets}). */
+    static final String JOINT = "joint";
 
     private static final long MAX_MOLECULES = 1L << 20;
 
@@ -80,6 +82,15 @@ final class MoleculeBudgets {
 
     static List<BudgetReport> compute(Scenario scenario, List<List<EvaluatedLink>> routes,
             DoubleConsumer progress) {
+        return compute(scenario, routes, progress, false);
+    }
+
+    /**
+     * The budgets, {@code joint} ({@link JointMoleculeBudgets}) or independent (above). A count-blind error
+     * target sizes budgets for a rate, which has no Gaussian power-control form: those stay independent.
+     */
+    static List<BudgetReport> compute(Scenario scenario, List<List<EvaluatedLink>> routes,
+            DoubleConsumer progress, boolean joint) {
         Map<String, List<EvaluatedLink>> sends = new LinkedHashMap<>();
         Map<String, Integer> carried = new LinkedHashMap<>();
         Map<LinkKey, EvaluatedLink> uniqueHops = new LinkedHashMap<>();
@@ -100,7 +111,10 @@ final class MoleculeBudgets {
         Map<LinkKey, HopBudget> hopBudgets = new ConcurrentHashMap<>();
         List<EvaluatedLink> hops = new ArrayList<>(uniqueHops.values());
         AtomicInteger done = new AtomicInteger();
-        if (criterion != null) {
+        Map<String, HopBudget> together = null;
+        if (joint && criterion != null && criterion.error()) {
+            together = JointMoleculeBudgets.compute(scenario, sends, criterion, progress);
+        } else if (criterion != null) {
             hops.parallelStream().forEach(e -> {
                 hopBudgets.put(e.key(), hop(e.context(), criterion));
                 progress.accept(done.incrementAndGet() / (double) Math.max(1, hops.size()));
@@ -133,6 +147,14 @@ final class MoleculeBudgets {
             long needed = 0;
             String reason = null;
             boolean feasible = true;
+            if (together != null) {
+                HopBudget b = together.get(n.id());
+                needed = b.molecules;
+                reason = b.reason;
+                feasible = needed >= 0;
+                mine = List.of();
+            }
+            String method = together != null ? JOINT : INDEPENDENT;
             for (EvaluatedLink e : mine) {
                 HopBudget b = hopBudgets.get(e.key());
                 if (b.molecules < 0) {
@@ -146,7 +168,7 @@ final class MoleculeBudgets {
                 }
             }
             if (!feasible) {
-                out.add(new BudgetReport(n.id(), -1, -1, -1, false, reason, INDEPENDENT, blind));
+                out.add(new BudgetReport(n.id(), -1, -1, -1, false, reason, method, blind));
                 continue;
             }
             double rate = meanMolecules(sig, w, needed) / (frame * sig.symbolTimeS());
@@ -154,8 +176,7 @@ final class MoleculeBudgets {
             String r = frame == 1
                     ? String.format(Locale.ROOT, "%s; sends every slot for %d route hop(s)", reason, k)
                     : String.format(Locale.ROOT, "%s; sends 1 slot in %d for %d route hop(s)", reason, frame, k);
-            out.add(new BudgetReport(n.id(), needed, rate, rate * targets.missionDurationS(), true, r, INDEPENDENT,
-                    blind));
+            out.add(new BudgetReport(n.id(), needed, rate, rate * targets.missionDurationS(), true, r, method, blind));
         }
         return out;
     }

@@ -24,9 +24,12 @@ import java.util.function.DoubleConsumer;
  *                              worker threads; never null (default ignores it)
  * @param channel               taps to use instead of the analytic ones (e.g. simulated), or null
  *                              for the analytic channel
+ * @param jointBudgets          molecule budgets of all route emitters found together (power control,
+ *                              {@code JointMoleculeBudgets}; default) or each alone, the others at their
+ *                              file budgets ({@code MoleculeBudgets})
  */
 public record PlanOptions(double capacityFloorBits, double cutoffMolecules, int exactInterferers,
-        double adviceTargetBits, DoubleConsumer progress, ChannelMatrix channel) {
+        double adviceTargetBits, DoubleConsumer progress, ChannelMatrix channel, boolean jointBudgets) {
 
     /** Default floor, bits per symbol. */
     public static final double DEFAULT_FLOOR_BITS = 0.01;
@@ -35,9 +38,9 @@ public record PlanOptions(double capacityFloorBits, double cutoffMolecules, int 
     /** Default advice target, bits per symbol. */
     public static final double DEFAULT_ADVICE_TARGET_BITS = 0.9;
 
-    /** Floor 0.01 bit, cutoff 1e-3 molecules, 8 exact interferers, advice target 0.9 bit, analytic. */
+    /** Floor 0.01 bit, cutoff 1e-3 molecules, 8 exact interferers, advice target 0.9 bit, analytic, joint budgets. */
     public static final PlanOptions DEFAULT = new PlanOptions(DEFAULT_FLOOR_BITS, DEFAULT_CUTOFF_MOLECULES,
-            Crosstalk.DEFAULT_EXACT_COUNT, DEFAULT_ADVICE_TARGET_BITS, f -> { }, null);
+            Crosstalk.DEFAULT_EXACT_COUNT, DEFAULT_ADVICE_TARGET_BITS, f -> { }, null, true);
 
     public PlanOptions {
         if (!(capacityFloorBits >= 0 && capacityFloorBits < 1)) {
@@ -64,28 +67,37 @@ public record PlanOptions(double capacityFloorBits, double cutoffMolecules, int 
 
     /** A copy with another floor. */
     public PlanOptions floor(double bits) {
-        return new PlanOptions(bits, cutoffMolecules, exactInterferers, adviceTargetBits, progress, channel);
+        return new PlanOptions(bits, cutoffMolecules, exactInterferers, adviceTargetBits, progress, channel,
+                jointBudgets);
     }
 
     /** A copy with another progress callback. */
     public PlanOptions withProgress(DoubleConsumer callback) {
         return new PlanOptions(capacityFloorBits, cutoffMolecules, exactInterferers, adviceTargetBits, callback,
-                channel);
+                channel, jointBudgets);
     }
 
     /** A copy using the given channel (e.g. simulated taps) instead of the analytic one. */
     public PlanOptions withChannel(ChannelMatrix given) {
         return new PlanOptions(capacityFloorBits, cutoffMolecules, exactInterferers, adviceTargetBits, progress,
-                given);
+                given, jointBudgets);
     }
 
     /** A copy with another spatial cutoff. */
     public PlanOptions withCutoff(double molecules) {
-        return new PlanOptions(capacityFloorBits, molecules, exactInterferers, adviceTargetBits, progress, channel);
+        return new PlanOptions(capacityFloorBits, molecules, exactInterferers, adviceTargetBits, progress, channel,
+                jointBudgets);
     }
 
     /** A copy with another number of exactly treated interferers. */
     public PlanOptions withExactInterferers(int count) {
-        return new PlanOptions(capacityFloorBits, cutoffMolecules, count, adviceTargetBits, progress, channel);
+        return new PlanOptions(capacityFloorBits, cutoffMolecules, count, adviceTargetBits, progress, channel,
+                jointBudgets);
+    }
+
+    /** A copy with joint ({@code true}) or independent molecule budgets. */
+    public PlanOptions withJointBudgets(boolean joint) {
+        return new PlanOptions(capacityFloorBits, cutoffMolecules, exactInterferers, adviceTargetBits, progress,
+                channel, joint);
     }
 }

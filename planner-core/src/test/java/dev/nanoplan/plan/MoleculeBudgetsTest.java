@@ -36,6 +36,9 @@ import org.junit.jupiter.params.provider.EnumSource;
  */
 class MoleculeBudgetsTest {
 
+    /** These tests check the independent reading (JointMoleculeBudgetsTest checks the joint one). */
+    private static final PlanOptions INDEPENDENT = PlanOptions.DEFAULT.withJointBudgets(false);
+
     /** A seeded swarm ({@link SwarmGenerator}) with the given count model, prior 0.3 and a 1 % error target. */
     private static Scenario swarm(CountModelKind model, long seed) {
         Scenario s = SwarmGenerator.generate(24, seed);
@@ -52,7 +55,7 @@ class MoleculeBudgetsTest {
         int checked = 0;
         for (long seed = 1; seed <= 3; seed++) {
             Scenario s = swarm(model, seed);
-            checked += checkMinimal(s, NetworkPlanner.plan(s, PlanOptions.DEFAULT), false);
+            checked += checkMinimal(s, NetworkPlanner.plan(s, INDEPENDENT), false);
         }
         assertThat(checked).as("budgets checked").isPositive();
     }
@@ -60,7 +63,7 @@ class MoleculeBudgetsTest {
     @Test
     void cultureTankBudgetsAreMinimalAndNeverContradictTheLinkTable() throws Exception {
         Scenario s = bundled("culture-tank.json");
-        Plan plan = NetworkPlanner.plan(s, PlanOptions.DEFAULT);
+        Plan plan = NetworkPlanner.plan(s, INDEPENDENT);
         assertThat(checkMinimal(s, plan, false)).isPositive();
         double target = s.targets().maxErrorProbability();
         ChannelMatrix channel = AnalyticChannel.build(s, PlanOptions.DEFAULT.cutoffMolecules());
@@ -95,14 +98,14 @@ class MoleculeBudgetsTest {
     void countBlindTargetIsFlaggedAndBudgetsAreSizedForTheRate() throws Exception {
         Scenario file = bundled("relay-chain-relayed.json");
         Scenario s = withTargets(file, new Targets(0.5, 0.1, 3600));
-        Plan plan = NetworkPlanner.plan(s, PlanOptions.DEFAULT);
+        Plan plan = NetworkPlanner.plan(s, INDEPENDENT);
         assertThat(plan.warnings()).anyMatch(w -> w.contains("ignores the count")
                 && w.contains("sized for targets.min_rate_bits_per_s"));
         assertThat(plan.budgets()).allMatch(BudgetReport::countBlindTarget);
         assertThat(checkMinimal(s, plan, true)).isEqualTo(plan.budgets().size());
 
         Scenario none = withTargets(file, new Targets(0.5, 0, 3600));
-        Plan unsized = NetworkPlanner.plan(none, PlanOptions.DEFAULT);
+        Plan unsized = NetworkPlanner.plan(none, INDEPENDENT);
         assertThat(unsized.warnings()).anyMatch(w -> w.contains("budgets are not sized"));
         for (BudgetReport b : unsized.budgets()) {
             assertThat(b.countBlindTarget()).isTrue();
@@ -111,7 +114,7 @@ class MoleculeBudgetsTest {
         }
         // at prior 1/2 no N carries more than H(1/2) = 1 bit per symbol (Shannon, 1948: I(X;Y) ≤ H(X)), so 0.25 bit/s
         // over T = 5 s (1.25 bit per symbol) is out of reach for every node, whatever its N
-        Plan tooFast = NetworkPlanner.plan(withTargets(file, new Targets(0.5, 0.25, 3600)), PlanOptions.DEFAULT);
+        Plan tooFast = NetworkPlanner.plan(withTargets(file, new Targets(0.5, 0.25, 3600)), INDEPENDENT);
         assertThat(file.signalling().symbolTimeS()).isEqualTo(5.0);
         for (BudgetReport b : tooFast.budgets()) {
             assertThat(b.feasible()).isFalse();

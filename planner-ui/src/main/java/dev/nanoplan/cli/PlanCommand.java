@@ -63,6 +63,10 @@ public final class PlanCommand implements Callable<Integer> {
             description = "Drop links carrying less than X bits/symbol (default: the planner's).")
     Double capacityFloorBits;
 
+    @Option(names = "--budgets", paramLabel = "MODE", description = "Molecule budgets: joint (default; all route "
+            + "emitters together, power control) or independent (each alone, the others at their file budgets).")
+    String budgets = "joint";
+
     @Option(names = "--lenient", description = "Treat unknown fields in the scenario as warnings, not errors.")
     boolean lenient;
 
@@ -84,6 +88,10 @@ public final class PlanCommand implements Callable<Integer> {
             }
             options = options.withFloor(capacityFloorBits);
         }
+        if (!budgets.equals("joint") && !budgets.equals("independent")) {
+            throw new BadInputException("--budgets: must be joint or independent, got " + budgets);
+        }
+        options = options.withJointBudgets(budgets.equals("joint"));
         channelOptions.check();
         ScenarioReader.Result read = ScenarioFiles.read(scenarioFile, lenient, err);
         if (read == null) {
