@@ -1,5 +1,8 @@
 package dev.nanoplan.tolerance;
 
+import dev.nanoplan.engine.Engine;
+import dev.nanoplan.engine.UnitResults;
+
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.ExecutionException;
@@ -94,6 +97,29 @@ public final class ToleranceRunner {
         }
         boolean partial = summary.size() < n;
         ToleranceResult r = summary.result(partial);
+        if (guardSamples == 0 || cancelled.get()) {
+            return r;
+        }
+        return withGuardBands(r, Math.min(guardSamples, summary.size()));
+    }
+
+    /**
+     * Runs {@code n} samples as work units ({@link ToleranceSamples}) on {@code engine}: the same result as
+     * {@link #run(int, IntConsumer)} whatever the engine (samples are added in index order), guard bands
+     * computed here afterwards.
+     *
+     * @param progress called with the number of finished samples
+     * @throws IllegalArgumentException as {@link ToleranceStudy#sample}
+     */
+    public ToleranceResult run(Engine engine, int n, IntConsumer progress) {
+        ToleranceSamples units = new ToleranceSamples(study, n);
+        UnitResults<ToleranceSample> results = engine.run(units, (done, total) -> progress.accept((int) done),
+                cancelled::get);
+        ToleranceSummary summary = units.summary(results);
+        if (summary.size() == 0 && n > 0) {
+            throw new IllegalStateException("no sample finished");
+        }
+        ToleranceResult r = summary.result(summary.size() < n);
         if (guardSamples == 0 || cancelled.get()) {
             return r;
         }

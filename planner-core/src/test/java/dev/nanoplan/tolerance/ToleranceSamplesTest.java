@@ -35,6 +35,16 @@ class ToleranceSamplesTest {
     }
 
     @Test
+    void theRunnerOnAnEngineGivesTheRunnersOwnResultWithGuardBands() throws Exception {
+        ToleranceStudy study = new ToleranceStudy(cultureTank(), Sampler.SOBOL, 4, Thresholds.DESIGN);
+        // oracle: the runner's own thread pool, 2 guard samples (what `tolerance` printed before --engine)
+        ToleranceResult expected = new ToleranceRunner(study, 2, 2).run(16, k -> { });
+        try (LocalEngine engine = new LocalEngine(3)) {
+            assertThat(new ToleranceRunner(study, 3, 2).run(engine, 16, k -> { })).isEqualTo(expected);
+        }
+    }
+
+    @Test
     void aCopyThatTravelledToAnotherJvmDrawsTheSameSamples() throws Exception {
         ToleranceStudy study = new ToleranceStudy(cultureTank(), Sampler.RANDOM, 8, Thresholds.RECALIBRATED);
         ToleranceSamples units = new ToleranceSamples(study, 6);

@@ -1,5 +1,7 @@
 package dev.nanoplan.cli;
 
+import dev.nanoplan.engine.Engine;
+
 import dev.nanoplan.io.AtomicFiles;
 import dev.nanoplan.report.Cautions;
 import dev.nanoplan.report.ToleranceReport;
@@ -22,6 +24,7 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -60,6 +63,9 @@ public final class ToleranceCommand implements Callable<Integer> {
 
     @Option(names = "--threads", description = "Worker threads, default: the number of processors.")
     Integer threads;
+
+    @Mixin
+    EngineOptions engineOptions = new EngineOptions();
 
     @Option(names = "--json", description = "Print one JSON object on stdout.")
     boolean json;
@@ -125,7 +131,9 @@ public final class ToleranceCommand implements Callable<Integer> {
             long start = System.nanoTime();
             ToleranceResult r;
             try {
-                r = runner.run(samples, done -> progress(err, done, samples, start));
+                try (Engine engine = engineOptions.open(n, err)) {
+                    r = runner.run(engine, samples, done -> progress(err, done, samples, start));
+                }
             } catch (IllegalArgumentException e) {
                 throw new BadInputException(scenarioFile + ": " + e.getMessage());
             }
