@@ -98,7 +98,11 @@ public final class PlanText {
                         Numbers.quantity(sh.rateBitsPerS()), sh.limitedAt(), sh.sharedWith()));
             }
         }
-        sb.append("\nBudgets (method independent: each node alone, every other emitter at its file budget)\n");
+        boolean joint = plan.budgets().stream().anyMatch(b -> "joint".equals(b.method()));
+        sb.append(joint
+                ? "\nBudgets (method joint: the route emitters sized together, power-control fixed point; "
+                        + "conflicting groups named in the reason)\n"
+                : "\nBudgets (method independent: each node alone, every other emitter at its file budget)\n");
         sb.append(String.format(Locale.ROOT, "%-12s %14s %14s %16s %-8s %s%n", "node", "N needed", "molecules/s",
                 "per mission", "feasible", "reason"));
         for (BudgetReport b : plan.budgets()) {
