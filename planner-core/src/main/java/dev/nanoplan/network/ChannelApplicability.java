@@ -59,8 +59,8 @@ public final class ChannelApplicability {
     /**
      * Any change of the mean count over the memory below this many molecules is ignored: it moves the
      * pair's count law by at most that much in total variation (each tap changes by δ_k with Σ|δ_k| the
-     * change of the catch, and TV(Bin(N, p), Bin(N, p′)) ≤ N·|p − p′| by the coupling inequality; T.
-     * Lindvall, <i>Lectures on the Coupling Method</i>, Wiley, 1992), so no probability the plan derives
+     * change of the catch, and TV(Bin(N, p), Bin(N, p′)) ≤ N·|p − p′| by the coupling inequality; D. A.
+     * Levin, Y. Peres and E. L. Wilmer, <i>Markov Chains and Mixing Times</i>, AMS, 2009, Prop. 4.7), so no probability the plan derives
      * from that count moves by more.
      */
     public static final double MAX_COUNT_CHANGE = 0.01;
