@@ -29,16 +29,20 @@ class ToleranceSamplesTest {
         ToleranceStudy study = new ToleranceStudy(cultureTank(), Sampler.SOBOL, 3, Thresholds.DESIGN);
         ToleranceSamples units = new ToleranceSamples(study, 24);
         UnitResults<ToleranceSample> got = new LocalEngine(2).run(units);
-        // oracle: the study's own thread-pool runner (no guard bands) on the same samples
-        ToleranceResult expected = new ToleranceRunner(study, 1, 0).run(24, k -> { });
+        // oracle: the same samples drawn one after another in index order on this thread, no engine
+        ToleranceSummary sequential = new ToleranceSummary(study);
+        for (int i = 0; i < 24; i++) {
+            sequential.add(study.sample(i));
+        }
+        ToleranceResult expected = sequential.result(false);
         assertThat(units.summary(got).result(false)).isEqualTo(expected);
     }
 
     @Test
     void theRunnerOnAnEngineGivesTheRunnersOwnResultWithGuardBands() throws Exception {
         ToleranceStudy study = new ToleranceStudy(cultureTank(), Sampler.SOBOL, 4, Thresholds.DESIGN);
-        // oracle: the runner's own thread pool, 2 guard samples (what `tolerance` printed before --engine)
-        ToleranceResult expected = new ToleranceRunner(study, 2, 2).run(16, k -> { });
+        // oracle: the runner on a single thread, 2 guard samples; the engine run uses 3 threads
+        ToleranceResult expected = new ToleranceRunner(study, 1, 2).run(16, k -> { });
         try (LocalEngine engine = new LocalEngine(3)) {
             assertThat(new ToleranceRunner(study, 3, 2).run(engine, 16, k -> { })).isEqualTo(expected);
         }
