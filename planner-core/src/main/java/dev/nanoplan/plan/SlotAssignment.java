@@ -10,6 +10,7 @@ import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.function.DoubleConsumer;
 import org.jgrapht.Graph;
 import org.jgrapht.Graphs;
 import org.jgrapht.graph.DefaultEdge;
@@ -80,7 +81,16 @@ public final class SlotAssignment {
 
     /** Finds the slot plan of {@code scenario} (see the class comment). */
     public Result assign(Scenario scenario) {
-        Plan before = NetworkPlanner.plan(scenario, options);
+        return assign(scenario, f -> { });
+    }
+
+    /**
+     * As {@link #assign(Scenario)}, telling {@code progress} the fraction done in [0, 1]: the first plan
+     * is the first fifth, then one step per what-if plan of the budget. A caller may stop the work by
+     * throwing from {@code progress} (the exception propagates; nothing is kept).
+     */
+    public Result assign(Scenario scenario, DoubleConsumer progress) {
+        Plan before = NetworkPlanner.plan(scenario, options.withProgress(f -> progress.accept(0.2 * f)));
         Scenario rr = withSlots(scenario, SlotPlan.fileOrder(scenario.nodes()));
         IncrementalPlanner planner = IncrementalPlanner.exact(rr, options.withProgress(f -> { }));
         List<LinkKey> hops = new ArrayList<>();
@@ -129,6 +139,7 @@ public final class SlotAssignment {
                 Scenario candidate = withSlots(scenario, move);
                 Score s = Score.of(planner.whatIf(candidate));
                 evaluations++;
+                progress.accept(0.2 + 0.8 * Math.min(1, evaluations / (double) Math.max(1, maxEvaluations)));
                 if (s.compareTo(bestMoveScore) > 0) {
                     bestMove = candidate;
                     bestMoveScore = s;
@@ -155,6 +166,7 @@ public final class SlotAssignment {
                 finalSlots.put(n.id(), current.signalling().slots().get(n.id()));
             }
         }
+        progress.accept(1);
         return new Result(current, SlotSchedule.of(current).longestFrame(), finalSlots, conflicts.edgeSet().size(),
                 demands, evaluations);
     }

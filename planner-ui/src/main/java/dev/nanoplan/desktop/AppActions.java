@@ -151,6 +151,8 @@ public final class AppActions {
         t.setWrapText(true);
         t.setPrefSize(560, 320);
         a.getDialogPane().setContent(t);
+        // the dialog is a scene of its own: the app's stylesheet makes it dark like the window
+        a.getDialogPane().getStylesheets().add(AppActions.class.getResource("nanoplan.css").toExternalForm());
         a.showAndWait();
     }
 

@@ -4,6 +4,7 @@ import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
+import java.util.List;
 import java.util.Objects;
 import javafx.beans.property.SimpleStringProperty;
 import javafx.beans.property.StringProperty;
@@ -22,14 +23,14 @@ public final class LayoutEditor {
 
     LayoutEditor(ScenarioDocument document) {
         this.document = Objects.requireNonNull(document, "document");
-        selectedNodeId.addListener((o, a, b) -> inspector.load(b == null ? null : nodeById(b)));
+        selectedNodeId.addListener((o, a, b) -> inspector.load(document.scenario(), b == null ? null : nodeById(b)));
         document.onReplaced(() -> selectedNodeId.set(null));
         document.onShown(s -> {
             String sel = selectedNodeId.get();
             if (sel != null && nodeById(sel) == null) {
                 selectedNodeId.set(null);
             } else if (sel != null) {
-                inspector.load(nodeById(sel));
+                inspector.load(s, nodeById(sel));
             }
         });
     }
@@ -40,21 +41,33 @@ public final class LayoutEditor {
                 && reselect(node.id());
     }
 
-    /** Applies the inspector's fields to the selected node; a bad field is refused naming it. */
+    /**
+     * Applies the inspector's fields (and, under the slots schedule, the slot) to the selected node as
+     * one edit; a bad field is refused naming it, with the message beside the field.
+     */
     public boolean applyInspector() {
         String id = selectedNodeId.get();
         if (id == null) {
             document.say("select a node first");
             return false;
         }
-        Node n;
+        NodeInspector.Edit e;
         try {
-            n = inspector.toNode();
-        } catch (IllegalArgumentException e) {
-            document.say("edit " + id + " refused: " + e.getMessage());
+            e = inspector.toEdit();
+        } catch (IllegalArgumentException ex) {
+            document.say("edit " + id + " refused: " + ex.getMessage());
             return false;
         }
-        return replaceNode(id, n);
+        Node n = e.node();
+        ScenarioDocument.EditFunction change = (s, unused) -> LayoutEdits.withSlot(
+                LayoutEdits.replaceNode(s, unused, id, n), n.id(), e.slot());
+        try {
+            // the layout's own checks (overlap, outside the volume) are marked beside the field too
+            change.apply(document.scenario(), List.copyOf(document.unusedSpecies()));
+        } catch (IllegalArgumentException ex) {
+            inspector.placeLayoutProblem(ex);
+        }
+        return document.edit("edit " + id, change) && reselect(n.id());
     }
 
     /** Moves a node to a new centre. */
@@ -64,7 +77,7 @@ public final class LayoutEditor {
         }
         boolean ok = document.edit("move " + id, (s, unused) -> LayoutEdits.moveNode(s, unused, id, positionUm));
         if (ok) {
-            inspector.load(nodeById(id));
+            inspector.load(document.scenario(), nodeById(id));
         }
         return ok;
     }

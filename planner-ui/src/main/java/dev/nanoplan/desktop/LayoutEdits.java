@@ -5,10 +5,13 @@ import dev.nanoplan.scenario.Demand;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Signalling;
 import dev.nanoplan.scenario.Species;
 import java.util.ArrayList;
 import java.util.HashSet;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
 
 /**
@@ -80,6 +83,25 @@ final class LayoutEdits {
                 .map(d -> new Demand(d.from().equals(id) ? node.id() : d.from(), d.to().equals(id) ? node.id() : d.to()))
                 .toList();
         return with(s, unused, nodes, demands);
+    }
+
+    /**
+     * The layout with emitter {@code id} in slot {@code slot} (schedule {@code slots}); the same layout
+     * when {@code slot} is null or already the node's.
+     */
+    static Scenario withSlot(Scenario s, String id, Integer slot) {
+        if (slot == null || slot.equals(s.signalling().slots().get(id))) {
+            return s;
+        }
+        Map<String, Integer> slots = new LinkedHashMap<>(s.signalling().slots());
+        slots.put(id, slot);
+        return withSignalling(s, s.signalling().withSlots(s.signalling().frameSlots(), slots));
+    }
+
+    /** The layout with another signalling (e.g. a slot plan); everything else stays. */
+    static Scenario withSignalling(Scenario s, Signalling signalling) {
+        return new Scenario(s.name(), s.volume(), s.medium(), s.species(), signalling, s.nodes(), s.demands(),
+                s.targets(), s.candidateSpecies(), s.tolerances());
     }
 
     /** Moves the node {@code id} to a new centre; everything else about it stays. */

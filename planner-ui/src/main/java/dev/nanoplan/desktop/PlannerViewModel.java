@@ -54,6 +54,7 @@ public final class PlannerViewModel {
     private final ScenarioSettings settings = new ScenarioSettings();
     private final ObservableList<String> speciesNames = FXCollections.observableArrayList();
     private final StringBinding routeSummary;
+    private final SlotAssigner slots;
     /** The settings-relevant parts of the layout last loaded into the settings editor. */
     private List<Object> settingsKey;
 
@@ -90,6 +91,7 @@ public final class PlannerViewModel {
         document = new ScenarioDocument(recent, this::beforeShown);
         document.onShown(this::afterShown);
         editor = new LayoutEditor(document);
+        slots = new SlotAssigner(document, uiThread, SlotAssigner.daemonThreads(), SlotAssigner.core());
         document.onReplaced(() -> {
             tables.clearSelection();
             settingsKey = null; // another layout: the settings editor always starts from the file
@@ -207,6 +209,7 @@ public final class PlannerViewModel {
         try {
             applied = settings.apply(before, document.unusedSpecies());
         } catch (IllegalArgumentException e) {
+            // the settings editor also shows the message beside the field (ScenarioSettings.errors())
             say(label + " refused: " + e.getMessage());
             return false;
         }
@@ -281,6 +284,11 @@ public final class PlannerViewModel {
     /** Node and demand commands with the selected node and its inspector. */
     public LayoutEditor editor() {
         return editor;
+    }
+
+    /** "Assign slots" in the background, and the frame under the slots schedule. */
+    public SlotAssigner slots() {
+        return slots;
     }
 
     /** The layout as a document: file, title, unsaved mark, undo history, unused species. */

@@ -117,6 +117,7 @@ public final class ScenarioDocument {
             return false;
         }
         file.set(path);
+        undo.markSaved();
         dirty.set(false);
         recent.add(path);
         message.set("saved " + path.getFileName() + (unusedSpecies.isEmpty() ? ""
@@ -163,7 +164,7 @@ public final class ScenarioDocument {
         undo.push(new UndoStack.Edit(label, before, after, unusedBefore, unusedAfter));
         unusedSpecies.setAll(unusedAfter);
         show(after);
-        dirty.set(true);
+        dirty.set(!undo.atSaved());
         message.set(label);
         return true;
     }
@@ -185,7 +186,8 @@ public final class ScenarioDocument {
         }
         unusedSpecies.setAll(back ? e.unusedBefore() : e.unusedAfter());
         show(back ? e.before() : e.after());
-        dirty.set(true);
+        // back at the saved layout (undo or redo), the unsaved mark goes
+        dirty.set(!undo.atSaved());
         message.set((back ? "undid " : "redid ") + e.label());
         return true;
     }

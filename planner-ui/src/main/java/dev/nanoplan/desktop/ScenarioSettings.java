@@ -73,6 +73,19 @@ public final class ScenarioSettings {
         }
     }
 
+    /** File paths of the fields, the keys of {@link #errors()}. */
+    public static final String TEMPERATURE = "medium.temperature_k";
+    public static final String VISCOSITY = "medium.viscosity_mPa_s";
+    public static final String BACKGROUND = "medium.background_molecules_per_s";
+    /** Uniform flow velocity; the components are {@code [0]}, {@code [1]}, {@code [2]} after it. */
+    public static final String VELOCITY = "medium.flow.velocity_um_per_s";
+    public static final String MEAN_SPEED = "medium.flow.mean_speed_um_per_s";
+    public static final String SYMBOL_TIME = "signalling.symbol_time_s";
+    public static final String ISI_MEMORY = "signalling.isi_memory_symbols";
+    public static final String LEVELS = "signalling.levels";
+    public static final String PRIOR_ONE = "signalling.prior_one";
+
+    private final FieldErrors errors = new FieldErrors();
     private final StringProperty temperatureK = new SimpleStringProperty("");
     private final StringProperty viscosityMPaS = new SimpleStringProperty("");
     private final StringProperty backgroundMoleculesPerS = new SimpleStringProperty("");
@@ -102,6 +115,7 @@ public final class ScenarioSettings {
      */
     public void load(Scenario s, List<Species> unused) {
         removed.clear();
+        errors.clear();
         if (s == null) {
             for (StringProperty p : new StringProperty[] {temperatureK, viscosityMPaS, backgroundMoleculesPerS,
                 flowVxUmPerS, flowVyUmPerS, flowVzUmPerS, flowMeanSpeedUmPerS, symbolTimeS, isiMemorySymbols,
@@ -199,25 +213,41 @@ public final class ScenarioSettings {
      *     not parse, is out of range, a name is blank or taken, or a removed species is still used
      */
     public Applied apply(Scenario s, List<Species> unused) {
+        errors.clear();
+        try {
+            return applyFields(s, unused);
+        } catch (FieldErrors.FieldException e) {
+            throw errors.record(e);
+        }
+    }
+
+    private Applied applyFields(Scenario s, List<Species> unused) {
+        // every number is parsed first, so all malformed fields are marked at once
+        double temperature = errors.number(TEMPERATURE, temperatureK.get());
+        double viscosity = errors.number(VISCOSITY, viscosityMPaS.get());
+        double background = errors.number(BACKGROUND, backgroundMoleculesPerS.get());
+        Flow flow = flow();
+        double symbolTime = errors.number(SYMBOL_TIME, symbolTimeS.get());
+        long isi = errors.whole(ISI_MEMORY, isiMemorySymbols.get());
+        long lv = errors.whole(LEVELS, levels.get());
+        double prior = errors.number(PRIOR_ONE, priorOne.get());
+        errors.throwFirst();
         Medium medium;
         try {
-            medium = new Medium(SettingsText.parse("temperature K", temperatureK.get()),
-                    SettingsText.parse("viscosity mPa·s", viscosityMPaS.get()), flow(),
-                    SettingsText.parse("background molecules/s", backgroundMoleculesPerS.get()));
+            medium = new Medium(temperature, viscosity, flow, background);
         } catch (IllegalArgumentException e) {
-            throw SettingsText.prefixed("medium", e);
+            throw FieldErrors.translate("medium", "medium", e);
         }
         Signalling signalling;
         try {
-            signalling = new Signalling(SettingsText.parse("symbol time s", symbolTimeS.get()),
-                    SettingsText.parseInt("ISI memory symbols", isiMemorySymbols.get()), SettingsText.parseInt("levels", levels.get()),
-                    SettingsText.parse("prior one", priorOne.get()), countModel.get(), schedule.get());
+            signalling = new Signalling(symbolTime, clampToInt(isi), clampToInt(lv), prior, countModel.get(),
+                    schedule.get());
             if (schedule.get() == Schedule.SLOTS) {
                 // keep the slot plan; a new slots schedule starts from file order (round-robin)
                 signalling = signalling.withSlots(s.signalling().frameSlots(), s.signalling().slots());
             }
         } catch (IllegalArgumentException e) {
-            throw SettingsText.prefixed("signalling", e);
+            throw FieldErrors.translate("signalling", "signalling", e);
         }
 
         Map<String, Species> old = new HashMap<>();
@@ -227,11 +257,13 @@ public final class ScenarioSettings {
         Map<String, String> renamed = new HashMap<>();
         for (int i = 0; i < species.size(); i++) {
             SpeciesRow row = species.get(i);
+            String at = "species[" + i + "]";
             String label = row.originalName != null ? "species " + row.originalName : "new species row " + (i + 1);
             try {
-                declared.add(row.toSpecies(medium));
+                declared.add(row.toSpecies(medium, at));
             } catch (IllegalArgumentException e) {
-                throw SettingsText.prefixed(label, e);
+                FieldErrors.FieldException f = FieldErrors.translate(at, at, e);
+                throw new FieldErrors.FieldException(f.field(), label + ": " + f.getMessage());
             }
             if (row.originalName != null && !row.originalName.equals(row.name())) {
                 renamed.put(row.originalName, row.name());
@@ -269,7 +301,7 @@ public final class ScenarioSettings {
             return new Applied(new Scenario(s.name(), s.volume(), medium, inLayout, signalling, nodes, s.demands(),
                     s.targets(), s.candidateSpecies(), s.tolerances()), notUsed);
         } catch (IllegalArgumentException e) {
-            throw new IllegalArgumentException(SettingsText.oneLine(e.getMessage()), e);
+            throw FieldErrors.fromProblems(e);
         }
     }
 
@@ -290,35 +322,38 @@ public final class ScenarioSettings {
         }
         for (ScenarioProblem p : ScenarioValidator.check(s.volume(), medium.flow(), declared, nodes, s.demands())) {
             if (p.path().startsWith("species[") && !skip.contains(p.path())) {
-                throw new IllegalArgumentException(p.toString());
+                throw new FieldErrors.FieldException(p.path(), p.toString());
             }
         }
     }
 
+    /** The flow the fields describe (NaN components when malformed: recorded in {@link #errors()}). */
     private Flow flow() {
         String profile = flowProfile.get();
-        try {
-            if (FLOW_PROFILES.get(1).equals(profile)) {
-                return new Flow.Uniform(new Vec3(SettingsText.parse("flow velocity x µm/s", flowVxUmPerS.get()),
-                        SettingsText.parse("flow velocity y µm/s", flowVyUmPerS.get()),
-                        SettingsText.parse("flow velocity z µm/s", flowVzUmPerS.get())));
-            }
-            if (FLOW_PROFILES.get(2).equals(profile)) {
-                String field = "flow mean speed µm/s";
-                double u = SettingsText.parse(field, flowMeanSpeedUmPerS.get());
-                try {
-                    return new Flow.Poiseuille(u);
-                } catch (IllegalArgumentException e) {
-                    throw SettingsText.prefixed(field, e);
-                }
-            }
-            if (FLOW_PROFILES.get(0).equals(profile)) {
-                return new Flow.None();
-            }
-        } catch (IllegalArgumentException e) {
-            throw SettingsText.prefixed("flow", e);
+        if (FLOW_PROFILES.get(1).equals(profile)) {
+            double x = errors.number(VELOCITY + "[0]", flowVxUmPerS.get());
+            double y = errors.number(VELOCITY + "[1]", flowVyUmPerS.get());
+            double z = errors.number(VELOCITY + "[2]", flowVzUmPerS.get());
+            // a malformed component is recorded; the caller refuses before the flow is used
+            return Double.isNaN(x + y + z) ? new Flow.None() : new Flow.Uniform(new Vec3(x, y, z));
         }
-        throw new IllegalArgumentException("flow: unknown profile '" + profile + "', expected one of " + FLOW_PROFILES);
+        if (FLOW_PROFILES.get(2).equals(profile)) {
+            double u = errors.number(MEAN_SPEED, flowMeanSpeedUmPerS.get());
+            try {
+                return new Flow.Poiseuille(Double.isNaN(u) ? 0 : u);
+            } catch (IllegalArgumentException e) {
+                throw FieldErrors.translate("medium.flow", MEAN_SPEED, e);
+            }
+        }
+        if (FLOW_PROFILES.get(0).equals(profile)) {
+            return new Flow.None();
+        }
+        throw new FieldErrors.FieldException("medium.flow.profile", "medium.flow.profile: unknown profile '" + profile
+                + "', expected one of " + FLOW_PROFILES);
+    }
+
+    private static int clampToInt(long v) {
+        return (int) Math.max(Integer.MIN_VALUE, Math.min(Integer.MAX_VALUE, v));
     }
 
     private static void refuseIfUsed(String name, List<String> nodeIds) {
@@ -364,6 +399,11 @@ public final class ScenarioSettings {
 
     private static String fmt(double v) {
         return Formats.field(v);
+    }
+
+    /** The message beside each refused field after {@link #apply}, keyed by the field's file path. */
+    public FieldErrors errors() {
+        return errors;
     }
 
     public StringProperty temperatureKProperty() {

@@ -1,7 +1,10 @@
 package dev.nanoplan.desktop;
 
 import static dev.nanoplan.desktop.Widgets.button;
+import static dev.nanoplan.desktop.Widgets.errorLabel;
 import static dev.nanoplan.desktop.Widgets.field;
+import static dev.nanoplan.desktop.Widgets.fieldRow;
+import static dev.nanoplan.desktop.Widgets.outline;
 import static dev.nanoplan.desktop.Widgets.grid;
 import static dev.nanoplan.desktop.Widgets.section;
 import static dev.nanoplan.desktop.Widgets.smallField;
@@ -54,32 +57,40 @@ final class SettingsPane {
         ScenarioSettings st = vm.settings();
         GridPane medium = grid();
         int row = 0;
-        medium.addRow(row++, new Label("temperature K"), field(st.temperatureKProperty()));
-        medium.addRow(row++, new Label("viscosity mPa·s"), field(st.viscosityMPaSProperty()));
-        medium.addRow(row++, new Label("background molecules/s"), field(st.backgroundMoleculesPerSProperty()));
+        FieldErrors errors = st.errors();
+        row = fieldRow(medium, row, new Label("temperature K"), field(st.temperatureKProperty(), "settings-temperature"),
+                errors.message(ScenarioSettings.TEMPERATURE));
+        row = fieldRow(medium, row, new Label("viscosity mPa·s"), field(st.viscosityMPaSProperty(), "settings-viscosity"),
+                errors.message(ScenarioSettings.VISCOSITY));
+        row = fieldRow(medium, row, new Label("background molecules/s"),
+                field(st.backgroundMoleculesPerSProperty(), "settings-background"),
+                errors.message(ScenarioSettings.BACKGROUND));
         ChoiceBox<String> flow = new ChoiceBox<>();
         flow.getItems().addAll(ScenarioSettings.FLOW_PROFILES);
         flow.valueProperty().bindBidirectional(st.flowProfileProperty());
         flow.setId("flow-profile");
         flow.setTooltip(new Tooltip("Bulk flow of the medium: none (still fluid), uniform (the same drift "
                 + "everywhere) or poiseuille (laminar flow along +x, cylinder volumes only)"));
-        medium.addRow(row++, new Label("flow"), flow);
+        row = fieldRow(medium, row, new Label("flow"), flow, errors.message("medium.flow.profile"));
         HBox velocity = new HBox(4);
-        for (var p : List.of(st.flowVxUmPerSProperty(), st.flowVyUmPerSProperty(), st.flowVzUmPerSProperty())) {
-            TextField c = smallField(p, "0");
+        var components = List.of(st.flowVxUmPerSProperty(), st.flowVyUmPerSProperty(), st.flowVzUmPerSProperty());
+        for (int i = 0; i < components.size(); i++) {
+            TextField c = smallField(components.get(i), "0");
             c.setPrefColumnCount(3);
+            outline(c, errors.message(ScenarioSettings.VELOCITY + "[" + i + "]"));
             velocity.getChildren().add(c);
         }
         Label velocityLabel = new Label("velocity µm/s (x, y, z)");
         showWhen(st, ScenarioSettings.FLOW_PROFILES.get(1), velocityLabel, velocity);
         // the uniform and the poiseuille fields share one row: only one of them is shown
         medium.addRow(row, velocityLabel, velocity);
+        medium.add(errorLabel(errors.messageUnder(ScenarioSettings.VELOCITY)), 0, row + 1, 2, 1);
         TextField meanSpeed = field(st.flowMeanSpeedUmPerSProperty());
         meanSpeed.setTooltip(new Tooltip("Mean speed over the cross-section; the speed on the axis is twice this "
                 + "and zero at the wall (Hagen–Poiseuille)"));
         Label meanSpeedLabel = new Label("mean speed µm/s");
         showWhen(st, ScenarioSettings.FLOW_PROFILES.get(2), meanSpeedLabel, meanSpeed);
-        medium.addRow(row++, meanSpeedLabel, meanSpeed);
+        row = fieldRow(medium, row, meanSpeedLabel, meanSpeed, errors.message(ScenarioSettings.MEAN_SPEED));
 
         GridPane signalling = grid();
         // the medium and signalling fields line up in one column
@@ -89,10 +100,14 @@ final class SettingsPane {
             g.getColumnConstraints().add(labels);
         }
         row = 0;
-        signalling.addRow(row++, new Label("symbol time s"), field(st.symbolTimeSProperty()));
-        signalling.addRow(row++, new Label("ISI memory symbols"), field(st.isiMemorySymbolsProperty()));
-        signalling.addRow(row++, new Label("levels"), field(st.levelsProperty()));
-        signalling.addRow(row++, new Label("prior one"), field(st.priorOneProperty()));
+        row = fieldRow(signalling, row, new Label("symbol time s"), field(st.symbolTimeSProperty(), "settings-symbol-time"),
+                errors.message(ScenarioSettings.SYMBOL_TIME));
+        row = fieldRow(signalling, row, new Label("ISI memory symbols"),
+                field(st.isiMemorySymbolsProperty(), "settings-isi-memory"), errors.message(ScenarioSettings.ISI_MEMORY));
+        row = fieldRow(signalling, row, new Label("levels"), field(st.levelsProperty(), "settings-levels"),
+                errors.message(ScenarioSettings.LEVELS));
+        row = fieldRow(signalling, row, new Label("prior one"), field(st.priorOneProperty(), "settings-prior-one"),
+                errors.message(ScenarioSettings.PRIOR_ONE));
         ChoiceBox<CountModelKind> count = new ChoiceBox<>();
         count.getItems().addAll(CountModelKind.values());
         count.setConverter(new StringConverter<>() {
@@ -138,14 +153,16 @@ final class SettingsPane {
             species.addRow(0, new Label("name"), new Label("D µm²/s"), new Label("radius nm"),
                     new Label("half-life s"), new Label("used by"));
             int r = 1;
+            int i = 0;
             for (SpeciesRow sp : st.species()) {
+                String at = "species[" + i + "]";
                 TextField name = smallField(sp.nameProperty(), "name");
                 name.setTooltip(new Tooltip("Renaming renames the species in every node on Apply"));
-                name.setId("species-name-" + (r - 1));
+                name.setId("species-name-" + i);
                 TextField d = smallField(sp.diffusionUm2PerSProperty(), "D");
                 d.setPrefColumnCount(6);
                 d.setTooltip(new Tooltip("Diffusion coefficient; give this or the hydrodynamic radius"));
-                d.setId("species-d-" + (r - 1));
+                d.setId("species-d-" + i);
                 TextField radius = smallField(sp.hydrodynamicRadiusNmProperty(), "—");
                 radius.setTooltip(new Tooltip("Hydrodynamic radius: D then follows from Stokes–Einstein, "
                         + "D = kT/(6πηr), at the medium's temperature and viscosity"));
@@ -158,8 +175,17 @@ final class SettingsPane {
                 }
                 Button remove = button("−", "Remove this species on Apply (refused while nodes use it)",
                         () -> vm.removeSpecies(sp));
-                remove.setId("remove-species-" + (r - 1));
-                species.addRow(r++, name, d, radius, half, used, remove);
+                remove.setId("remove-species-" + i);
+                outline(name, errors.message(at + ".name"));
+                outline(d, errors.message(at + ".diffusion_um2_per_s"));
+                outline(radius, errors.message(at + ".hydrodynamic_radius_nm"));
+                outline(half, errors.message(at + ".half_life_s"));
+                species.addRow(r, name, d, radius, half, used, remove);
+                Label rowError = errorLabel(errors.messageUnder(at + "."));
+                rowError.setId("species-error-" + i);
+                species.add(rowError, 0, r + 1, 6, 1);
+                r += 2;
+                i++;
             }
         };
         fillSpecies.run();

@@ -83,31 +83,47 @@ public final class SpeciesRow {
      *
      * @throws IllegalArgumentException naming the field that is missing, malformed or out of range
      */
-    Species toSpecies(Medium medium) {
+    Species toSpecies(Medium medium, String at) {
         String name = this.name.get();
         String halfText = SettingsText.trim(halfLifeS.get());
-        double halfLifeS = halfText.isEmpty() ? Double.POSITIVE_INFINITY : SettingsText.parse("half-life s", halfText);
+        String half = at + ".half_life_s";
+        String diffusion = at + ".diffusion_um2_per_s";
+        String radius = at + ".hydrodynamic_radius_nm";
+        double halfLifeS = halfText.isEmpty() ? Double.POSITIVE_INFINITY : parse(half, halfText);
         String dText = SettingsText.trim(diffusionUm2PerS.get());
         String rText = SettingsText.trim(hydrodynamicRadiusNm.get());
         boolean dTyped = !dText.isEmpty() && !dText.equals(shownDiffusion);
         boolean rTyped = !rText.isEmpty() && !rText.equals(shownRadius);
         if (dTyped && rTyped) {
-            throw new IllegalArgumentException("give either diffusion µm²/s or hydrodynamic radius nm, not both");
+            throw new FieldErrors.FieldException(radius, at + ": give either diffusion_um2_per_s or "
+                    + "hydrodynamic_radius_nm, not both");
         }
-        if (!dTyped && !rText.isEmpty()) {
-            double r = SettingsText.parse("hydrodynamic radius nm", rText);
-            if (!(r > 0)) {
-                throw new IllegalArgumentException("hydrodynamic radius nm must be > 0, got " + rText);
+        try {
+            if (!dTyped && !rText.isEmpty()) {
+                double r = parse(radius, rText);
+                if (!(r > 0)) {
+                    throw new FieldErrors.FieldException(radius, radius + " must be > 0, got " + rText);
+                }
+                return Species.ofHydrodynamicRadius(name, r, halfLifeS, medium);
             }
-            return Species.ofHydrodynamicRadius(name, r, halfLifeS, medium);
+            if (dText.isEmpty()) {
+                throw new FieldErrors.FieldException(diffusion, diffusion
+                        + " is missing (give diffusion_um2_per_s or hydrodynamic_radius_nm)");
+            }
+            double d = parse(diffusion, dText);
+            if (!(d > 0)) {
+                throw new FieldErrors.FieldException(diffusion, diffusion + " must be > 0, got " + dText);
+            }
+            return Species.ofDiffusion(name, d, halfLifeS);
+        } catch (IllegalArgumentException e) {
+            throw FieldErrors.translate(at, at + ".name", e);
         }
-        if (dText.isEmpty()) {
-            throw new IllegalArgumentException("diffusion µm²/s: missing (give diffusion µm²/s or hydrodynamic radius nm)");
-        }
-        double d = SettingsText.parse("diffusion µm²/s", dText);
-        if (!(d > 0)) {
-            throw new IllegalArgumentException("diffusion µm²/s must be > 0, got " + dText);
-        }
-        return Species.ofDiffusion(name, d, halfLifeS);
+    }
+
+    private static double parse(String path, String text) {
+        FieldErrors one = new FieldErrors();
+        double v = one.number(path, text);
+        one.throwFirst();
+        return v;
     }
 }

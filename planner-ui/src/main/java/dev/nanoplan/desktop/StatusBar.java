@@ -12,7 +12,8 @@ import javafx.scene.layout.Priority;
 import javafx.scene.layout.Region;
 
 /**
- * The status bar (a View): the view model's message, the preview badge, the layout's counts and
+ * The status bar (a View): the view model's message, the preview badge, the slot frame (under the
+ * slots schedule), the layout's counts and
  * the standing caution with its full text as a tooltip.
  */
 final class StatusBar {
@@ -50,7 +51,13 @@ final class StatusBar {
                 + "budgets and advice are those of the last exact plan until it arrives"));
         preview.visibleProperty().bind(vm.tables().previewShownProperty());
         preview.managedProperty().bind(vm.tables().previewShownProperty());
-        HBox bar = new HBox(12, msg, preview, grow, counts, caution);
+        // the frame of the slots schedule ("frame 4 slots"); empty and hidden under the other schedules
+        Label frame = new Label();
+        frame.textProperty().bind(vm.slots().frameProperty());
+        frame.setId("slot-frame");
+        frame.visibleProperty().bind(frame.textProperty().isNotEmpty());
+        frame.managedProperty().bind(frame.visibleProperty());
+        HBox bar = new HBox(12, msg, preview, grow, frame, counts, caution);
         bar.getStyleClass().add("status-bar");
         bar.setPadding(new Insets(4, 10, 4, 10));
         return bar;

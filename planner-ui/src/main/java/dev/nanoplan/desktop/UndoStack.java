@@ -16,6 +16,11 @@ import javafx.beans.property.ReadOnlyStringWrapper;
  * layout before and after it (plus the editor's unused species); undoing restores "before",
  * redoing restores "after". A new edit
  * clears the redo side. At most {@value #LIMIT} edits are kept (oldest dropped). O(1) per call.
+ *
+ * <p>Saved state: every edit is a revision with its own number; the layout shown is the revision
+ * of the last edit on the undo side (or the base before all of them). {@link #markSaved()} remembers
+ * the current revision, and {@link #atSaved()} tells whether undo and redo have come back to it, so
+ * undoing back to the saved layout clears the unsaved mark and redoing away sets it again.
  */
 public final class UndoStack {
 
@@ -44,6 +49,13 @@ public final class UndoStack {
 
     private final Deque<Edit> undo = new ArrayDeque<>();
     private final Deque<Edit> redo = new ArrayDeque<>();
+    /** Revision number of each edit kept (the revision its "after" is). */
+    private final Deque<Long> undoRevisions = new ArrayDeque<>();
+    private final Deque<Long> redoRevisions = new ArrayDeque<>();
+    private long lastRevision;
+    /** Revision of the layout before the oldest edit kept. */
+    private long baseRevision;
+    private long savedRevision;
     private final ReadOnlyBooleanWrapper canUndo = new ReadOnlyBooleanWrapper(false);
     private final ReadOnlyBooleanWrapper canRedo = new ReadOnlyBooleanWrapper(false);
     private final ReadOnlyStringWrapper undoLabel = new ReadOnlyStringWrapper("");
@@ -52,10 +64,13 @@ public final class UndoStack {
     /** Records a done edit and clears the redo side. */
     public void push(Edit e) {
         undo.push(e);
+        undoRevisions.push(++lastRevision);
         if (undo.size() > LIMIT) {
             undo.removeLast();
+            baseRevision = undoRevisions.removeLast();
         }
         redo.clear();
+        redoRevisions.clear();
         refresh();
     }
 
@@ -64,6 +79,7 @@ public final class UndoStack {
         Edit e = undo.poll();
         if (e != null) {
             redo.push(e);
+            redoRevisions.push(undoRevisions.pop());
         }
         refresh();
         return e;
@@ -74,16 +90,35 @@ public final class UndoStack {
         Edit e = redo.poll();
         if (e != null) {
             undo.push(e);
+            undoRevisions.push(redoRevisions.pop());
         }
         refresh();
         return e;
     }
 
-    /** Forgets every edit (a new file was opened). */
+    /** Forgets every edit (a new file was opened); the layout shown counts as saved. */
     public void clear() {
         undo.clear();
         redo.clear();
+        undoRevisions.clear();
+        redoRevisions.clear();
+        baseRevision = ++lastRevision;
+        savedRevision = baseRevision;
         refresh();
+    }
+
+    /** Remembers the layout shown now as the saved one. */
+    public void markSaved() {
+        savedRevision = currentRevision();
+    }
+
+    /** Whether the layout shown is the one last saved (or opened). */
+    public boolean atSaved() {
+        return currentRevision() == savedRevision;
+    }
+
+    private long currentRevision() {
+        return undoRevisions.isEmpty() ? baseRevision : undoRevisions.peek();
     }
 
     public ReadOnlyBooleanProperty canUndoProperty() {

@@ -1,12 +1,15 @@
 package dev.nanoplan.desktop;
 
 import java.util.function.Function;
+import javafx.beans.binding.Bindings;
+import javafx.beans.value.ObservableStringValue;
 import javafx.beans.property.ReadOnlyObjectWrapper;
 import javafx.collections.ListChangeListener;
 import javafx.beans.property.ReadOnlyStringWrapper;
 import javafx.beans.property.StringProperty;
 import javafx.beans.value.ObservableValue;
 import javafx.scene.control.Button;
+import javafx.scene.control.Control;
 import javafx.scene.control.Label;
 import javafx.scene.control.TableCell;
 import javafx.scene.control.TableColumn;
@@ -23,6 +26,8 @@ import javafx.scene.text.Text;
  */
 final class Widgets {
 
+    /** Style class of a field whose value was refused (nanoplan.css outlines it). */
+    static final String FIELD_ERROR = "field-error";
     /** Column property holding the function that gives a row's shown text (for fitting widths). */
     private static final String SHOWN = "nanoplan.shownText";
     /** Room for a cell's padding and a header's sort arrow, in pixels. */
@@ -45,11 +50,59 @@ final class Widgets {
         return f;
     }
 
+    /** A field bound to {@code p} with the node id {@code id} (found by window tests). */
+    static TextField field(StringProperty p, String id) {
+        TextField f = field(p);
+        f.setId(id);
+        return f;
+    }
+
     static TextField smallField(StringProperty p, String prompt) {
         TextField f = field(p);
         f.setPrefColumnCount(4);
         f.setPromptText(prompt);
         return f;
+    }
+
+    /**
+     * Outlines {@code field} (style class {@code field-error}) while {@code error} is not empty, and
+     * shows the message as its tooltip.
+     */
+    static void outline(Control field, ObservableStringValue error) {
+        Runnable mark = () -> {
+            String m = error.get();
+            field.getStyleClass().remove(FIELD_ERROR);
+            if (m != null && !m.isEmpty()) {
+                field.getStyleClass().add(FIELD_ERROR);
+            }
+        };
+        error.addListener((o, a, b) -> mark.run());
+        mark.run();
+    }
+
+    /** A wrapped label showing {@code error}, hidden (and taking no room) while it is empty. */
+    static Label errorLabel(ObservableStringValue error) {
+        Label l = new Label();
+        l.textProperty().bind(error);
+        l.getStyleClass().add("field-error-text");
+        l.setWrapText(true);
+        l.setMinWidth(0);
+        l.setPrefWidth(1);
+        l.setMaxWidth(Double.MAX_VALUE);
+        l.visibleProperty().bind(Bindings.isNotEmpty(error));
+        l.managedProperty().bind(l.visibleProperty());
+        return l;
+    }
+
+    /**
+     * Adds {@code label} and {@code field} at {@code row} of {@code g}, outlined while {@code error}
+     * holds a message, and the message under them across both columns; returns the next free row.
+     */
+    static int fieldRow(GridPane g, int row, Label label, Control field, ObservableStringValue error) {
+        g.addRow(row, label, field);
+        outline(field, error);
+        g.add(errorLabel(error), 0, row + 1, 2, 1);
+        return row + 2;
     }
 
     static GridPane grid() {
