@@ -24,7 +24,7 @@ public final class FieldErrors {
      * names are unique across the records the editors build, so one table serves all of them.
      */
     private static final Map<String, String> FILE_NAMES = Map.ofEntries(
-            Map.entry("temperatureK", "temperature_k"),
+            Map.entry("temperatureK", "temperature_K"),
             Map.entry("viscosityMPaS", "viscosity_mPa_s"),
             Map.entry("backgroundMoleculesPerS", "background_molecules_per_s"),
             Map.entry("meanSpeedUmPerS", "mean_speed_um_per_s"),

@@ -43,6 +43,7 @@ public final class NodeInspector {
     public static final String BINDING_RATE = "binding_rate_um_per_s";
     public static final String SAMPLING_OFFSET = "sampling_offset_s";
     public static final String SLOT = "slot";
+    public static final String FIXED = "fixed";
 
     /** The node as edited and its slot (null when the schedule is not {@code slots} or the node does not emit). */
     public record Edit(Node node, Integer slot) {

@@ -74,7 +74,7 @@ public final class ScenarioSettings {
     }
 
     /** File paths of the fields, the keys of {@link #errors()}. */
-    public static final String TEMPERATURE = "medium.temperature_k";
+    public static final String TEMPERATURE = "medium.temperature_K";
     public static final String VISCOSITY = "medium.viscosity_mPa_s";
     public static final String BACKGROUND = "medium.background_molecules_per_s";
     /** Uniform flow velocity; the components are {@code [0]}, {@code [1]}, {@code [2]} after it. */

@@ -23,9 +23,9 @@ import org.junit.jupiter.api.Test;
 class DesktopArchitectureTest {
 
     /** The desktop's non-view classes besides those named *ViewModel (nested classes follow their outer class). */
-    static final Set<String> MODELS = Set.of("CorePlanService", "DemandComparison", "Formats", "LayoutEditor",
+    static final Set<String> MODELS = Set.of("CorePlanService", "DemandComparison", "FieldErrors", "Formats", "LayoutEditor",
             "LabelDeclutter", "LayoutEdits", "LayoutGeometry", "LinkDetails", "NodeInspector", "PlanScheduler", "PlanService",
-            "PlanTables", "RecentFiles", "RouteSummary", "ScenarioDocument", "ScenarioSettings", "SettingsText",
+            "PlanTables", "RecentFiles", "RouteSummary", "ScenarioDocument", "ScenarioSettings", "SettingsText", "SlotAssigner",
             "SimulationFields", "SimulationRow", "SimulationRun", "SpeciesRow", "TableText", "UndoStack");
 
     /** The view classes: they build controls and bind them to the models. */

@@ -199,7 +199,11 @@ class PlannerViewModelTest {
         vm.editor().selectedNodeIdProperty().set("s01");
         vm.editor().inspector().xUmProperty().set("abc");
         assertThat(vm.editor().applyInspector()).isFalse();
-        assertThat(vm.messageProperty().get()).contains("x");
+        // the message names the field as the scenario file does (x is position_um[0] of the file's nodes[i])
+        String x = "nodes[" + s.nodes().indexOf(s.nodesById().get("s01")) + "].position_um[0]";
+        assertThat(vm.messageProperty().get()).contains(x).contains("abc");
+        assertThat(vm.editor().inspector().errors().message(NodeInspector.X).get())
+                .isEqualTo(x + " is not a number: 'abc'");
         assertThat(vm.scenarioProperty().get()).isSameAs(s);
     }
 
@@ -353,7 +357,7 @@ class PlannerViewModelTest {
         Scenario s = opened();
         vm.settings().temperatureKProperty().set("warm");
         assertThat(vm.applySettings()).isFalse();
-        assertThat(vm.messageProperty().get()).contains("temperature K").contains("warm");
+        assertThat(vm.messageProperty().get()).contains("medium.temperature_K").contains("warm");
         vm.settings().load(s);
         vm.settings().levelsProperty().set("2.5");
         assertThat(vm.applySettings()).isFalse();
@@ -361,7 +365,7 @@ class PlannerViewModelTest {
         vm.settings().load(s);
         vm.settings().species("A").halfLifeSProperty().set("0");
         assertThat(vm.applySettings()).isFalse();
-        assertThat(vm.messageProperty().get()).contains("species A").contains("halfLifeS");
+        assertThat(vm.messageProperty().get()).contains("species A").contains("species[0].half_life_s");
         assertThat(vm.scenarioProperty().get()).isSameAs(s);
     }
 

@@ -176,8 +176,8 @@ class ScenarioSettingsTest {
         Scenario s = opened(TANK);
         SpeciesRow row = vm.settings().addSpecies();
         assertThat(vm.applySettings()).isFalse();
-        assertThat(vm.messageProperty().get()).contains("new species row 3").contains("diffusion")
-                .contains("hydrodynamic radius");
+        assertThat(vm.messageProperty().get()).contains("new species row 3")
+                .contains("species[2].diffusion_um2_per_s is missing").contains("hydrodynamic_radius_nm");
         row.diffusionUm2PerSProperty().set("100");
         row.hydrodynamicRadiusNmProperty().set("1");
         assertThat(vm.applySettings()).isFalse();
@@ -362,16 +362,16 @@ class ScenarioSettingsTest {
         Scenario s = opened(VESSEL);
         vm.settings().flowMeanSpeedUmPerSProperty().set("-3");
         assertThat(vm.applySettings()).isFalse();
-        assertThat(vm.messageProperty().get()).contains("refused").contains("flow mean speed")
-                .contains("meanSpeedUmPerS");
+        assertThat(vm.messageProperty().get()).contains("refused")
+                .contains("medium.flow.mean_speed_um_per_s must be finite and >= 0, got -3.0");
         vm.settings().load(s);
         vm.settings().flowProfileProperty().set("uniform");
         vm.settings().flowVyUmPerSProperty().set("fast");
         assertThat(vm.applySettings()).isFalse();
-        assertThat(vm.messageProperty().get()).contains("flow velocity y").contains("fast");
+        assertThat(vm.messageProperty().get()).contains("medium.flow.velocity_um_per_s[1]").contains("fast");
         vm.settings().flowVyUmPerSProperty().set("Infinity");
         assertThat(vm.applySettings()).isFalse();
-        assertThat(vm.messageProperty().get()).contains("flow velocity y").contains("finite");
+        assertThat(vm.messageProperty().get()).contains("medium.flow.velocity_um_per_s[1]").contains("finite");
         assertThat(current()).isSameAs(s);
         assertThat(vm.document().undoStack().canUndoProperty().get()).isFalse();
     }
