@@ -205,6 +205,7 @@ final class InspectorPane {
         g.add(fixed, 0, row++, 2, 1);
         Button apply = button("Apply", "Apply the fields to the selected node (Enter)", vm.editor()::applyInspector);
         apply.setDefaultButton(true);
+        apply.setId("apply-node");
         apply.disableProperty().bind(vm.editor().selectedNodeIdProperty().isNull());
         Button dup = button("Duplicate", "Copy the selected node beside it",
                 () -> vm.editor().duplicateNode(vm.editor().selectedNodeIdProperty().get()));
