@@ -138,6 +138,11 @@ public final class AppActions {
     }
 
     void about() {
+        aboutDialog().showAndWait();
+    }
+
+    /** The About and assumptions dialog, styled with the app's dark stylesheet (not yet shown). */
+    Alert aboutDialog() {
         StringBuilder sb = new StringBuilder("nanoplan desktop planner\n\n");
         Cautions.FULL.forEach(l -> sb.append(l).append("\n\n"));
         sb.append("Every result rests on these assumptions:\n");
@@ -153,7 +158,7 @@ public final class AppActions {
         a.getDialogPane().setContent(t);
         // the dialog is a scene of its own: the app's stylesheet makes it dark like the window
         a.getDialogPane().getStylesheets().add(AppActions.class.getResource("nanoplan.css").toExternalForm());
-        a.showAndWait();
+        return a;
     }
 
     /** Asks what to do with unsaved changes; true when it is fine to go on. */

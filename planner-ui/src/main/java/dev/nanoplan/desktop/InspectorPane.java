@@ -19,14 +19,17 @@ import javafx.geometry.Pos;
 import javafx.scene.control.Button;
 import javafx.scene.control.CheckBox;
 import javafx.scene.control.ChoiceBox;
+import javafx.scene.control.Control;
 import javafx.scene.control.ComboBox;
 import javafx.scene.control.Label;
 import javafx.scene.control.ProgressBar;
 import javafx.scene.control.Separator;
 import javafx.scene.control.TextField;
 import javafx.scene.control.Tooltip;
+import javafx.scene.layout.ColumnConstraints;
 import javafx.scene.layout.GridPane;
 import javafx.scene.layout.HBox;
+import javafx.scene.layout.Priority;
 import javafx.scene.layout.Region;
 import javafx.scene.layout.VBox;
 import javafx.util.StringConverter;
@@ -78,6 +81,28 @@ final class InspectorPane {
         HBox run = new HBox(6, assign, bar, cancel);
         run.setAlignment(Pos.CENTER_LEFT);
         return new VBox(6, Widgets.section("Slots"), run, frame);
+    }
+
+    /**
+     * Fits the grid in the narrow inspector: labels never clipped, fields sharing the rest, and
+     * no gap left by the rows hidden for other receiver models or schedules (the gap is a margin of
+     * the shown controls instead of the grid's vgap, which counts hidden rows too).
+     */
+    private static void fitNarrow(GridPane g) {
+        ColumnConstraints labels = new ColumnConstraints();
+        labels.setMinWidth(Region.USE_PREF_SIZE);
+        ColumnConstraints fields = new ColumnConstraints();
+        fields.setHgrow(Priority.ALWAYS);
+        fields.setMinWidth(60);
+        g.getColumnConstraints().setAll(labels, fields);
+        g.setVgap(0);
+        for (javafx.scene.Node n : g.getChildren()) {
+            GridPane.setMargin(n, new Insets(2.5, 0, 2.5, 0));
+            if (n instanceof Control c && Integer.valueOf(1).equals(GridPane.getColumnIndex(n))) {
+                c.setPrefWidth(110);
+                c.setMaxWidth(Double.MAX_VALUE);
+            }
+        }
     }
 
     private static StringBinding error(NodeInspector in, String key) {
@@ -197,12 +222,14 @@ final class InspectorPane {
         slotHint.getStyleClass().add("hint");
         slotHint.visibleProperty().bind(slotShown);
         slotHint.managedProperty().bind(slotShown);
-        g.add(slotHint, 1, row++);
+        g.add(slotHint, 0, row++, 2, 1);
 
-        CheckBox fixed = new CheckBox("fixed (design aids leave it alone)");
+        CheckBox fixed = new CheckBox("fixed");
+        fixed.setTooltip(new Tooltip("Design aids (nanoplan improve) never move or re-assign a fixed node"));
         fixed.selectedProperty().bindBidirectional(in.fixedProperty());
         fixed.setId("inspector-fixed");
-        g.add(fixed, 0, row++, 2, 1);
+        g.add(fixed, 1, row++);
+        fitNarrow(g);
         Button apply = button("Apply", "Apply the fields to the selected node (Enter)", vm.editor()::applyInspector);
         apply.setDefaultButton(true);
         apply.setId("apply-node");

@@ -115,7 +115,12 @@ public final class NodeInspector {
         slot.set(sl == null ? "" : Integer.toString(sl));
         slotHint.set(!slotsSchedule.get() || !n.role().emits() ? ""
                 : frameSlots > 0 ? "0.." + (frameSlots - 1) + " (frame_slots " + frameSlots + ")"
-                : "frame of " + n.emitsSpecies() + ": " + SlotSchedule.of(s).frameSlots(n.emitsSpecies()) + " slots");
+                : frameOf(s, n.emitsSpecies()));
+    }
+
+    private static String frameOf(Scenario s, String species) {
+        int k = SlotSchedule.of(s).frameSlots(species);
+        return "frame of " + species + ": " + k + (k == 1 ? " slot" : " slots");
     }
 
     /**

@@ -9,6 +9,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.TimeUnit;
 import javafx.scene.Parent;
+import javafx.scene.control.Alert;
 import javafx.scene.control.Button;
 import javafx.scene.control.ChoiceBox;
 import javafx.scene.control.Label;
@@ -187,5 +188,31 @@ class InspectorWindowTest extends FxWindowTestBase {
             assertThat(w.vm().document().dirtyProperty().get()).isFalse();
             return null;
         });
+    }
+
+    @Test
+    void theAboutDialogIsDarkLikeTheWindow() throws Exception {
+        Window w = open(RELAYED);
+        double[] luminance = onFx(() -> {
+            Alert about = new AppActions(stage, w.vm()).aboutDialog();
+            about.show();
+            try {
+                javafx.scene.image.Image shot = about.getDialogPane().snapshot(null, null);
+                // the pane's background just inside its top-left corner and the text area's background
+                javafx.scene.paint.Color header = shot.getPixelReader().getColor(4, 4);
+                javafx.scene.paint.Color body = shot.getPixelReader().getColor((int) shot.getWidth() / 2,
+                        (int) shot.getHeight() / 2);
+                if (System.getProperty("nanoplan.screenshots") != null) {
+                    Snapshots.writePng(shot, Path.of(System.getProperty("nanoplan.screenshots"), "about.png"));
+                }
+                return new double[] {header.getBrightness(), body.getBrightness()};
+            } finally {
+                about.close();
+            }
+        });
+        // dark theme (nanoplan.css: -np-panel #222b37, -fx-control-inner-background #1f2833): brightness < 0.3,
+        // where Modena's default light dialog is about 0.9
+        assertThat(luminance[0]).isLessThan(0.3);
+        assertThat(luminance[1]).isLessThan(0.3);
     }
 }
