@@ -34,8 +34,10 @@ import javafx.collections.ObservableList;
  * species (name, diffusion coefficient or hydrodynamic radius, half-life; rows can be added,
  * renamed and removed). {@link #apply(Scenario, List)} parses the fields and builds the new layout;
  * a malformed or out-of-range value is refused with an {@link IllegalArgumentException} whose
- * one-line message names the field (the core records' and {@link ScenarioValidator}'s own checks
- * supply the range, name and cross-field messages).
+ * one-line message names the field as the scenario file does ({@code signalling.symbol_time_s}), and
+ * is kept in {@link #errors()} under that path for the view to show beside the field (the core
+ * records' and {@link ScenarioValidator}'s own checks supply the range, name and cross-field
+ * messages; {@link FieldErrors} turns their record names into file names).
  *
  * <p>Species: a {@link Scenario} may only declare species some node uses, so a species added here
  * and not yet used by any node is carried beside the layout as an <em>unused</em> species (shown
