@@ -4,6 +4,7 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import javafx.beans.binding.Bindings;
 import javafx.beans.binding.StringBinding;
+import javafx.beans.value.ObservableValue;
 import javafx.collections.FXCollections;
 import javafx.collections.ObservableMap;
 
@@ -82,6 +83,11 @@ public final class FieldErrors {
     /** The current messages by field path, in the order they were found (read-only). */
     public ObservableMap<String, String> all() {
         return FXCollections.unmodifiableObservableMap(messages);
+    }
+
+    /** Forgets the message of {@code key} as soon as {@code field} changes (the user is fixing it). */
+    void clearOnEdit(ObservableValue<?> field, String key) {
+        field.addListener((o, a, b) -> messages.remove(key));
     }
 
     /** Forgets every message (the fields were reloaded or applied). */

@@ -71,6 +71,22 @@ public final class NodeInspector {
     /** frame_slots of the loaded layout (0: not given). */
     private int frameSlots;
 
+    /** An inspector with empty fields; a field's message goes as soon as the field is edited. */
+    public NodeInspector() {
+        errors.clearOnEdit(id, ID);
+        errors.clearOnEdit(xUm, X);
+        errors.clearOnEdit(yUm, Y);
+        errors.clearOnEdit(zUm, Z);
+        errors.clearOnEdit(radiusUm, RADIUS);
+        errors.clearOnEdit(species, SPECIES);
+        errors.clearOnEdit(emitsSpecies, EMITS);
+        errors.clearOnEdit(moleculesPerSymbol, MOLECULES);
+        errors.clearOnEdit(receiver, RECEIVER);
+        errors.clearOnEdit(bindingRateUmPerS, BINDING_RATE);
+        errors.clearOnEdit(samplingOffsetS, SAMPLING_OFFSET);
+        errors.clearOnEdit(slot, SLOT);
+    }
+
     /** Shows a node's values (or clears the fields when {@code n} is null), without slot. */
     public void load(Node n) {
         load(null, n);

@@ -106,6 +106,22 @@ public final class ScenarioSettings {
     private final Set<String> removed = new LinkedHashSet<>();
     private Map<String, List<String>> users = Map.of();
 
+    /** An empty editor; a field's message goes as soon as the field is edited. */
+    public ScenarioSettings() {
+        errors.clearOnEdit(temperatureK, TEMPERATURE);
+        errors.clearOnEdit(viscosityMPaS, VISCOSITY);
+        errors.clearOnEdit(backgroundMoleculesPerS, BACKGROUND);
+        errors.clearOnEdit(flowVxUmPerS, VELOCITY + "[0]");
+        errors.clearOnEdit(flowVyUmPerS, VELOCITY + "[1]");
+        errors.clearOnEdit(flowVzUmPerS, VELOCITY + "[2]");
+        errors.clearOnEdit(flowMeanSpeedUmPerS, MEAN_SPEED);
+        errors.clearOnEdit(flowProfile, "medium.flow.profile");
+        errors.clearOnEdit(symbolTimeS, SYMBOL_TIME);
+        errors.clearOnEdit(isiMemorySymbols, ISI_MEMORY);
+        errors.clearOnEdit(levels, LEVELS);
+        errors.clearOnEdit(priorOne, PRIOR_ONE);
+    }
+
     /** Shows a layout's settings (or clears the fields when {@code s} is null). */
     public void load(Scenario s) {
         load(s, List.of());

@@ -119,6 +119,10 @@ class FieldMessagesTest {
         assertThat(settings.errors().message(ScenarioSettings.SYMBOL_TIME).get())
                 .isEqualTo("signalling.symbol_time_s must be finite and > 0, got -3.0");
         assertThat(settings.errors().message(ScenarioSettings.LEVELS).get()).isEmpty();
+        // editing the field takes its mark away
+        settings.symbolTimeSProperty().set("-");
+        assertThat(settings.errors().message(ScenarioSettings.SYMBOL_TIME).get()).isEmpty();
+        assertThatThrownBy(() -> settings.apply(tank, List.of())).hasMessageContaining("signalling.symbol_time_s");
         // Revert (load) clears the marks
         settings.load(tank);
         assertThat(settings.errors().all()).isEmpty();
