@@ -138,7 +138,8 @@ public final class SlotAssigner {
         CompletableFuture<Boolean> done = new CompletableFuture<>();
         finished = done;
         running.set(true);
-        progress.set(0);
+        // not known until the first report (a progress bar shows -1 as "busy")
+        progress.set(-1);
         document.say("assigning slots…");
         worker.execute(() -> {
             try {
@@ -211,7 +212,7 @@ public final class SlotAssigner {
         return running.getReadOnlyProperty();
     }
 
-    /** Fraction of the running assignment done, in [0, 1]. */
+    /** Fraction of the running assignment done, in [0, 1]; -1 until the first report. */
     public ReadOnlyDoubleProperty progressProperty() {
         return progress.getReadOnlyProperty();
     }
