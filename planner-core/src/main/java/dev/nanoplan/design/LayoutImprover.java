@@ -25,6 +25,14 @@ import java.util.function.Supplier;
  * strictly better, until a round changes nothing, the time limit passes or the caller cancels. The
  * result is therefore never worse than the input.
  *
+ * <p><b>Screen, then confirm.</b> Candidates are screened on the preview planner (normal approximation,
+ * {@link LayoutEvaluator#screen}; about 20× faster than the exact re-plan on the culture tank) and only
+ * those the screen calls better than the current layout — at most {@value #CONFIRMATIONS} per step, best
+ * screened first — are re-planned with the exact planner; a change is kept only on the exact objective.
+ * The preview may thus turn down a change the exact planner would keep (a cost in search quality, never
+ * in the objective). Layouts the preview does not cover (a slot plan whose frame is longer than one slot)
+ * and the joint budgets are assessed exactly straight away.
+ *
  * <p><b>Moves of a round</b>, each when allowed ({@link DesignMove}) and only on nodes that are not
  * {@code fixed}:
  * <ol>
@@ -41,12 +49,19 @@ import java.util.function.Supplier;
  *       forwards to (the routes of the JGraphT link graph);</li>
  *   <li>new relays: for the demand that misses its targets with the smallest shared rate, a relay
  *       {@code relay-new-k} absorbing the source's species and emitting the destination's, placed by the
- *       same optimiser between the two, while fewer than {@code maxNewRelays} were added.</li>
+ *       same optimiser between the two, while fewer than {@code maxNewRelays} were added;</li>
+ *   <li>slots: each emitter, those on the routes of missing demands first, in every other slot of its
+ *       species' frame or in a new last slot (the frame grows by one, up to {@value #MAX_FRAME_SLOTS}
+ *       slots), the best kept (schedule {@code slots}; an all-active layout is all slots 0);</li>
+ *   <li>joint budgets (last, being the costliest step): the joint molecule budgets of the current layout
+ *       (power control over every route emitter, one budgeted plan) set as the feasible nodes' molecules
+ *       per symbol, or only where they raise them.</li>
  * </ol>
  * Deterministic for a given seed (and, like the planner, for any thread count).
  *
- * <p>Cost: per round about 6 re-plans per emitting node, species × groups re-plans, and
- * 2 × {@value #EVALUATIONS_PER_START} per relay.
+ * <p>Cost: per round about 6 screens per emitting node, species × groups screens,
+ * 2 × {@value #EVALUATIONS_PER_START} screens per relay, up to {@value #MAX_FRAME_SLOTS} exact re-plans per
+ * emitter for the slots, one budgeted plan, and up to {@value #CONFIRMATIONS} exact re-plans per step.
  */
 public final class LayoutImprover {
 
@@ -96,8 +111,6 @@ public final class LayoutImprover {
         for (int round = 0; round < MAX_ROUNDS && !stop.getAsBoolean(); round++) {
             boolean improved = false;
             if (options.allowed().contains(DesignMove.BUDGETS)) {
-                // one full plan per round: worth it only on the first round and after a change
-                improved |= jointBudgetMove();
                 improved |= budgetMoves();
             }
             if (options.allowed().contains(DesignMove.SPECIES)) {
@@ -111,6 +124,10 @@ public final class LayoutImprover {
             }
             if (options.allowed().contains(DesignMove.SLOTS)) {
                 improved |= slotMoves();
+            }
+            if (options.allowed().contains(DesignMove.BUDGETS)) {
+                // last: one budgeted plan per round, the costliest step (seconds on the culture tank)
+                improved |= jointBudgetMove();
             }
 
             report("round " + (round + 1) + " done");
@@ -214,8 +231,9 @@ public final class LayoutImprover {
 
     /**
      * Screens every candidate, confirms the {@value #CONFIRMATIONS} the screen ranks best among those it calls
-     * better than the current layout with the exact planner, and keeps the best of them when it is strictly
-     * better than the current layout on the exact objective.
+     * better than the current layout (or, when it calls none better, the one it ranks best) with the exact
+     * planner, and keeps the best of them when it is strictly better than the current layout on the exact
+     * objective.
      */
     private boolean acceptBest(List<Scenario> candidates, String step) {
         return acceptBest(candidates, step, false);
@@ -229,6 +247,7 @@ public final class LayoutImprover {
         record Ranked(Scenario scenario, LayoutEvaluator.Screened screened) {
         }
         List<Ranked> promising = new ArrayList<>();
+        Ranked bestScreened = null;
         for (Scenario c : candidates) {
             if (stop.getAsBoolean()) {
                 break;
@@ -241,9 +260,17 @@ public final class LayoutImprover {
                 if (sc.promising()) {
                     promising.add(new Ranked(c, sc));
                 }
+                if (bestScreened == null
+                        || sc.assessment().objective().betterThan(bestScreened.screened().assessment().objective())) {
+                    bestScreened = new Ranked(c, sc);
+                }
             } catch (IllegalArgumentException invalid) {
                 // not a plannable layout: skipped
             }
+        }
+        if (promising.isEmpty() && bestScreened != null && !bestScreened.screened().exact()) {
+            // the preview can be off by tenths of a bit where a few on/off terms dominate: its best is checked anyway
+            promising.add(bestScreened);
         }
         // stable sort: ties keep the candidates' order, so a run stays deterministic
         promising.sort(Comparator.comparing((Ranked r) -> r.screened().assessment().objective()).reversed());
