@@ -7,7 +7,7 @@ import java.util.Locale;
  *
  * @param node   the node changed
  * @param field  the scenario field: {@code position_um}, {@code species}, {@code emits_species},
- *               {@code molecules_per_symbol}, or {@code node} for a node added
+ *               {@code slot}, {@code molecules_per_symbol}, or {@code node} for a node added
  * @param from   the value before, as the file writes it (null for an added node)
  * @param to     the value after
  * @param reason plain words, e.g. {@code "moved 12.3 µm towards gw"}

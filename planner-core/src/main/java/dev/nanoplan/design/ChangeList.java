@@ -4,6 +4,7 @@ import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Schedule;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -12,7 +13,9 @@ import java.util.Map;
 /**
  * The changes between two layouts of the same demands, in plain words: a moved node ("moved 12.3 µm
  * towards gw", towards the node whose distance shrank most), a new species ("species A → C"), a new
- * emitted species, new molecules per symbol ("1,800 → 2,600 molecules per symbol"), a new node.
+ * emitted species, a new slot ("slot 2", under the slots schedule; the slot before is 0 under all-active
+ * and the file order under round-robin), new molecules per symbol ("1,800 → 2,600 molecules per symbol"),
+ * a new node.
  */
 final class ChangeList {
 
@@ -26,6 +29,8 @@ final class ChangeList {
     static List<Change> of(Scenario before, Scenario after) {
         Map<String, Node> old = before.nodesById();
         List<Change> out = new ArrayList<>();
+        boolean slotted = after.signalling().schedule() == Schedule.SLOTS;
+        Map<String, Integer> slotsBefore = LayoutEdits.slotsOf(before);
         for (Node n : after.nodes()) {
             Node o = old.get(n.id());
             if (o == null) {
@@ -46,6 +51,12 @@ final class ChangeList {
             if (!o.emitsSpecies().equals(n.emitsSpecies()) && n.role() == Role.RELAY) {
                 out.add(new Change(n.id(), "emits_species", o.emitsSpecies(), n.emitsSpecies(),
                         "emits " + o.emitsSpecies() + " → " + n.emitsSpecies()));
+            }
+            Integer slotBefore = slotsBefore.get(n.id());
+            Integer slotAfter = after.signalling().slots().get(n.id());
+            if (slotted && slotAfter != null && (slotBefore == null || !slotBefore.equals(slotAfter))) {
+                out.add(new Change(n.id(), "slot", slotBefore == null ? null : slotBefore.toString(),
+                        slotAfter.toString(), "slot " + slotAfter));
             }
             if (o.moleculesPerSymbol() != n.moleculesPerSymbol()) {
                 out.add(new Change(n.id(), "molecules_per_symbol", Long.toString(o.moleculesPerSymbol()),

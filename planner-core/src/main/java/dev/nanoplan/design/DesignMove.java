@@ -9,7 +9,7 @@ import java.util.stream.Collectors;
 public enum DesignMove {
     /** The species of each link group (a receiver and the emitters whose route hops end at it). */
     SPECIES("species"),
-    /** The slot plan (needs the slots schedule; not searched yet). */
+    /** The slot plan: each emitter's slot within its species' frame (schedule {@code slots}). */
     SLOTS("slots"),
     /** Molecules per symbol of each emitting node. */
     BUDGETS("budgets"),

@@ -1,6 +1,7 @@
 package dev.nanoplan.design;
 
 import dev.nanoplan.geometry.Vec3;
+import dev.nanoplan.plan.SlotSchedule;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
@@ -102,5 +103,29 @@ final class LayoutEdits {
             }
             return withSpecies(n, r ? species : n.species(), e ? species : n.emitsSpecies());
         });
+    }
+
+    /**
+     * Every emitter's slot under {@code s}'s schedule, in file order: 0 under all-active, the file order of
+     * its species under round-robin, the file's slot under slots.
+     */
+    static Map<String, Integer> slotsOf(Scenario s) {
+        SlotSchedule schedule = SlotSchedule.of(s);
+        Map<String, Integer> out = new LinkedHashMap<>();
+        for (Node n : s.nodes()) {
+            if (n.role().emits()) {
+                out.put(n.id(), schedule.slotOf(n.id()));
+            }
+        }
+        return out;
+    }
+
+    /**
+     * {@code s} under the slots schedule with the given slots (every emitter's) and {@code frameSlots} slots
+     * per frame of every species, or 0 for each species' largest slot + 1.
+     */
+    static Scenario withSlots(Scenario s, int frameSlots, Map<String, Integer> slots) {
+        return new Scenario(s.name(), s.volume(), s.medium(), s.species(), s.signalling().withSlots(frameSlots, slots),
+                s.nodes(), s.demands(), s.targets(), s.candidateSpecies(), s.tolerances());
     }
 }

@@ -1,10 +1,14 @@
 package dev.nanoplan.design;
 
 import dev.nanoplan.geometry.Vec3;
+import dev.nanoplan.plan.BudgetReport;
+import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.RouteReport;
+import dev.nanoplan.plan.SlotSchedule;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Schedule;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.LinkedHashMap;
@@ -20,6 +24,14 @@ import java.util.function.Supplier;
  * moves, each re-planned incrementally ({@link LayoutEvaluator}) and kept only when it makes the layout
  * strictly better, until a round changes nothing, the time limit passes or the caller cancels. The
  * result is therefore never worse than the input.
+ *
+ * <p><b>Screen, then confirm.</b> Candidates are screened on the preview planner (normal approximation,
+ * {@link LayoutEvaluator#screen}; about 20× faster than the exact re-plan on the culture tank) and only
+ * those the screen calls better than the current layout — at most {@value #CONFIRMATIONS} per step, best
+ * screened first — are re-planned with the exact planner; a change is kept only on the exact objective.
+ * The preview may thus turn down a change the exact planner would keep (a cost in search quality, never
+ * in the objective). Layouts the preview does not cover (a slot plan whose frame is longer than one slot)
+ * and the joint budgets are assessed exactly straight away.
  *
  * <p><b>Moves of a round</b>, each when allowed ({@link DesignMove}) and only on nodes that are not
  * {@code fixed}:
@@ -37,12 +49,19 @@ import java.util.function.Supplier;
  *       forwards to (the routes of the JGraphT link graph);</li>
  *   <li>new relays: for the demand that misses its targets with the smallest shared rate, a relay
  *       {@code relay-new-k} absorbing the source's species and emitting the destination's, placed by the
- *       same optimiser between the two, while fewer than {@code maxNewRelays} were added.</li>
+ *       same optimiser between the two, while fewer than {@code maxNewRelays} were added;</li>
+ *   <li>slots: each emitter, those on the routes of missing demands first, in every other slot of its
+ *       species' frame or in a new last slot (the frame grows by one, up to {@value #MAX_FRAME_SLOTS}
+ *       slots), the best kept (schedule {@code slots}; an all-active layout is all slots 0);</li>
+ *   <li>joint budgets (last, being the costliest step): the joint molecule budgets of the current layout
+ *       (power control over every route emitter, one budgeted plan) set as the feasible nodes' molecules
+ *       per symbol, or only where they raise them.</li>
  * </ol>
  * Deterministic for a given seed (and, like the planner, for any thread count).
  *
- * <p>Cost: per round about 6 re-plans per emitting node, species × groups re-plans, and
- * 2 × {@value #EVALUATIONS_PER_START} per relay.
+ * <p>Cost: per round about 6 screens per emitting node, species × groups screens,
+ * 2 × {@value #EVALUATIONS_PER_START} screens per relay, up to {@value #MAX_FRAME_SLOTS} exact re-plans per
+ * emitter for the slots, one budgeted plan, and up to {@value #CONFIRMATIONS} exact re-plans per step.
  */
 public final class LayoutImprover {
 
@@ -50,6 +69,10 @@ public final class LayoutImprover {
     static final int EVALUATIONS_PER_START = 40;
     /** Largest molecules per symbol the search sets (as the budget search's cap). */
     static final long MAX_MOLECULES = 1L << 20;
+    /** Candidates of one step confirmed with the exact planner, best screened first. */
+    static final int CONFIRMATIONS = 3;
+    /** Longest frame the slot moves make, slots. */
+    static final int MAX_FRAME_SLOTS = 3;
     /** Most rounds. */
     private static final int MAX_ROUNDS = 12;
     private static final double[] NODE_FACTORS = {2, 4, 8, 16, 0.5, 0.8};
@@ -99,6 +122,14 @@ public final class LayoutImprover {
             if (options.allowed().contains(DesignMove.ADD_RELAYS) && added < options.maxNewRelays()) {
                 improved |= insertRelay(round);
             }
+            if (options.allowed().contains(DesignMove.SLOTS)) {
+                improved |= slotMoves();
+            }
+            if (options.allowed().contains(DesignMove.BUDGETS)) {
+                // last: one budgeted plan per round, the costliest step (seconds on the culture tank)
+                improved |= jointBudgetMove();
+            }
+
             report("round " + (round + 1) + " done");
             if (!improved) {
                 converged = !stop.getAsBoolean();
@@ -120,13 +151,27 @@ public final class LayoutImprover {
         if (stop.getAsBoolean() || candidate.equals(evaluator.scenario())) {
             return false;
         }
-        Assessment a;
+        LayoutEvaluator.Screened sc;
         try {
-            a = evaluator.assess(candidate);
+            sc = evaluator.screen(candidate);
         } catch (IllegalArgumentException invalid) {
             return false;
         }
-        if (!a.objective().betterThan(evaluator.current().objective())) {
+        return sc.promising() && confirm(candidate, sc, step);
+    }
+
+    /**
+     * Accepts a screened candidate when the exact planner calls it strictly better than the current layout
+     * (re-planned exactly unless the screen already was exact).
+     */
+    private boolean confirm(Scenario candidate, LayoutEvaluator.Screened sc, String step) {
+        Assessment exact;
+        try {
+            exact = sc.exact() ? sc.assessment() : evaluator.assess(candidate);
+        } catch (IllegalArgumentException invalid) {
+            return false;
+        }
+        if (!exact.objective().betterThan(evaluator.current().objective())) {
             return false;
         }
         evaluator.accept(candidate);
@@ -184,10 +229,25 @@ public final class LayoutImprover {
         return improved;
     }
 
-    /** Re-plans every candidate and keeps the best when it is strictly better than the current layout. */
+    /**
+     * Screens every candidate, confirms the {@value #CONFIRMATIONS} the screen ranks best among those it calls
+     * better than the current layout (or, when it calls none better, the one it ranks best) with the exact
+     * planner, and keeps the best of them when it is strictly better than the current layout on the exact
+     * objective.
+     */
     private boolean acceptBest(List<Scenario> candidates, String step) {
-        Scenario best = null;
-        Objective bestObjective = evaluator.current().objective();
+        return acceptBest(candidates, step, false);
+    }
+
+    /**
+     * As {@link #acceptBest(List, String)}, but with {@code exactOnly} every candidate is assessed with the exact
+     * planner straight away (for a few costly candidates the preview could turn down wrongly).
+     */
+    private boolean acceptBest(List<Scenario> candidates, String step, boolean exactOnly) {
+        record Ranked(Scenario scenario, LayoutEvaluator.Screened screened) {
+        }
+        List<Ranked> promising = new ArrayList<>();
+        Ranked bestScreened = null;
         for (Scenario c : candidates) {
             if (stop.getAsBoolean()) {
                 break;
@@ -196,9 +256,35 @@ public final class LayoutImprover {
                 continue;
             }
             try {
-                Objective o = evaluator.assess(c).objective();
+                LayoutEvaluator.Screened sc = exactOnly ? evaluator.exactly(c) : evaluator.screen(c);
+                if (sc.promising()) {
+                    promising.add(new Ranked(c, sc));
+                }
+                if (bestScreened == null
+                        || sc.assessment().objective().betterThan(bestScreened.screened().assessment().objective())) {
+                    bestScreened = new Ranked(c, sc);
+                }
+            } catch (IllegalArgumentException invalid) {
+                // not a plannable layout: skipped
+            }
+        }
+        if (promising.isEmpty() && bestScreened != null && !bestScreened.screened().exact()) {
+            // the preview can be off by tenths of a bit where a few on/off terms dominate: its best is checked anyway
+            promising.add(bestScreened);
+        }
+        // stable sort: ties keep the candidates' order, so a run stays deterministic
+        promising.sort(Comparator.comparing((Ranked r) -> r.screened().assessment().objective()).reversed());
+        Scenario best = null;
+        Objective bestObjective = evaluator.current().objective();
+        for (Ranked r : promising.subList(0, Math.min(CONFIRMATIONS, promising.size()))) {
+            if (stop.getAsBoolean()) {
+                break;
+            }
+            try {
+                Objective o = r.screened().exact() ? r.screened().assessment().objective()
+                        : evaluator.assess(r.scenario()).objective();
                 if (o.betterThan(bestObjective)) {
-                    best = c;
+                    best = r.scenario();
                     bestObjective = o;
                 }
             } catch (IllegalArgumentException invalid) {
@@ -226,6 +312,75 @@ public final class LayoutImprover {
         Set<String> out = new LinkedHashSet<>();
         evaluator.scenario().demands().forEach(d -> out.add(d.from()));
         return new ArrayList<>(out);
+    }
+
+    /**
+     * Joint molecule budgets: the exact plan of the current layout with joint budgets (power control over every
+     * route emitter, {@code JointMoleculeBudgets}; no advice), its feasible budgets
+     * set as the movable nodes' molecules per symbol; also the variant that only raises budgets. The better
+     * of the two is kept when it improves the layout.
+     */
+    private boolean jointBudgetMove() {
+        Scenario s = evaluator.scenario();
+        Plan full;
+        try {
+            full = evaluator.withJointBudgets(f -> {
+                if (stop.getAsBoolean()) {
+                    throw new RelayPlacement.Stopped();
+                }
+            });
+        } catch (IllegalArgumentException | RelayPlacement.Stopped ended) {
+            return false;
+        }
+        Map<String, Long> need = new LinkedHashMap<>();
+        for (BudgetReport b : full.budgets()) {
+            if (b.feasible() && b.moleculesPerSymbolNeeded() >= 1 && movable(s, b.node())) {
+                need.put(b.node(), Math.min(MAX_MOLECULES, b.moleculesPerSymbolNeeded()));
+            }
+        }
+        if (need.isEmpty()) {
+            return false;
+        }
+        Scenario exactly = safely(() -> LayoutEdits.mapNodes(s, m -> need.containsKey(m.id())
+                ? LayoutEdits.withMolecules(m, need.get(m.id())) : m));
+        Scenario raised = safely(() -> LayoutEdits.mapNodes(s, m -> need.containsKey(m.id())
+                ? LayoutEdits.withMolecules(m, Math.max(m.moleculesPerSymbol(), need.get(m.id()))) : m));
+        return acceptBest(List.of(exactly, raised), "joint budgets", true);
+    }
+
+    /**
+     * Slot moves (schedule {@code slots}): each movable emitter, those on the routes of missing demands
+     * first, is tried in every other slot of its species' frame and in a new last slot (which grows the
+     * frame by one, up to {@value #MAX_FRAME_SLOTS}); the best is kept. An all-active or round-robin layout
+     * enters the slots schedule with its own slots (all 0, or the file order) the first time a move helps.
+     */
+    private boolean slotMoves() {
+        boolean improved = false;
+        for (Node n : budgetOrder()) {
+            Scenario s = evaluator.scenario();
+            if (stop.getAsBoolean()) {
+                break;
+            }
+            if (!n.role().emits() || !movable(s, n.id())) {
+                continue;
+            }
+            SlotSchedule schedule = SlotSchedule.of(s);
+            Map<String, Integer> slots = LayoutEdits.slotsOf(s);
+            int fixedFrame = s.signalling().schedule() == Schedule.SLOTS ? s.signalling().frameSlots() : 0;
+            int frame = fixedFrame > 0 ? fixedFrame : schedule.frameSlots(n.emitsSpecies());
+            int now = slots.get(n.id());
+            List<Scenario> candidates = new ArrayList<>();
+            for (int k = 0; k <= frame && k < MAX_FRAME_SLOTS; k++) {
+                if (k != now) {
+                    Map<String, Integer> next = new LinkedHashMap<>(slots);
+                    next.put(n.id(), k);
+                    int f = fixedFrame > 0 ? Math.max(fixedFrame, k + 1) : 0;
+                    candidates.add(safely(() -> LayoutEdits.withSlots(s, f, next)));
+                }
+            }
+            improved |= acceptBest(candidates, "slot of " + n.id());
+        }
+        return improved;
     }
 
     private boolean budgetMoves() {
@@ -314,9 +469,7 @@ public final class LayoutImprover {
                 sigma = Math.max(2, 0.25 * guided.distance(now.positionUm()));
             }
             RelayPlacement.Placed p = placement.place(base, n.id(), starts, sigma);
-            if (p != null && p.assessment().objective().betterThan(evaluator.current().objective())) {
-                evaluator.accept(p.scenario());
-                report("moved " + n.id());
+            if (p != null && p.screened().promising() && confirm(p.scenario(), p.screened(), "moved " + n.id())) {
                 improved = true;
             }
         }
@@ -386,10 +539,8 @@ public final class LayoutImprover {
             more.add(Node.relay(id, at, radius, from.emitsSpecies(), to.species(), molecules));
             return LayoutEdits.withNodes(base, more);
         }, starts, Math.max(2, 0.15 * from.positionUm().distance(to.positionUm())));
-        if (p != null && p.assessment().objective().betterThan(evaluator.current().objective())) {
-            evaluator.accept(p.scenario());
+        if (p != null && p.screened().promising() && confirm(p.scenario(), p.screened(), "added " + id)) {
             added++;
-            report("added " + id);
             return true;
         }
         return false;

@@ -23,7 +23,9 @@ import org.apache.commons.math3.random.MersenneTwister;
  * {@link CMAESOptimizer}), a derivative-free method that copes with the kinks of a min-of-hops rate and
  * with the steps of the demand count.
  *
- * <p><b>Function.</b> {@link Objective#scalar} of the re-planned layout (rate scale: the rate target, or
+ * <p><b>Function.</b> {@link Objective#scalar} of the layout re-planned by the evaluator's screen
+ * ({@link LayoutEvaluator#screen}: the preview planner on all-active layouts, which the caller confirms
+ * with the exact one) (rate scale: the rate target, or
  * 1 bit/s when it is 0). A centre that leaves the volume or makes the relay's body overlap another node
  * is infeasible and scores −1, below every layout. The search box is the volume's bounding box (for an
  * open volume the nodes' bounding box widened by 100 µm).
@@ -39,8 +41,8 @@ final class RelayPlacement {
     /** Margin of the search box around the nodes in an open volume, µm. */
     private static final double OPEN_MARGIN_UM = 100;
 
-    /** The best centre found and its assessment. */
-    record Placed(Vec3 positionUm, Scenario scenario, Assessment assessment) {
+    /** The best centre found and its screening ({@link LayoutEvaluator#screen}). */
+    record Placed(Vec3 positionUm, Scenario scenario, LayoutEvaluator.Screened screened) {
     }
 
     private final LayoutEvaluator evaluator;
@@ -64,8 +66,8 @@ final class RelayPlacement {
         this.stop = stop;
     }
 
-    /** Thrown inside the objective function to end a run early. */
-    private static final class Stopped extends RuntimeException {
+    /** Thrown inside an objective function or a progress callback to end a run or step early. */
+    static final class Stopped extends RuntimeException {
         private static final long serialVersionUID = 1L;
 
         Stopped() {
@@ -108,9 +110,15 @@ final class RelayPlacement {
                 } catch (IllegalArgumentException invalid) {
                     return -1;
                 }
-                Assessment a = evaluator.assess(s);
-                double v = a.objective().scalar(rateScale);
-                if (v > bestValue[0] || (v == bestValue[0] && a.objective().betterThan(best[0].assessment().objective()))) {
+                LayoutEvaluator.Screened a;
+                try {
+                    a = evaluator.screen(s);
+                } catch (IllegalArgumentException unplannable) {
+                    return -1;
+                }
+                double v = a.assessment().objective().scalar(rateScale);
+                if (v > bestValue[0] || (v == bestValue[0]
+                        && a.assessment().objective().betterThan(best[0].screened().assessment().objective()))) {
                     bestValue[0] = v;
                     best[0] = new Placed(p, s, a);
                 }

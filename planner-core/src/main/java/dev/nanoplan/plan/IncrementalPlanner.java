@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Set;
+import java.util.function.DoubleConsumer;
 
 /**
  * Plans a layout, then re-plans it after edits by re-evaluating only the receivers whose links can
@@ -177,6 +178,16 @@ public final class IncrementalPlanner {
      */
     public Plan advance(Scenario edited) {
         return moveTo(edited, false);
+    }
+
+    /**
+     * The plan of {@link #scenario()} with its molecule budgets (joint or independent) but without the advice,
+     * from the links already evaluated: what a layout search sizes budgets with. {@code progress} is told the
+     * budgets' progress (and may throw to end the work early).
+     */
+    public Plan withBudgets(boolean joint, DoubleConsumer progress) {
+        PlanInputs in = PlanInputs.of(inputs.scenario(), options.withJointBudgets(joint).withProgress(progress));
+        return PlanPipeline.budgeted(in, channel, links, evaluator);
     }
 
     /**

@@ -140,6 +140,15 @@ final class PlanPipeline {
         return assembleChecked(in, channel, byReceiver, evaluator).plan();
     }
 
+    /**
+     * The plan {@link #assemble} gives but with the routes' advice unchecked (null for the exact evaluator):
+     * links, routes, budgets (with the progress of {@code in}'s options), shared rates and warnings.
+     */
+    static Plan budgeted(PlanInputs in, ChannelMatrix channel, Map<String, ReceiverLinks> byReceiver,
+            ReceiverEvaluator evaluator) {
+        return assemble(in, channel, byReceiver, evaluator, true, new ArrayList<>());
+    }
+
     /** {@link #assemble}, with the verdicts of the advice check. */
     static AdviceChecker.Result assembleChecked(PlanInputs in, ChannelMatrix channel,
             Map<String, ReceiverLinks> byReceiver, ReceiverEvaluator evaluator) {

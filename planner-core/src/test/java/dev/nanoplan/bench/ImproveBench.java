@@ -6,6 +6,7 @@ import dev.nanoplan.design.LayoutImprover;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.plan.IncrementalPlanner;
 import dev.nanoplan.plan.PlanOptions;
+import dev.nanoplan.plan.PreviewPlanner;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
@@ -31,14 +32,8 @@ public final class ImproveBench {
     private ImproveBench() {
     }
 
-    public static void main(String[] args) throws Exception {
-        Scenario s = args[0].startsWith("generated:") ? SwarmGenerator.designed(Integer.parseInt(args[0].substring(10)), 1)
-                : ScenarioReader.strict().read(Path.of(args[0]));
-        int edits = args.length > 1 ? Integer.parseInt(args[1]) : 50;
-        double limit = args.length > 2 ? Double.parseDouble(args[2]) : 60;
-        long t0 = System.nanoTime();
-        IncrementalPlanner planner = IncrementalPlanner.exactWithoutBudgets(s, PlanOptions.DEFAULT);
-        System.out.printf("first plan (no budgets): %.3f s%n", (System.nanoTime() - t0) / 1e9);
+    /** Up to {@code edits} layouts, each {@code s} with one relay (or transmitter) moved by up to 5 µm per axis. */
+    private static List<Scenario> movedLayouts(Scenario s, int edits) {
         List<Node> movable = new ArrayList<>();
         for (Node n : s.nodes()) {
             if (n.role() == Role.RELAY) {
@@ -49,30 +44,58 @@ public final class ImproveBench {
             s.nodes().stream().filter(n -> n.role() == Role.TRANSMITTER).forEach(movable::add);
         }
         UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(7);
-        int done = 0;
-        long total = 0;
+        List<Scenario> out = new ArrayList<>();
         for (int i = 0; i < edits; i++) {
             Node n = movable.get(rng.nextInt(movable.size()));
             Vec3 step = new Vec3(10 * rng.nextDouble() - 5, 10 * rng.nextDouble() - 5, 10 * rng.nextDouble() - 5);
             List<Node> nodes = new ArrayList<>(s.nodes());
             nodes.replaceAll(m -> m.id().equals(n.id()) ? new Node(m.id(), m.role(), m.positionUm().plus(step),
                     m.radiusUm(), m.species(), m.emitsSpecies(), m.moleculesPerSymbol(), m.fixed()) : m);
-            Scenario edited;
             try {
-                edited = new Scenario(s.name(), s.volume(), s.medium(), s.species(), s.signalling(), nodes,
-                        s.demands(), s.targets(), s.candidateSpecies());
+                out.add(new Scenario(s.name(), s.volume(), s.medium(), s.species(), s.signalling(), nodes,
+                        s.demands(), s.targets(), s.candidateSpecies()));
             } catch (IllegalArgumentException invalid) {
-                continue;
+                // outside the volume or overlapping: skipped
             }
+        }
+        return out;
+    }
+
+    /** Times {@link IncrementalPlanner#whatIf} of every layout and prints re-plans per second. */
+    private static void rate(String label, Scenario s, IncrementalPlanner planner, List<Scenario> layouts) {
+        planner.whatIf(layouts.get(0));
+        long total = 0;
+        for (Scenario edited : layouts) {
             long e0 = System.nanoTime();
             planner.whatIf(edited);
             total += System.nanoTime() - e0;
-            done++;
         }
+        int done = layouts.size();
         double load = ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage();
-        System.out.printf("%s: %d nodes, %d what-if re-plans, mean %.4f s = %.1f re-plans/s; load=%.2f%n", args[0],
+        System.out.printf("%s: %d nodes, %d what-if re-plans, mean %.4f s = %.1f re-plans/s; load=%.2f%n", label,
                 s.nodes().size(), done, total / 1e9 / Math.max(1, done), done / (total / 1e9), load);
-        Improvement r = LayoutImprover.improve(s, ImproveOptions.defaults().withTimeLimit(limit));
+    }
+
+    public static void main(String[] args) throws Exception {
+        Scenario s = args[0].startsWith("generated:") ? SwarmGenerator.designed(Integer.parseInt(args[0].substring(10)), 1)
+                : ScenarioReader.strict().read(Path.of(args[0]));
+        int edits = args.length > 1 ? Integer.parseInt(args[1]) : 50;
+        double limit = args.length > 2 ? Double.parseDouble(args[2]) : 60;
+        long t0 = System.nanoTime();
+        IncrementalPlanner planner = IncrementalPlanner.exactWithoutBudgets(s, PlanOptions.DEFAULT);
+        System.out.printf("first plan (no budgets): %.3f s%n", (System.nanoTime() - t0) / 1e9);
+        List<Scenario> moved = movedLayouts(s, edits);
+        rate(args[0] + " exact", s, planner, moved);
+        if (PreviewPlanner.supports(s)) {
+            rate(args[0] + " preview (the search's screen)", s, IncrementalPlanner.preview(s, PlanOptions.DEFAULT),
+                    moved);
+        }
+        if (limit <= 0) {
+            return;
+        }
+        Improvement r = LayoutImprover.improve(s, ImproveOptions.defaults().withTimeLimit(limit)
+                .withProgress(p -> System.err.printf("  %6.1f s  %5d evaluations  %s  (%s)%n", p.elapsedS(),
+                        p.evaluations(), p.best().describe(), p.step())));
         System.out.printf("improve: %.1f s, %d evaluations (%.1f/s), stopped early %s; before: %s; after: %s;"
                 + " load=%.2f%n", r.seconds(), r.evaluations(), r.evaluations() / r.seconds(), r.stoppedEarly(),
                 r.assessedBefore().objective().describe(), r.assessedAfter().objective().describe(),

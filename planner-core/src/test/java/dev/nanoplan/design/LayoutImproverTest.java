@@ -10,6 +10,7 @@ import dev.nanoplan.count.CountModelKind;
 import dev.nanoplan.scenario.Demand;
 import dev.nanoplan.scenario.Medium;
 import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.Role;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioReader;
 import dev.nanoplan.scenario.ScenarioWriter;
@@ -23,6 +24,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.EnumSet;
 import java.util.HashSet;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -131,6 +133,66 @@ class LayoutImproverTest {
         // source: brute-force enumeration of all 16 species assignments, planned from scratch
         assertThat(fromScratch(r.after())).isEqualTo(best);
         assertThat(best.betterThan(fromScratch(s))).as("the instance must leave room to improve").isTrue();
+    }
+
+    /**
+     * Three transmitter-receiver pairs around a circle (receivers at 20 µm from the centre, transmitters 12 µm
+     * inwards of them, so each transmitter is 12 µm from its receiver and 25 µm from the others), all on
+     * species A, candidate species B with the same diffusion and half-life.
+     */
+    private static Scenario threePairs() {
+        List<Node> nodes = new ArrayList<>();
+        for (int i = 0; i < 3; i++) {
+            double th = 2 * Math.PI * i / 3;
+            nodes.add(new Node("g" + (i + 1), Role.RECEIVER, new Vec3(20 * Math.cos(th), 20 * Math.sin(th), 0), 5,
+                    "A", "A", 0));
+            nodes.add(new Node("t" + (i + 1), Role.TRANSMITTER, new Vec3(8 * Math.cos(th), 8 * Math.sin(th), 0), 1,
+                    "A", "A", 300));
+        }
+        return new Scenario("three pairs", new Volume.Open(), new Medium(310.15, 0.69, Medium.DEFAULT.flow(), 2.0),
+                List.of(Species.ofDiffusion("A", 80, 1.0)), new Signalling(0.5, 2, 2, 0.5, CountModelKind.EXACT,
+                        Schedule.ALL_ACTIVE), nodes,
+                List.of(new Demand("t1", "g1"), new Demand("t2", "g2"), new Demand("t3", "g3")),
+                new Targets(1e-3, 0.5, 3600), List.of(Species.ofDiffusion("B", 80, 1.0)));
+    }
+
+    @Test
+    void theSpeciesAndSlotSearchFindsTheOptimumOfExhaustiveEnumeration() {
+        Scenario s = threePairs();
+        Improvement r = LayoutImprover.improve(s, ImproveOptions.defaults().withTimeLimit(120)
+                .withAllowed(EnumSet.of(DesignMove.SPECIES, DesignMove.SLOTS)));
+        // exhaustive: every species of each pair (a receiver senses one species, so a pair shares it, as the
+        // search's group moves keep it; pair 1 on A, since A and B have the same parameters and renaming them
+        // changes no plan) and every slot 0..2 of each transmitter (frame <= 3), each planned from scratch
+        Objective best = null;
+        Objective bestAllActive = null;
+        for (int mask = 0; mask < 4; mask++) {
+            for (int code = 0; code < 27; code++) {
+                List<Node> nodes = new ArrayList<>();
+                Map<String, Integer> slots = new LinkedHashMap<>();
+                for (int i = 0; i < 3; i++) {
+                    String sp = i > 0 && ((mask >> (i - 1)) & 1) == 1 ? "B" : "A";
+                    nodes.add(LayoutEdits.withSpecies(s.nodes().get(2 * i), sp, sp));
+                    nodes.add(LayoutEdits.withSpecies(s.nodes().get(2 * i + 1), sp, sp));
+                    slots.put("t" + (i + 1), (code / (i == 0 ? 1 : i == 1 ? 3 : 9)) % 3);
+                }
+                Objective o = fromScratch(LayoutEdits.withSlots(LayoutEdits.withNodes(s, nodes), 0, slots));
+                best = best == null || o.betterThan(best) ? o : best;
+                if (code == 0) {
+                    bestAllActive = bestAllActive == null || o.betterThan(bestAllActive) ? o : bestAllActive;
+                }
+            }
+        }
+        // source: brute-force enumeration of all 4 x 27 species and slot assignments, planned from scratch
+        assertThat(fromScratch(r.after())).isEqualTo(best);
+        assertThat(best.betterThan(bestAllActive)).as("the instance must need slots, not species alone").isTrue();
+        for (int i = 1; i <= 3; i++) {
+            Integer slot = r.after().signalling().slots().get("t" + i);
+            if (slot != null && slot != 0) {
+                // source: the improved scenario's own slot plan (the change list names each new slot)
+                assertThat(r.changes()).contains(new Change("t" + i, "slot", "0", slot.toString(), "slot " + slot));
+            }
+        }
     }
 
     @Test

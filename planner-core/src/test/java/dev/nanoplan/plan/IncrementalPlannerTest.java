@@ -87,6 +87,20 @@ class IncrementalPlannerTest {
         assertThat(PlanGoldenTest.render(planner.plan())).isEqualTo(planned);
     }
 
+    /** The budgets a layout search sizes from the kept links are the full plan's, joint and independent. */
+    @ParameterizedTest
+    @MethodSource("seeds")
+    void theBudgetsFromTheKeptLinksAreTheFullPlansBudgets(long seed) throws Exception {
+        Scenario s = SwarmGenerator.generate(20, seed);
+        IncrementalPlanner planner = IncrementalPlanner.exactWithoutBudgets(s, PlanOptions.DEFAULT);
+        Scenario edited = edit(s, RandomSource.XO_RO_SHI_RO_128_PP.create(seed), false);
+        planner.advance(edited);
+        boolean joint = seed % 2 == 0;
+        // source: the full planner run from scratch on the edited scenario (its budgets are what the search reads)
+        assertThat(planner.withBudgets(joint, f -> { }).budgets())
+                .isEqualTo(NetworkPlanner.plan(edited, PlanOptions.DEFAULT.withJointBudgets(joint)).budgets());
+    }
+
     /** The plan without budgets or advice ({@link PlanPipeline#whatIf}), every receiver evaluated afresh. */
     static Plan whatIfFromScratch(Scenario s, ReceiverEvaluator evaluator) {
         PlanInputs in = PlanInputs.of(s, PlanOptions.DEFAULT);

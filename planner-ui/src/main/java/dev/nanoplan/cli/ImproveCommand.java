@@ -199,9 +199,6 @@ public final class ImproveCommand implements Callable<Integer> {
         sb.append("  after:  ").append(r.assessedAfter().objective().describe()).append('\n');
         sb.append(String.format(Locale.ROOT, "%d layouts evaluated in %.1f s%s%n", r.evaluations(), r.seconds(),
                 r.stoppedEarly() ? " (stopped early: time limit or Ctrl-C; best so far)" : ""));
-        if (moves.contains(DesignMove.SLOTS)) {
-            sb.append("slots: not searched (the slot schedule is not available in this build)\n");
-        }
         sb.append("\nChanges\n");
         if (r.changes().isEmpty()) {
             sb.append("  none: no allowed change made the layout better\n");
