@@ -10,6 +10,7 @@ import dev.nanoplan.tolerance.ToleranceStudy;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Objects;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.Executor;
@@ -73,7 +74,7 @@ public final class ToleranceViewModel {
      * bundled scenarios/culture-tank.json states (not measured fabrication data).
      */
     static final Tolerances DEMO = new Tolerances(new Tolerances.NodeSpread(2.0, 5.0, 10.0), 5.0, 0.5,
-            java.util.Map.of());
+            Map.of());
     /** Guard-band samples per step, as {@code nanoplan tolerance}'s default. */
     static final int GUARD_SAMPLES = 20;
     /** Bars of the capacity histogram (fewer when there are few samples). */
