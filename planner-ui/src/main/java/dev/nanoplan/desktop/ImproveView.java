@@ -77,6 +77,7 @@ public final class ImproveView {
         Label progress = new Label();
         progress.textProperty().bind(vm.progressTextProperty());
         progress.getStyleClass().add("hint");
+        progress.managedProperty().bind(vm.progressTextProperty().isNotEmpty());
         progress.setWrapText(true);
         Label status = new Label();
         status.setId("imp-status");
@@ -137,8 +138,7 @@ public final class ImproveView {
         tick.setPrefWidth(50);
         TableColumn<ImproveViewModel.ChangeRow, String> node = Widgets.text("node", r -> r.change().node());
         TableColumn<ImproveViewModel.ChangeRow, String> what = Widgets.text("change", r -> r.change().reason());
-        TableColumn<ImproveViewModel.ChangeRow, String> field = Widgets.text("field", r -> r.change().field());
-        changes.getColumns().addAll(List.of(tick, node, what, field));
+        changes.getColumns().addAll(List.of(tick, node, what));
         changes.setEditable(true);
         changes.setItems(vm.changes());
         changes.setId("imp-changes");

@@ -112,6 +112,7 @@ public final class ToleranceView {
         Label eta = new Label();
         eta.textProperty().bind(vm.etaProperty());
         eta.getStyleClass().add("hint");
+        eta.managedProperty().bind(vm.etaProperty().isNotEmpty());
         Label status = new Label();
         status.setId("tol-status");
         status.textProperty().bind(vm.statusProperty());
@@ -132,7 +133,7 @@ public final class ToleranceView {
 
         VBox box = new VBox(8, Widgets.section("Yield under fabrication tolerances"), study, none,
                 Widgets.section("Spreads (standard deviations, as in the file)"), spreads, spreadButtons, controls, eta,
-                status, stale, Widgets.section("Links (weak links first are outlined in the 3D view)"), links,
+                status, stale, Widgets.section("Links (⚠ weak: below 95 % yield, likeliest failure first; outlined in the 3D view)"), links,
                 Widgets.section("Demands"), demands, histogram, caution);
         box.setPadding(new Insets(10));
         box.getStyleClass().add("inspector");
@@ -161,6 +162,7 @@ public final class ToleranceView {
 
     private void buildLinkTable() {
         links.getColumns().addAll(List.of(
+                Widgets.text("weak", r -> r.weak() ? "⚠ " + r.weakRank() : ""),
                 Widgets.text("link", ToleranceRow::name),
                 Widgets.numberText("yield", ToleranceRow::yield, ToleranceRow::yieldText),
                 Widgets.text("95 % interval", ToleranceRow::intervalText),
@@ -171,15 +173,15 @@ public final class ToleranceView {
                 textCell("drivers (share of variance)", r -> r.drivers(vm.driversMethod()))));
         links.setItems(vm.links());
         links.setId("tol-links");
-        links.setPrefHeight(220);
+        links.setPrefHeight(200);
         links.setPlaceholder(new Label("Press Run to estimate the yield of every link and demand."));
         links.setRowFactory(t -> new TableRow<>() {
             @Override
             protected void updateItem(ToleranceRow item, boolean empty) {
                 super.updateItem(item, empty);
-                getStyleClass().remove("sim-flagged");
+                getStyleClass().remove("tol-weak");
                 if (!empty && item != null && item.weak()) {
-                    getStyleClass().add("sim-flagged");
+                    getStyleClass().add("tol-weak");
                 }
             }
         });
@@ -203,7 +205,7 @@ public final class ToleranceView {
                 Widgets.text("95 % interval", ToleranceRow::intervalText)));
         demands.setItems(vm.demands());
         demands.setId("tol-demands");
-        demands.setPrefHeight(140);
+        demands.setPrefHeight(120);
         demands.setPlaceholder(new Label("no demands yet"));
         Widgets.fitColumns(demands);
     }
