@@ -92,7 +92,7 @@ public final class ImproveView {
         Button discard = button("Discard", "Drop the proposal and its ghosts", vm::discard);
         discard.setId("imp-discard");
         discard.disableProperty().bind(vm.hasProposalProperty().not());
-        Label ghostHint = new Label("3D view: ghosts at the old positions, arrows to the new ones (ticked changes).");
+        Label ghostHint = new Label("3D view: wire ghosts where the ticked changes would put nodes, arrows from where they are now.");
         ghostHint.getStyleClass().add("hint");
         ghostHint.setWrapText(true);
         Label caution = new Label(CAUTION);

@@ -17,7 +17,9 @@ import javafx.scene.shape.Sphere;
  * What the Tolerance and Improve tabs draw over the 3D view, in {@link SceneView#overlay()}: each weak
  * link of the last tolerance study outlined as a wire tube, thicker for a likelier failure (cleared by
  * the view model when the layout changes), and the ticked changes of an improve proposal as wire ghosts
- * at the old positions with arrows to the new ones (an added node: a ghost at its proposed position).
+ * where they would put nodes, with arrows from the nodes' present (old) positions; an added node is a
+ * ghost alone. The layout itself changes only on Apply, so the solid sphere marks the old position
+ * (a ghost drawn there would hide inside it).
  *
  * <p>Ids for tests: {@code weak-FROM→TO}, {@code ghost-NODE}, {@code arrow-NODE}.
  */
@@ -87,7 +89,7 @@ final class SceneOverlays {
         for (ImproveViewModel.Ghost g : improve.ghosts()) {
             Sphere drawn = scene.spheres().get(g.node());
             double radius = Math.max(g.radiusUm(), drawn == null ? 0 : drawn.getRadius());
-            Vec3 at = g.fromUm() == null ? g.toUm() : g.fromUm();
+            Vec3 at = g.toUm();
             Sphere sp = new Sphere(Math.max(radius, shaft * 3), 16);
             Point3D p = Shapes3D.fx(at);
             sp.setTranslateX(p.getX());

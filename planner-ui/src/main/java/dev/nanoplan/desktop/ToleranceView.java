@@ -133,7 +133,7 @@ public final class ToleranceView {
 
         VBox box = new VBox(8, Widgets.section("Yield under fabrication tolerances"), study, none,
                 Widgets.section("Spreads (standard deviations, as in the file)"), spreads, spreadButtons, controls, eta,
-                status, stale, Widgets.section("Links (⚠ weak: below 95 % yield, likeliest failure first; outlined in the 3D view)"), links,
+                status, stale, Widgets.section("Links (⚠ weak: below 95 % yield; outlined in 3D)"), links,
                 Widgets.section("Demands"), demands, histogram, caution);
         box.setPadding(new Insets(10));
         box.getStyleClass().add("inspector");

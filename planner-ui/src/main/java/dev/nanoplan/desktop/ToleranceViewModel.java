@@ -37,7 +37,7 @@ import javafx.collections.ObservableList;
  * ({@link ToleranceStudy}, {@link ToleranceRunner}, as {@code nanoplan tolerance} does) on the current
  * layout in the background, with progress, an estimate of the time left, and Cancel, which returns the
  * samples that finished, marked partial. Shows per link and per demand the yield with its Wilson 95 %
- * interval ({@link ToleranceRow}), the weak links for the 3D view (cleared when the layout changes), and
+ * interval ({@link ToleranceRow}; weak links first, likeliest failure first), the weak links for the 3D view (cleared when the layout changes), and
  * the capacity histogram of the selected link. No statistics here: every number comes from the core.
  *
  * <p>Tolerances: the fields start from the layout's {@code tolerances} section (its defaults; per-node
@@ -312,9 +312,15 @@ public final class ToleranceViewModel {
     private void show(ToleranceResult res, Scenario s) {
         result = res;
         resultScenario = s;
+        // weak links first, likeliest failure first; then the others in the plan's order
         List<ToleranceRow> rows = new ArrayList<>();
+        for (int l : res.weakLinks()) {
+            rows.add(ToleranceRow.of(res.links().get(l), rows.size() + 1));
+        }
         for (int l = 0; l < res.links().size(); l++) {
-            rows.add(ToleranceRow.of(res.links().get(l), res.weakLinks().indexOf(l) + 1));
+            if (!res.weakLinks().contains(l)) {
+                rows.add(ToleranceRow.of(res.links().get(l), 0));
+            }
         }
         links.setAll(rows);
         demands.setAll(res.demands().stream().map(ToleranceRow::of).toList());
@@ -328,8 +334,7 @@ public final class ToleranceViewModel {
         if (stale.get()) {
             weakLinks.clear();
         }
-        selectedLink.set(res.weakLinks().isEmpty() ? (rows.isEmpty() ? null : rows.get(0))
-                : rows.get(res.weakLinks().get(0)));
+        selectedLink.set(rows.isEmpty() ? null : rows.get(0));
         refreshHistogram();
     }
 
