@@ -4,7 +4,6 @@ import static dev.nanoplan.desktop.Widgets.button;
 
 import dev.nanoplan.design.DesignMove;
 import java.util.List;
-import javafx.geometry.Insets;
 import javafx.geometry.Pos;
 import javafx.scene.control.Button;
 import javafx.scene.control.CheckBox;
@@ -103,12 +102,7 @@ public final class ImproveView {
                 new Label("The search may change:"), allow, limit, controls, progress, status,
                 Widgets.section("Proposed changes"), changes, new HBox(8, apply, discard), ghostHint,
                 Widgets.section("Demands before → after"), demands, caution);
-        box.setPadding(new Insets(10));
-        box.getStyleClass().add("inspector");
-        root = new ScrollPane(box);
-        root.setFitToWidth(true);
-        root.getStyleClass().add("inspector");
-        root.setUserData(this);
+        root = Widgets.scrollingPanel(box, this);
     }
 
     /** The tab's content. */

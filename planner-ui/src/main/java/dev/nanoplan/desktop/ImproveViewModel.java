@@ -19,8 +19,6 @@ import java.util.Objects;
 import java.util.Set;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.Executor;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicReference;
 import javafx.application.Platform;
@@ -83,11 +81,7 @@ public final class ImproveViewModel {
     /** Field label of the time limit; its messages start with it. */
     public static final String TIME_LIMIT = "time limit s";
 
-    private static final ExecutorService WORKER = Executors.newSingleThreadExecutor(r -> {
-        Thread t = new Thread(r, "nanoplan-improve");
-        t.setDaemon(true);
-        return t;
-    });
+    private static final Executor WORKER = PlannerViewModel.daemonScheduler("nanoplan-improve");
 
     private final PlannerViewModel planner;
     private final Executor uiThread;

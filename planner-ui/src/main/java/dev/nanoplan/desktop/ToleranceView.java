@@ -8,7 +8,6 @@ import java.util.List;
 import java.util.function.Function;
 import javafx.beans.binding.Bindings;
 import javafx.collections.ListChangeListener;
-import javafx.geometry.Insets;
 import javafx.geometry.Pos;
 import javafx.scene.chart.BarChart;
 import javafx.scene.chart.CategoryAxis;
@@ -135,12 +134,7 @@ public final class ToleranceView {
                 Widgets.section("Spreads (standard deviations, as in the file)"), spreads, spreadButtons, controls, eta,
                 status, stale, Widgets.section("Links (⚠ weak: below 95 % yield; outlined in 3D)"), links,
                 Widgets.section("Demands"), demands, histogram, caution);
-        box.setPadding(new Insets(10));
-        box.getStyleClass().add("inspector");
-        root = new ScrollPane(box);
-        root.setFitToWidth(true);
-        root.getStyleClass().add("inspector");
-        root.setUserData(this);
+        root = Widgets.scrollingPanel(box, this);
     }
 
     /** The tab's content. */

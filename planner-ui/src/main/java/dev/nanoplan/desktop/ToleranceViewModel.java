@@ -14,8 +14,6 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.Executor;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicInteger;
 import javafx.application.Platform;
@@ -81,11 +79,7 @@ public final class ToleranceViewModel {
     static final int BINS = 20;
     static final long PROGRESS_INTERVAL_MS = 50;
 
-    private static final ExecutorService WORKER = Executors.newSingleThreadExecutor(r -> {
-        Thread t = new Thread(r, "nanoplan-tolerance");
-        t.setDaemon(true);
-        return t;
-    });
+    private static final Executor WORKER = PlannerViewModel.daemonScheduler("nanoplan-tolerance");
 
     private final PlannerViewModel planner;
     private final Executor uiThread;
