@@ -86,7 +86,7 @@ class ToleranceViewModelTest {
     @Test
     void theRowsAreTheCoreStudyOfTheSameSeedAndTheIntervalsWilsons() throws Exception {
         tol.useDemoDefaults();
-        tol.samplesProperty().set("24");
+        tol.samplesProperty().set("12");
         tol.seedProperty().set("7");
         tol.samplerProperty().set(Sampler.RANDOM);
         assertThat(tol.run()).isTrue();
@@ -94,7 +94,7 @@ class ToleranceViewModelTest {
 
         Scenario s = ToleranceViewModel.withTolerances(planner.scenarioProperty().get(), ToleranceViewModel.DEMO);
         ToleranceResult direct = new ToleranceRunner(new ToleranceStudy(s, Sampler.RANDOM, 7, Thresholds.DESIGN), 1,
-                ToleranceViewModel.GUARD_SAMPLES).run(24, d -> { });
+                ToleranceViewModel.GUARD_SAMPLES).run(12, d -> { });
         // the same links, the weak ones first in the core's order (likeliest failure first), then the rest
         List<ToleranceResult.LinkYield> expected = new ArrayList<>();
         direct.weakLinks().forEach(i -> expected.add(direct.links().get(i)));
@@ -109,7 +109,7 @@ class ToleranceViewModelTest {
         assertThat(tol.demands()).extracting(ToleranceRow::yield)
                 .containsExactlyElementsOf(direct.demands().stream().map(ToleranceResult.DemandYield::yield).toList());
         for (ToleranceRow r : tol.links()) {
-            double n = 24;
+            double n = 12;
             double k = Math.round(r.yield() * n);
             double z = 1.959963984540054;
             // E. B. Wilson, "Probable inference, the law of succession, and statistical inference",
@@ -127,7 +127,7 @@ class ToleranceViewModelTest {
         assertThat(tol.weakLinks()).allSatisfy(w -> assertThat(w.failureProbability()).isPositive());
         // the selected link's histogram holds every sample of it
         assertThat(tol.selectedLinkProperty().get()).isNotNull();
-        assertThat(tol.histogram().stream().mapToInt(ToleranceViewModel.Bin::count).sum()).isEqualTo(24);
+        assertThat(tol.histogram().stream().mapToInt(ToleranceViewModel.Bin::count).sum()).isEqualTo(12);
 
         // an edit clears the outlines (they belong to the studied layout) and marks the rows stale
         planner.editor().moveNode("relay1", planner.scenarioProperty().get().nodesById().get("relay1").positionUm()
