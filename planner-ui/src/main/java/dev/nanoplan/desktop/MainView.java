@@ -41,6 +41,8 @@ public final class MainView {
     private final TabPane tabs = new TabPane();
     private final LinkChartsView charts;
     private final SimulationViewModel simulation;
+    private final ToleranceViewModel tolerance;
+    private final ImproveViewModel improve;
 
     /** The window's content; simulated channels are cached where the command line caches them. */
     public MainView(PlannerViewModel vm, AppActions actions) {
@@ -52,6 +54,9 @@ public final class MainView {
         this.vm = vm;
         this.simulation = SimulationViewModel.forApplication(vm, simulationCacheDir);
         this.sceneView = new SceneView(vm);
+        this.tolerance = ToleranceViewModel.forApplication(vm);
+        this.improve = ImproveViewModel.forApplication(vm);
+        new SceneOverlays(sceneView, vm, tolerance, improve);
         root.getStyleClass().add("nanoplan");
         root.getStylesheets().add(MainView.class.getResource("nanoplan.css").toExternalForm());
 
@@ -81,6 +86,8 @@ public final class MainView {
                 tab("Compare", tables.comparePane()),
                 tab("Link charts", charts.node()),
                 tab("Simulation", new SimulationView(simulation).node()),
+                tab("Tolerance", new ToleranceView(tolerance).node()),
+                tab("Improve", new ImproveView(improve).node()),
                 tab("Warnings", warningsPane()),
                 tab("Settings", new SettingsPane(vm).node()));
         tabs.setTabClosingPolicy(TabPane.TabClosingPolicy.UNAVAILABLE);
@@ -120,6 +127,16 @@ public final class MainView {
         return simulation;
     }
 
+    /** The Tolerance tab's view model. */
+    public ToleranceViewModel tolerance() {
+        return tolerance;
+    }
+
+    /** The Improve tab's view model. */
+    public ImproveViewModel improve() {
+        return improve;
+    }
+
     /** Shows the panel tab with this title; false when there is none. */
     public boolean showTab(String title) {
         for (Tab t : tabs.getTabs()) {
@@ -155,6 +172,8 @@ public final class MainView {
         routesOnly.selectedProperty().bindBidirectional(vm.tables().showRoutesOnlyProperty());
         Button keep = button("Keep for compare", "Keep this design's numbers to compare with later edits",
                 vm::keepForComparison);
+        Button improveB = button("Improve…", "Search for a better layout: species, budgets, relay positions",
+                () -> showTab("Improve"));
         Button cancel = button("Cancel", "Cancel the running plan", vm::cancelPlan);
         cancel.visibleProperty().bind(vm.plans().busyProperty());
         ToolBar bar = new ToolBar();
@@ -163,7 +182,7 @@ public final class MainView {
                     button("Save", "Save (atomic)", actions::save), new Separator(Orientation.VERTICAL));
         }
         bar.getItems().addAll(undo, redo, new Separator(Orientation.VERTICAL), fit, volume, persp, front, side, top,
-                ids, routesOnly, new Separator(Orientation.VERTICAL), keep, cancel);
+                ids, routesOnly, new Separator(Orientation.VERTICAL), keep, improveB, cancel);
         return bar;
     }
 

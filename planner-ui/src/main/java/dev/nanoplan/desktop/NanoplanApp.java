@@ -27,7 +27,11 @@ public final class NanoplanApp extends Application {
             }
         });
         // closed by the window's button or File ▸ Quit: a simulation in progress would be dropped
-        stage.setOnHidden(e -> view.simulation().dispose());
+        stage.setOnHidden(e -> {
+            view.simulation().dispose();
+            view.tolerance().cancel();
+            view.improve().cancel();
+        });
         List<String> raw = getParameters().getRaw();
         if (!raw.isEmpty()) {
             vm.open(Path.of(raw.get(0)));

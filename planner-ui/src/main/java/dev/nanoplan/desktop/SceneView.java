@@ -64,6 +64,8 @@ public final class SceneView {
     private final Group linkGroup = new Group();
     private final Group routeGroup = new Group();
     private final Group nodeGroup = new Group();
+    /** Drawn over the layout by other panes (weak links, improve ghosts: {@link SceneOverlays}). */
+    private final Group overlayGroup = new Group();
     private final NodeLabels labels;
     private final SubScene subScene;
     private final Pane host = new Pane();
@@ -85,7 +87,7 @@ public final class SceneView {
         AmbientLight ambient = new AmbientLight(Color.gray(0.5));
         PointLight key = new PointLight(Color.gray(0.75));
         key.getTransforms().add(new Translate(-2e4, -3e4, -2e4));
-        world.getChildren().addAll(volumeGroup, linkGroup, routeGroup, nodeGroup, ambient, key);
+        world.getChildren().addAll(volumeGroup, linkGroup, routeGroup, nodeGroup, overlayGroup, ambient, key);
         subScene = new SubScene(world, 800, 600, true, SceneAntialiasing.BALANCED);
         subScene.setFill(BACKGROUND);
         subScene.setCamera(orbit.camera());
@@ -140,6 +142,16 @@ public final class SceneView {
 
     public Group world() {
         return world;
+    }
+
+    /** A group other panes draw into, over the layout (cleared by them, never by the view). */
+    Group overlay() {
+        return overlayGroup;
+    }
+
+    /** The radius of a plain link's tube, µm: 0.3 % of the nodes' frame. */
+    double linkRadius() {
+        return nodesExtent * 0.003;
     }
 
     /** The volume outline (for tests). */
@@ -385,7 +397,7 @@ public final class SceneView {
         }
         Map<String, Node> byId = s.nodesById();
         double max = vm.maxCapacityBits();
-        double r = nodesExtent * 0.003;
+        double r = linkRadius();
         LinkReport selected = vm.tables().selectedLinkProperty().get();
         RouteReport route = vm.tables().selectedRouteProperty().get();
         Set<String> routeHops = new HashSet<>();

@@ -8,15 +8,18 @@ import javafx.collections.ListChangeListener;
 import javafx.beans.property.ReadOnlyStringWrapper;
 import javafx.beans.property.StringProperty;
 import javafx.beans.value.ObservableValue;
+import javafx.geometry.Insets;
 import javafx.scene.control.Button;
 import javafx.scene.control.Control;
 import javafx.scene.control.Label;
+import javafx.scene.control.ScrollPane;
 import javafx.scene.control.TableCell;
 import javafx.scene.control.TableColumn;
 import javafx.scene.control.TableView;
 import javafx.scene.control.TextField;
 import javafx.scene.control.Tooltip;
 import javafx.scene.layout.GridPane;
+import javafx.scene.layout.VBox;
 import javafx.scene.text.Text;
 
 /**
@@ -110,6 +113,20 @@ final class Widgets {
         g.setHgap(6);
         g.setVgap(5);
         return g;
+    }
+
+    /**
+     * A tab's content: {@code box} padded and styled as a panel, scrolling when taller than the tab,
+     * with {@code owner} (its view) as user data for tests.
+     */
+    static ScrollPane scrollingPanel(VBox box, Object owner) {
+        box.setPadding(new Insets(10));
+        box.getStyleClass().add("inspector");
+        ScrollPane root = new ScrollPane(box);
+        root.setFitToWidth(true);
+        root.getStyleClass().add("inspector");
+        root.setUserData(owner);
+        return root;
     }
 
     static Label section(String text) {

@@ -26,12 +26,13 @@ class DesktopArchitectureTest {
     static final Set<String> MODELS = Set.of("CorePlanService", "DemandComparison", "FieldErrors", "Formats", "LayoutEditor",
             "LabelDeclutter", "LayoutEdits", "LayoutGeometry", "LinkDetails", "NodeInspector", "PlanScheduler", "PlanService",
             "PlanTables", "RecentFiles", "RouteSummary", "ScenarioDocument", "ScenarioSettings", "SettingsText", "SlotAssigner",
-            "SimulationFields", "SimulationRow", "SimulationRun", "SpeciesRow", "TableText", "UndoStack");
+            "SimulationFields", "SimulationRow", "SimulationRun", "SpeciesRow", "TableText", "ToleranceRow", "UndoStack");
 
     /** The view classes: they build controls and bind them to the models. */
     static final Set<String> VIEWS = Set.of("AppActions", "CapacityColours", "DesktopLauncher", "InspectorPane",
             "Legend", "LinkChartsView", "MainView", "NanoplanApp", "NodeLabels", "OrbitCamera", "PlanTablesView", "SceneControls",
-            "SceneView", "SettingsPane", "Shapes3D", "SimulationView", "Snapshots", "StatusBar", "Widgets");
+            "SceneView", "SettingsPane", "Shapes3D", "SimulationView", "Snapshots", "StatusBar", "Widgets",
+            "ToleranceView", "ImproveView", "SceneOverlays");
 
     private static JavaClasses desktop;
 
