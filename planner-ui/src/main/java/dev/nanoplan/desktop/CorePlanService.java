@@ -130,8 +130,10 @@ final class CorePlanService implements PlanService {
             throw new CancellationException("superseded by a newer edit");
         }
         if (r.obtained() != null) {
-            progress.accept("channel: " + r.decision().toSimulate().size() + " emitter(s) simulated ("
-                    + r.obtained().source() + "), the others by closed forms");
+            int simulated = r.decision().toSimulate().size();
+            long emitters = scenario.nodes().stream().filter(n -> n.role().emits()).count();
+            progress.accept("channel: " + simulated + " emitter(s) simulated (" + r.obtained().source() + ")"
+                    + (simulated < emitters ? ", the others by closed forms" : ""));
         }
         return r.channel();
     }
