@@ -218,17 +218,21 @@ final class Absorbers {
     }
 
     /**
-     * The receiver that absorbs a molecule stepping from (x0,y0,z0) to (x1,y1,z1), −1 for none, or
-     * {@link #REFLECTED} when a reactive sphere reflected it (the new end point is then in
-     * {@code out}, x, y, z; the caller's scratch array, needed only with reactive spheres). Draws one uniform variate from {@code rng} per perfectly absorbing sphere
-     * within reach that the end point is outside of, and one per reactive sphere the end point is
-     * inside of.
+     * The receiver that absorbs a molecule stepping from (x0,y0,z0) to (x1,y1,z1), or −1: the
+     * {@link #absorb(double, double, double, double, double, double, UniformRandomProvider, double[])}
+     * of layouts with perfect absorbers only (which never reflect).
      */
     int absorb(double x0, double y0, double z0, double x1, double y1, double z1, UniformRandomProvider rng) {
         return absorb(x0, y0, z0, x1, y1, z1, rng, null);
     }
 
-    /** As {@link #absorb(double, double, double, double, double, double, UniformRandomProvider)}. */
+    /**
+     * The receiver that absorbs a molecule stepping from (x0,y0,z0) to (x1,y1,z1), −1 for none, or
+     * {@link #REFLECTED} when a reactive sphere reflected it; the new end point is then in
+     * {@code out} (x, y, z; the caller's scratch array, needed only with reactive spheres). Draws one
+     * uniform variate from {@code rng} per perfectly absorbing sphere within reach that the end point
+     * is outside of, and one per reactive sphere the end point is inside of.
+     */
     int absorb(double x0, double y0, double z0, double x1, double y1, double z1, UniformRandomProvider rng,
             double[] out) {
         int from;
