@@ -40,7 +40,10 @@ import java.util.Map;
  *       catch of r from a's surface under decay at rate λ (Redner 2001, ch. 6; the lifetime left is
  *       again exponential). Their sum over the other absorbers, the most shading can remove, is at most
  *       {@value #MAX_RELATIVE_EFFECT} of F(d, H). Passive (transparent) receivers take nothing and do not
- *       count. Absorbers whose pair with the emitter was cut off
+ *       count; for a passive receiver the bound per absorbed molecule is instead the most sampling counts
+ *       it could still have given, (L + 1)·min(1, V·(3/(2πe))^{3/2}/(ρ − r)³) with V the observer's
+ *       volume. For a reactive or passive receiver F(d, H) and the wall images' catch are the tap sums of
+ *       its own closed form. Absorbers whose pair with the emitter was cut off
  *       (below the spatial cutoff) take too little to count.</li>
  * </ol>
  * A wall or shading effect above that fraction still passes when it moves the pair's mean count over the
@@ -215,8 +218,25 @@ public final class ChannelApplicability {
         for (Vec3 image : images) {
             double dist = image.distance(r);
             if (dist > receiver.radiusUm()) {
-                sum += AnalyticChannel.model(dist, receiver.radiusUm(), sp).cumulative(horizonS);
+                sum += catchOverMemory(dist, receiver, sp);
             }
+        }
+        return sum;
+    }
+
+    /**
+     * The closed-form catch over the memory of a release at {@code distanceUm}: F(d, H) of the absorbing
+     * sphere, or the tap sum of the receiver's own model (reactive sphere, passive observer), the same
+     * quantity the pair's entry holds.
+     */
+    private double catchOverMemory(double distanceUm, Node receiver, Species sp) {
+        if (receiver.receiver().isAbsorbing()) {
+            return AnalyticChannel.model(distanceUm, receiver.radiusUm(), sp).cumulative(horizonS);
+        }
+        double sum = 0;
+        for (double p : AnalyticChannel.tapModel(distanceUm, receiver, sp).taps(scenario.signalling().symbolTimeS(),
+                scenario.signalling().isiMemorySymbols())) {
+            sum += p;
         }
         return sum;
     }
@@ -234,6 +254,21 @@ public final class ChannelApplicability {
         return new Vec3(e.x(), e.y() + 2 * gap * uy, e.z() + 2 * gap * uz);
     }
 
+    /**
+     * The most sampling counts a passive observer of radius r gets from one molecule that starts at
+     * distance ρ from its centre: at each of the L + 1 sampling instants the chance to be inside is at
+     * most the ball's volume times the peak free-space Green's function at the gap ρ − r,
+     * max_t (4πDt)^{−3/2}·e^{−(ρ−r)²/(4Dt)} = (3/(2πe))^{3/2}/(ρ − r)³ (at 4Dt = 2(ρ − r)²/3; Carslaw and
+     * Jaeger 1959), capped at 1; decay only lowers it.
+     */
+    private double passiveCountsBound(double rhoUm, double radiusUm) {
+        double gap = rhoUm - radiusUm;
+        double volume = 4.0 / 3 * Math.PI * radiusUm * radiusUm * radiusUm;
+        double perSample = gap > 0 ? Math.min(1, volume * Math.pow(3 / (2 * Math.PI * Math.E), 1.5) / (gap * gap * gap))
+                : 1;
+        return (scenario.signalling().isiMemorySymbols() + 1) * perSample;
+    }
+
     /** Bound on the catch other absorbers take from the pair (class comment, test 3). */
     double shadingCatch(Node emitter, Node receiver, Species sp, Collection<ChannelEntry> sameEmitter) {
         double root = sp.isStable() ? 0 : Math.sqrt(sp.decayRatePerS() / sp.diffusionUm2PerS());
@@ -247,7 +282,9 @@ public final class ChannelApplicability {
                 continue; // a passive observer is transparent: it takes nothing
             }
             double rho = Math.max(a.positionUm().distance(receiver.positionUm()) - a.radiusUm(), receiver.radiusUm());
-            sum += o.tapSum() * receiver.radiusUm() / rho * Math.exp(-(rho - receiver.radiusUm()) * root);
+            sum += o.tapSum() * (receiver.absorbs()
+                    ? receiver.radiusUm() / rho * Math.exp(-(rho - receiver.radiusUm()) * root)
+                    : passiveCountsBound(rho, receiver.radiusUm()));
         }
         return sum;
     }

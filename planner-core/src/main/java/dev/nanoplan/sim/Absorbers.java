@@ -16,6 +16,20 @@ import org.apache.commons.rng.UniformRandomProvider;
  * detail", Phys. Biol. 1, 2004). The correction removes the O(√Δt) leading error of plain
  * end-point checks; the tangent-plane error is of relative order √(DΔt)/r.
  *
+ * <p><b>Reactive spheres</b> (the Collins–Kimball boundary D∂c/∂n = κc, F. C. Collins and G. E.
+ * Kimball, J. Colloid Sci. 4, 1949): a sphere with adsorption probability P &lt; 1 uses the
+ * partially reflecting scheme of R. Erban and S. J. Chapman, "Reactive boundary conditions for
+ * stochastic simulations of reaction–diffusion processes", Phys. Biol. 4 (2007) 16–28, §3 (the
+ * Brownian-dynamics model): a molecule whose step ends inside the sphere is adsorbed with
+ * probability P = κ·√(π·Δt/D), else reflected (its end point mirrored radially in the surface,
+ * ρ → 2r − ρ); no bridge test, because P is derived for end-point checks (the same constant
+ * √π appears in A. Singer, Z. Schuss, A. Osipov, D. Holcman, "Partially reflected diffusion", SIAM
+ * J. Appl. Math. 68(3), 2008: κ = P√D/√π). The relation holds to leading order as Δt → 0
+ * (P ≪ 1 and a step short against r); when κ√(πΔt/D) ≥ 1 the surface adsorbs every molecule that
+ * reaches it at this resolution and the sphere is treated as absorbing (P = 1, with the bridge
+ * test), so κ → ∞ gives the absorbing sphere exactly. A reflected end point may land inside a
+ * neighbouring sphere only if the two nearly touch; it is then left there and judged next step.
+ *
  * <p>Spheres farther than a reach of r + {@value #REACH_SIGMAS}σ from the end point are skipped:
  * for them the bridge probability needs a jump of more than ~{@value #REACH_SIGMAS}σ, a chance
  * below 1e-12 per step. The first sphere found wins (spheres do not overlap, so at most one can
@@ -34,7 +48,12 @@ final class Absorbers {
     /** Bridge exponents above this give probabilities below e^{-40} ≈ 4e-18: skipped. */
     private static final double MAX_EXPONENT = 40;
 
+    /** {@link #absorb} result: the end point was reflected by a reactive sphere (the new one is in {@code out}). */
+    static final int REFLECTED = -2;
+
     final int count;
+    /** Per sphere: the adsorption probability at a crossing (1: absorbing, with the bridge test). */
+    private final double[] adsorb;
     /** Per sphere i, at 6i: centre x, y, z, radius, radius², reach² (packed for locality). */
     private final double[] sphere;
     private final double[] cx;
@@ -66,7 +85,21 @@ final class Absorbers {
      * @param diffusionTimesStepUm2 DΔt, µm²
      */
     Absorbers(double[][] centres, double[] radii, int[] receiverIndex, double sigmaUm, double diffusionTimesStepUm2) {
+        this(centres, radii, receiverIndex, null, sigmaUm, diffusionTimesStepUm2);
+    }
+
+    /**
+     * @param adsorb per sphere, the adsorption probability P at a crossing in (0, 1] (1: a perfect
+     *     absorber); null for all perfect absorbers
+     * @see #Absorbers(double[][], double[], int[], double, double)
+     */
+    Absorbers(double[][] centres, double[] radii, int[] receiverIndex, double[] adsorb, double sigmaUm,
+            double diffusionTimesStepUm2) {
         count = radii.length;
+        this.adsorb = new double[count];
+        for (int i = 0; i < count; i++) {
+            this.adsorb[i] = adsorb == null ? 1 : Math.min(1, adsorb[i]);
+        }
         cx = new double[count];
         cy = new double[count];
         cz = new double[count];
@@ -173,11 +206,35 @@ final class Absorbers {
     }
 
     /**
-     * The receiver that absorbs a molecule stepping from (x0,y0,z0) to (x1,y1,z1), or −1.
-     * Draws one uniform variate from {@code rng} per sphere within reach that the end point is
-     * outside of.
+     * The adsorption probability of a reactive sphere at a crossing, P = κ·√(π·Δt/D) (Erban and
+     * Chapman 2007, §3; see the class comment), capped at 1.
+     *
+     * @param bindingRateUmPerS κ, µm/s
+     * @param timeStepS Δt, s
+     * @param diffusionUm2PerS D, µm²/s
+     */
+    static double adsorptionProbability(double bindingRateUmPerS, double timeStepS, double diffusionUm2PerS) {
+        return Math.min(1, bindingRateUmPerS * Math.sqrt(Math.PI * timeStepS / diffusionUm2PerS));
+    }
+
+    /**
+     * The receiver that absorbs a molecule stepping from (x0,y0,z0) to (x1,y1,z1), or −1: the
+     * {@link #absorb(double, double, double, double, double, double, UniformRandomProvider, double[])}
+     * of layouts with perfect absorbers only (which never reflect).
      */
     int absorb(double x0, double y0, double z0, double x1, double y1, double z1, UniformRandomProvider rng) {
+        return absorb(x0, y0, z0, x1, y1, z1, rng, null);
+    }
+
+    /**
+     * The receiver that absorbs a molecule stepping from (x0,y0,z0) to (x1,y1,z1), −1 for none, or
+     * {@link #REFLECTED} when a reactive sphere reflected it; the new end point is then in
+     * {@code out} (x, y, z; the caller's scratch array, needed only with reactive spheres). Draws one
+     * uniform variate from {@code rng} per perfectly absorbing sphere within reach that the end point
+     * is outside of, and one per reactive sphere the end point is inside of.
+     */
+    int absorb(double x0, double y0, double z0, double x1, double y1, double z1, UniformRandomProvider rng,
+            double[] out) {
         int from;
         int to;
         int[] list;
@@ -211,8 +268,27 @@ final class Absorbers {
             if (e2 >= sp[o + 5]) {
                 continue;
             }
+            double p = adsorb[i];
             if (e2 <= sp[o + 4]) {
-                return receiverIndex[i];
+                if (p >= 1 || rng.nextDouble() < p) {
+                    return receiverIndex[i];
+                }
+                // reflect radially in the surface: ρ → 2r − ρ (the centre itself goes out along x)
+                double rho = Math.sqrt(e2);
+                if (rho > 0) {
+                    double scale = (2 * sp[o + 3] - rho) / rho;
+                    out[0] = scx + dx * scale;
+                    out[1] = scy + dy * scale;
+                    out[2] = scz + dz * scale;
+                } else {
+                    out[0] = scx + 2 * sp[o + 3];
+                    out[1] = scy;
+                    out[2] = scz;
+                }
+                return REFLECTED;
+            }
+            if (p < 1) {
+                continue; // reactive: end points only (class comment)
             }
             double r = sp[o + 3];
             double d2 = Math.sqrt(e2) - r;

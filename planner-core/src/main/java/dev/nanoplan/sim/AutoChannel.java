@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.function.BooleanSupplier;
+import java.util.function.DoubleConsumer;
 
 /**
  * The {@code auto} channel of a layout, the default of every shell: closed forms where they hold,
@@ -59,7 +60,16 @@ public final class AutoChannel {
      * @param cutoffMolecules the analytic channel's spatial cutoff (the plan's)
      */
     public static Decision decide(Scenario scenario, double cutoffMolecules) {
-        ChannelMatrix analytic = AnalyticChannel.build(scenario, cutoffMolecules);
+        return decide(scenario, cutoffMolecules, f -> { });
+    }
+
+    /**
+     * As {@link #decide(Scenario, double)}, reporting the analytic channel's fraction of receivers done
+     * to {@code progress} ({@link AnalyticChannel#build(Scenario, double, DoubleConsumer)}; a callback that
+     * throws stops the work, as the planner's progress does).
+     */
+    public static Decision decide(Scenario scenario, double cutoffMolecules, DoubleConsumer progress) {
+        ChannelMatrix analytic = AnalyticChannel.build(scenario, cutoffMolecules, progress);
         ChannelApplicability tests = ChannelApplicability.of(scenario);
         Map<String, Species> species = scenario.speciesByName();
         Map<String, String> why = new LinkedHashMap<>();
@@ -150,7 +160,16 @@ public final class AutoChannel {
      */
     public static Result obtain(Scenario scenario, double cutoffMolecules, SimulationSettings settings,
             ChannelCache cache, Runner runner, BooleanSupplier cancelled, SimulatedChannels.MissListener onMiss) {
-        Decision decision = decide(scenario, cutoffMolecules);
+        return obtain(scenario, cutoffMolecules, settings, cache, runner, cancelled, onMiss, f -> { });
+    }
+
+    /**
+     * As above, with the analytic step's progress ({@link #decide(Scenario, double, DoubleConsumer)}).
+     */
+    public static Result obtain(Scenario scenario, double cutoffMolecules, SimulationSettings settings,
+            ChannelCache cache, Runner runner, BooleanSupplier cancelled, SimulatedChannels.MissListener onMiss,
+            DoubleConsumer analyticProgress) {
+        Decision decision = decide(scenario, cutoffMolecules, analyticProgress);
         if (decision.analyticOnly()) {
             return new Result(decision.analytic(), decision, null);
         }

@@ -10,6 +10,7 @@ import dev.nanoplan.io.AtomicFiles;
 import dev.nanoplan.scenario.Flow;
 import dev.nanoplan.scenario.Medium;
 import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.ReceiverModel;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.Species;
 import java.io.ByteArrayOutputStream;
@@ -36,7 +37,10 @@ import java.util.Set;
  * <p>Key: SHA-256 (FIPS 180-4) of the scenario's <em>physical</em> content — volume, medium
  * temperature, viscosity and flow, every species' diffusion coefficient and half-life (in list
  * order), symbol time and ISI memory, every node's role, position, radius and sensed/emitted
- * species (in node order, species by their index in the species list) — plus the format version
+ * species (in node order, species by their index in the species list) and, for a node whose
+ * receiver model is not the default absorbing one, the model and its parameter (binding rate or
+ * sampling offset; absorbing nodes add nothing, so the keys of all-absorbing layouts are those of
+ * before receiver models existed) — plus the format version
  * {@value #FORMAT}, M, the seed and the Δt actually used (bit patterns of the doubles). Left out
  * on purpose, because the simulated single-release taps do not depend on them: names and ids,
  * molecules per symbol, the background rate, levels, prior, count model, demands and targets. A
@@ -165,6 +169,7 @@ public final class ChannelCache {
                 out.writeDouble(n.radiusUm());
                 out.writeInt(speciesNames.indexOf(n.species()));
                 out.writeInt(speciesNames.indexOf(n.emitsSpecies()));
+                writeReceiver(out, n.receiver());
             }
             out.writeLong(moleculesPerEmitter);
             out.writeLong(seed);
@@ -206,6 +211,19 @@ public final class ChannelCache {
             }
         }
         return out.size() == i ? null : out;
+    }
+
+    /** A non-absorbing receiver model and its parameter; nothing for the default absorbing one. */
+    private static void writeReceiver(DataOutputStream out, ReceiverModel rm) throws IOException {
+        if (rm.isAbsorbing()) {
+            return;
+        }
+        out.writeUTF("receiver:" + rm.kind().id());
+        Double parameter = rm.kind() == ReceiverModel.Kind.REACTIVE ? rm.bindingRateUmPerS() : rm.samplingOffsetS();
+        out.writeBoolean(parameter != null);
+        if (parameter != null) {
+            out.writeDouble(parameter);
+        }
     }
 
     private static void writeVolume(DataOutputStream out, Volume v) throws IOException {

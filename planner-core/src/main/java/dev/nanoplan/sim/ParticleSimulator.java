@@ -18,10 +18,14 @@ import org.apache.commons.rng.simple.RandomSource;
  *       drift vΔt (none, uniform, or Poiseuille in a cylinder) — {@link Motion};</li>
  *   <li>walls reflect: box planes exactly, the cylinder's curved wall by radial mirroring
  *       (O(Δt) curvature error, see {@link Motion}); an open volume has no walls;</li>
- *   <li>receivers and relays are perfectly absorbing spheres for their species and transparent
- *       to others; a molecule is counted once, at the first receiver it reaches, then removed;
- *       crossings within a step count with the Brownian-bridge probability
- *       ({@link Absorbers});</li>
+ *   <li>receivers and relays sense their species and are transparent to others, by their
+ *       scenario receiver model: an absorbing sphere counts a molecule once, at the first receiver
+ *       it reaches, then removes it, crossings within a step counting with the Brownian-bridge
+ *       probability; a reactive (Collins–Kimball) sphere adsorbs a molecule whose step ends inside
+ *       it with probability κ√(πΔt/D) and reflects it otherwise (R. Erban and S. J. Chapman, Phys.
+ *       Biol. 4, 2007; {@link Absorbers}); a passive observer counts the molecules inside it at its
+ *       sampling instant of each slot, k·T + offset, and removes nothing ({@link Observers}; the
+ *       run then lasts until the last sampling instant);</li>
  *   <li>emitter bodies are transparent: a transmitter is a point source and its body neither
  *       absorbs nor reflects; a relay's own releases pass through its own body uncounted (it
  *       knows what it sent) but are absorbed by every other receiver of that species;</li>
@@ -111,24 +115,8 @@ public final class ParticleSimulator {
         return blocks.combine(engine.run(blocks, progress::update, cancelled));
     }
 
-    /**
-     * Refuses a layout with a passive or reactive receiver: the simulator models perfect absorbers only.
-     *
-     * @throws IllegalArgumentException one line naming the first such node
-     */
-    public static void requireAbsorbingReceivers(Scenario scenario) {
-        for (Node n : scenario.nodes()) {
-            if (n.role().absorbs() && !n.receiver().isAbsorbing()) {
-                throw new IllegalArgumentException("nodes[" + n.id() + "].receiver: the particle simulator models "
-                        + "absorbing receivers only, got " + n.receiver().kind().id()
-                        + " (use --channel analytic for this layout)");
-            }
-        }
-    }
-
     /** The simulation of {@code scenario} with these settings as work units. */
     public SimulationBlocks blocks(Scenario scenario) {
-        requireAbsorbingReceivers(scenario);
         return new SimulationBlocks(scenario, settings.moleculesPerEmitter(), settings.seed(), timeStepS(scenario),
                 settings.emitterIds());
     }

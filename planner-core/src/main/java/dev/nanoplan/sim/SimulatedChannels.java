@@ -76,7 +76,6 @@ public final class SimulatedChannels {
      */
     public static Obtained obtain(Scenario scenario, SimulationSettings settings, ChannelCache cache,
             boolean ignoreCache, ChannelCache.Simulation simulation, BooleanSupplier cancelled, MissListener onMiss) {
-        ParticleSimulator.requireAbsorbingReceivers(scenario);
         double dt = new ParticleSimulator(settings).timeStepS(scenario);
         String key = null;
         Path file = null;

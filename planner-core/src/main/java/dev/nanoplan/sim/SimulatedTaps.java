@@ -7,34 +7,36 @@ import java.util.Objects;
  * Simulated absorption-time histogram of one emitter → receiver pair.
  *
  * <p>Tap estimate p̂_k = count_k / M, the fraction of the M released molecules absorbed by this
- * receiver in slot k = [kT, (k+1)T); standard error √(p̂_k(1 − p̂_k)/M) (binomial).
+ * receiver in slot k = [kT, (k+1)T) (for a passive observer: inside it at its sampling instant of
+ * slot k); standard error √(p̂_k(1 − p̂_k)/M) (binomial). An absorbing or reactive receiver counts
+ * a molecule at most once, a passive observer once per slot it is inside at the sampling instant,
+ * so only each slot's count is bounded by M.
  *
  * @param emitterId the releasing node
  * @param receiverId the absorbing node
  * @param senses whether the receiver absorbs the emitter's species (false: other species, or a
  *     relay's own releases, which pass through its body; counts are then all zero)
  * @param moleculesSimulated M, molecules released whose trajectories finished, ≥ 0
- * @param absorbedPerSlot molecules absorbed in slot k, k = 0..L (copied)
+ * @param absorbedPerSlot molecules absorbed in slot k (passive: inside at slot k's sampling instant),
+ *     k = 0..L (copied)
  */
 public record SimulatedTaps(String emitterId, String receiverId, boolean senses, long moleculesSimulated,
         long[] absorbedPerSlot) {
 
-    /** @throws IllegalArgumentException if counts are negative or exceed M in total */
+    /** @throws IllegalArgumentException if a count is negative or exceeds M */
     public SimulatedTaps {
         if (moleculesSimulated < 0) {
             throw new IllegalArgumentException("moleculesSimulated: must be >= 0, got " + moleculesSimulated);
         }
         absorbedPerSlot = absorbedPerSlot.clone();
-        long sum = 0;
         for (long c : absorbedPerSlot) {
             if (c < 0) {
                 throw new IllegalArgumentException("absorbedPerSlot: counts must be >= 0, got " + c);
             }
-            sum += c;
-        }
-        if (sum > moleculesSimulated) {
-            throw new IllegalArgumentException("absorbedPerSlot: total " + sum + " exceeds moleculesSimulated "
-                    + moleculesSimulated);
+            if (c > moleculesSimulated) {
+                throw new IllegalArgumentException("absorbedPerSlot: count " + c + " exceeds moleculesSimulated "
+                        + moleculesSimulated);
+            }
         }
     }
 

@@ -4,6 +4,7 @@ import dev.nanoplan.engine.UnitResults;
 import dev.nanoplan.engine.WorkUnits;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.scenario.Node;
+import dev.nanoplan.scenario.ReceiverModel;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioException;
 import dev.nanoplan.scenario.ScenarioReader;
@@ -103,8 +104,8 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
         block.release(ep.origin.x(), ep.origin.y(), ep.origin.z(), molecules, ep.decayRatePerS, l.timeStepS, rng);
         long[] counts = new long[l.receivers.size() * l.slots];
         ZigguratSampler.NormalizedGaussian g = ZigguratSampler.NormalizedGaussian.of(rng);
-        boolean finished = BlockKernel.advance(ep.motion, ep.absorbers, block, 0, l.totalSteps, l.stepsPerSlot,
-                counts, l.slots, rng, g, cancelled);
+        boolean finished = BlockKernel.advance(ep.motion, ep.absorbers, ep.observers, block, 0, l.totalSteps,
+                l.stepsPerSlot, counts, l.slots, rng, g, cancelled);
         return finished ? new BlockCounts(e, molecules, counts, block.moleculeSteps) : null;
     }
 
@@ -133,8 +134,10 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
             for (int r = 0; r < l.receivers.size(); r++) {
                 long[] perSlot = new long[l.slots];
                 System.arraycopy(counts[e], r * l.slots, perSlot, 0, l.slots);
-                for (long v : perSlot) {
-                    absorbed += v;
+                if (l.receivers.get(r).absorbs()) { // a passive observer's samples remove nothing
+                    for (long v : perSlot) {
+                        absorbed += v;
+                    }
                 }
                 taps.add(new SimulatedTaps(ep.node.id(), l.receivers.get(r).id(), ep.senses[r], simulated[e], perSlot));
             }
@@ -212,7 +215,7 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
 
     /** Per-emitter constants. */
     private record EmitterPlan(Node node, Species species, Vec3 origin, double decayRatePerS, Motion motion,
-            Absorbers absorbers, boolean[] senses, int streamIndex) {
+            Absorbers absorbers, Observers observers, boolean[] senses, int streamIndex) {
     }
 
     /** What every block of a run shares: receivers, emitters with their motion and absorbers, steps. */
@@ -241,7 +244,7 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
                 throw new IllegalArgumentException("timeStepS: " + timeStepS + " s needs " + steps
                         + " steps to cover " + slots + " symbol times; use a larger time step or a shorter ISI memory");
             }
-            totalSteps = (int) steps;
+            int lastStep = (int) steps;
             int streamIndex = -1;
             for (Node e : scenario.nodes()) {
                 if (!e.role().emits()) {
@@ -253,26 +256,72 @@ public final class SimulationBlocks implements WorkUnits<BlockCounts> {
                 }
                 Species s = species.get(e.emitsSpecies());
                 Motion motion = new Motion(scenario.volume(), scenario.medium().flow(), s.diffusionUm2PerS(), timeStepS);
-                List<double[]> centres = new ArrayList<>();
-                List<Double> radii = new ArrayList<>();
-                List<Integer> index = new ArrayList<>();
+                Spheres sinks = new Spheres();
+                Spheres watchers = new Spheres();
                 boolean[] senses = new boolean[receivers.size()];
                 for (int r = 0; r < receivers.size(); r++) {
                     Node rn = receivers.get(r);
-                    if (ParticleSimulator.senses(e, rn)) {
-                        senses[r] = true;
-                        centres.add(rn.positionUm().toArray());
-                        radii.add(rn.radiusUm());
-                        index.add(r);
+                    if (!ParticleSimulator.senses(e, rn)) {
+                        continue;
+                    }
+                    senses[r] = true;
+                    ReceiverModel rm = rn.receiver();
+                    switch (rm.kind()) {
+                        case ABSORBING -> sinks.add(rn, r, 1);
+                        case REACTIVE -> sinks.add(rn, r, Absorbers.adsorptionProbability(rm.bindingRateUmPerS(),
+                                timeStepS, s.diffusionUm2PerS()));
+                        case PASSIVE -> watchers.add(rn, r,
+                                Observers.offsetSteps(rm.samplingOffsetS(), timeStepS, stepsPerSlot));
                     }
                 }
-                Absorbers absorbers = new Absorbers(centres.toArray(new double[0][]),
-                        radii.stream().mapToDouble(Double::doubleValue).toArray(),
-                        index.stream().mapToInt(Integer::intValue).toArray(),
-                        motion.sigmaUm, motion.diffusionTimesStepUm2);
-                emitters.add(new EmitterPlan(e, s, e.positionUm(), s.decayRatePerS(), motion, absorbers, senses,
-                        streamIndex));
+                Absorbers absorbers = new Absorbers(sinks.centres(), sinks.radii(), sinks.indices(),
+                        sinks.allOnes() ? null : sinks.values(), motion.sigmaUm, motion.diffusionTimesStepUm2);
+                Observers observers = new Observers(watchers.centres(), watchers.radii(), watchers.indices(),
+                        watchers.wholeValues(), stepsPerSlot, slots);
+                lastStep = Math.max(lastStep, observers.lastStep);
+                emitters.add(new EmitterPlan(e, s, e.positionUm(), s.decayRatePerS(), motion, absorbers, observers,
+                        senses, streamIndex));
             }
+            totalSteps = lastStep;
+        }
+    }
+
+    /** Receiver spheres of one kind for one emitter, with one number each (adsorption probability or offset). */
+    private static final class Spheres {
+        private final List<double[]> centres = new ArrayList<>();
+        private final List<Double> radii = new ArrayList<>();
+        private final List<Integer> indices = new ArrayList<>();
+        private final List<Double> values = new ArrayList<>();
+
+        void add(Node n, int receiverIndex, double value) {
+            centres.add(n.positionUm().toArray());
+            radii.add(n.radiusUm());
+            indices.add(receiverIndex);
+            values.add(value);
+        }
+
+        double[][] centres() {
+            return centres.toArray(new double[0][]);
+        }
+
+        double[] radii() {
+            return radii.stream().mapToDouble(Double::doubleValue).toArray();
+        }
+
+        int[] indices() {
+            return indices.stream().mapToInt(Integer::intValue).toArray();
+        }
+
+        double[] values() {
+            return values.stream().mapToDouble(Double::doubleValue).toArray();
+        }
+
+        int[] wholeValues() {
+            return values.stream().mapToInt(Double::intValue).toArray();
+        }
+
+        boolean allOnes() {
+            return values.stream().allMatch(v -> v >= 1);
         }
     }
 }

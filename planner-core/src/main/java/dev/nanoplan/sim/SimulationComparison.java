@@ -1,7 +1,9 @@
 package dev.nanoplan.sim;
 
 import dev.nanoplan.geometry.Volume;
+import dev.nanoplan.network.AnalyticChannel;
 import dev.nanoplan.physics.DecayingSphereHitting;
+import dev.nanoplan.physics.TapModel;
 import dev.nanoplan.scenario.Flow;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
@@ -14,7 +16,9 @@ import java.util.Map;
 /**
  * Compares each simulated link with the closed form for an absorbing sphere in an open medium
  * (S. Redner, <i>A Guide to First-Passage Processes</i>, 2001, ch. 6; with first-order decay as in
- * {@link DecayingSphereHitting}), at the first symbol time T.
+ * {@link DecayingSphereHitting}), at the first symbol time T; a reactive or passive receiver with its
+ * own closed form ({@link AnalyticChannel#tapModel}: the Collins–Kimball sphere, or the passive
+ * observer's tap 0, the fraction inside at the first sampling instant).
  *
  * <p>A link is flagged when the difference is both statistically clear (|z| &gt;
  * {@value #Z_LIMIT}) and practically relevant (|relative difference| &gt; {@value #RELATIVE_LIMIT}).
@@ -61,8 +65,9 @@ public final class SimulationComparison {
                     throw new IllegalArgumentException("channel: receiver " + t.receiverId() + " is not in the scenario");
                 }
                 double d = e.positionUm().distance(r.positionUm());
-                DecayingSphereHitting model = DecayingSphereHitting.of(d, r.radiusUm(), s.diffusionUm2PerS(),
-                        s.halfLifeS());
+                TapModel model = r.receiver().isAbsorbing()
+                        ? DecayingSphereHitting.of(d, r.radiusUm(), s.diffusionUm2PerS(), s.halfLifeS())
+                        : AnalyticChannel.tapModel(d, r, s);
                 double[] analyticTaps = model.taps(symbolTimeS, channel.isiMemorySymbols());
                 double pa = analyticTaps[0];
                 long m = t.moleculesSimulated();

@@ -2,7 +2,6 @@ package dev.nanoplan.network;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
-import static org.junit.jupiter.api.Assertions.assertThrows;
 
 import dev.nanoplan.physics.PassiveSphereObservation;
 import dev.nanoplan.plan.LinkReport;
@@ -14,8 +13,6 @@ import dev.nanoplan.scenario.ReceiverModel;
 import dev.nanoplan.scenario.Scenario;
 import dev.nanoplan.scenario.ScenarioException;
 import dev.nanoplan.scenario.ScenarioReader;
-import dev.nanoplan.sim.ParticleSimulator;
-import dev.nanoplan.sim.SimulationSettings;
 import java.io.ByteArrayInputStream;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
@@ -114,15 +111,5 @@ class ReceiverModelChannelTest {
         // and finite memory the ratio of the catches stays below it
         double ratio = r.entry("s1", "gw").tapSum() / a.entry("s1", "gw").tapSum();
         assertThat(ratio).isLessThan(5.0 / 85).isGreaterThan(0);
-    }
-
-    @Test
-    void simulatorRefusesNonAbsorbingReceivers() throws Exception {
-        Scenario s = read(", \"receiver\": \"passive\"", "");
-        assertThat(s.nodesById().get("gw").receiver().kind()).isEqualTo(ReceiverModel.Kind.PASSIVE);
-        // source: the simulator models perfect absorbers only; it must say so instead of simulating the wrong receiver
-        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
-                () -> new ParticleSimulator(SimulationSettings.of(100, 1)).blocks(s));
-        assertThat(e.getMessage()).contains("nodes[gw].receiver").doesNotContain("\n");
     }
 }

@@ -1,5 +1,7 @@
 package dev.nanoplan.sim;
 
+import static org.assertj.core.api.Assertions.assertThat;
+
 import dev.nanoplan.count.CountModelKind;
 import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.geometry.Volume;
@@ -49,5 +51,15 @@ final class Layouts {
             c[k] = s;
         }
         return c;
+    }
+
+    /**
+     * Asserts that a simulated fraction of m molecules is within {@code zLimit} binomial standard errors,
+     * √(p(1 − p)/m), of the exact probability p.
+     */
+    static void assertWithinStandardErrors(String what, double simulated, double exact, long m, double zLimit) {
+        double se = Math.sqrt(exact * (1 - exact) / m);
+        assertThat(Math.abs(simulated - exact)).as("%s: simulated %s vs %s", what, simulated, exact)
+                .isLessThan(zLimit * se);
     }
 }

@@ -34,6 +34,10 @@ public final class PlanScheduler {
 
         /** The exact planner failed on the latest request. */
         void failed(Throwable error);
+
+        /** What the exact planner of the latest request is doing (e.g. simulating, 40 %). */
+        default void progress(String text) {
+        }
     }
 
     private final PlanService service;
@@ -162,7 +166,13 @@ public final class PlanScheduler {
         }
         try {
             long t0 = System.nanoTime();
-            Plan p = service.plan(s);
+            Plan p = service.plan(s, text -> uiThread.execute(() -> {
+                synchronized (lock) {
+                    if (gen == generation.get()) {
+                        sink.progress(text);
+                    }
+                }
+            }));
             long dt = System.nanoTime() - t0;
             uiThread.execute(() -> {
                 synchronized (lock) {

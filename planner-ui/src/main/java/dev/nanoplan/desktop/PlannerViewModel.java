@@ -87,6 +87,11 @@ public final class PlannerViewModel {
                     public void failed(Throwable error) {
                         document.say("planning failed: " + error.getMessage());
                     }
+
+                    @Override
+                    public void progress(String text) {
+                        document.say(text);
+                    }
                 });
         document = new ScenarioDocument(recent, this::beforeShown);
         document.onShown(this::afterShown);
