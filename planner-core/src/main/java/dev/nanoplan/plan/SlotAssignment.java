@@ -33,7 +33,7 @@ import org.jgrapht.graph.DefaultEdge;
  *       taken until none improves or {@code maxEvaluations} plans were evaluated.</li>
  * </ol>
  *
- * <p>Cost: two full plans without budgets plus at most {@code maxEvaluations} incremental what-if plans.
+ * <p>Cost: two full plans without budgets or advice plus at most {@code maxEvaluations} incremental what-if plans.
  */
 public final class SlotAssignment {
 
@@ -80,9 +80,11 @@ public final class SlotAssignment {
 
     /** Finds the slot plan of {@code scenario} (see the class comment). */
     public Result assign(Scenario scenario) {
-        Plan before = NetworkPlanner.plan(scenario, options);
+        PlanOptions quiet = options.withProgress(f -> { });
+        // the routes and shared rates are those of the full plan; budgets and advice are not needed here
+        Plan before = IncrementalPlanner.exactWithoutBudgets(scenario, quiet).plan();
         Scenario rr = withSlots(scenario, SlotPlan.fileOrder(scenario.nodes()));
-        IncrementalPlanner planner = IncrementalPlanner.exact(rr, options.withProgress(f -> { }));
+        IncrementalPlanner planner = IncrementalPlanner.exactWithoutBudgets(rr, quiet);
         List<LinkKey> hops = new ArrayList<>();
         for (RouteReport r : planner.plan().routes()) {
             for (int h = 0; h + 1 < r.hops().size(); h++) {
