@@ -9,8 +9,8 @@ import dev.nanoplan.network.Crosstalk;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkEvaluator;
 import dev.nanoplan.network.LinkSpec;
+import dev.nanoplan.plan.IncrementalPlanner;
 import dev.nanoplan.plan.LinkReport;
-import dev.nanoplan.plan.NetworkPlanner;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.PlanOptions;
 import dev.nanoplan.plan.RouteReport;
@@ -62,8 +62,16 @@ public final class ToleranceStudy {
     private final List<LinkReport> links;
     private final List<RouteReport> routes;
     private final int[][] routeLinks;
+    private final ChannelMatrix nominalChannel;
     private final LinkInputs[] nominalInputs;
     private final LinkEvaluation[] nominalEvaluations;
+
+    /**
+     * Perturbed layout {@code index} with its analytic channel: what every guard-band step of every weak
+     * link reads, built once ({@link #layout(int)}).
+     */
+    public record SampleLayout(int index, Scenario scenario, ChannelMatrix channel) {
+    }
 
     /**
      * Plans the nominal layout once.
@@ -81,7 +89,8 @@ public final class ToleranceStudy {
         this.thresholds = thresholds;
         this.options = PlanOptions.DEFAULT;
         this.perturbation = new Perturbation(nominal, sampler, seed);
-        this.nominalPlan = NetworkPlanner.plan(nominal, options);
+        // links and routes as the full plan gives them; its budgets and advice are not read here
+        this.nominalPlan = IncrementalPlanner.exactWithoutBudgets(nominal, options).plan();
         this.links = nominalPlan.links();
         this.routes = nominalPlan.routes();
         this.routeLinks = new int[routes.size()][];
@@ -94,6 +103,7 @@ public final class ToleranceStudy {
             routeLinks[d] = idx;
         }
         ChannelMatrix channel = AnalyticChannel.build(nominal, options.cutoffMolecules());
+        this.nominalChannel = channel;
         this.nominalInputs = new LinkInputs[links.size()];
         this.nominalEvaluations = new LinkEvaluation[links.size()];
         for (int l = 0; l < links.size(); l++) {
@@ -122,7 +132,7 @@ public final class ToleranceStudy {
         return thresholds;
     }
 
-    /** The nominal plan. */
+    /** The nominal plan (links and routes; without budgets or advice). */
     public Plan nominalPlan() {
         return nominalPlan;
     }
@@ -192,19 +202,25 @@ public final class ToleranceStudy {
         if (thresholds == Thresholds.RECALIBRATED) {
             return null;
         }
-        LinkInputs nom = inputs(nominal, AnalyticChannel.build(nominal, options.cutoffMolecules()), l, molecules);
+        LinkInputs nom = inputs(nominal, nominalChannel, l, molecules);
         return designThresholds(nom.evaluate());
     }
 
-    /**
-     * The error probability of link {@code l} in perturbed layout {@code index} when its emitter's nominal
-     * release is {@code molecules} per symbol (the sample's relative spread of the release kept), at the
-     * thresholds {@code design} of {@link #designThresholdsWithMolecules} (recalibrated: null).
-     */
-    public double errorWithMolecules(int l, int index, long molecules, long[] design) {
+    /** Perturbed layout {@code index} (≥ 0) and its analytic channel. */
+    public SampleLayout layout(int index) {
         Scenario s = perturbation.draw(index).scenario();
-        ChannelMatrix channel = AnalyticChannel.build(s, options.cutoffMolecules());
-        LinkInputs in = inputs(s, channel, l, molecules);
+        return new SampleLayout(index, s, AnalyticChannel.build(s, options.cutoffMolecules()));
+    }
+
+    /**
+     * The error probability of link {@code l} in perturbed layout {@code layout} when its emitter's nominal
+     * release is {@code molecules} per symbol (the sample's relative spread of the release kept), at the
+     * thresholds {@code design} of {@link #designThresholdsWithMolecules} (recalibrated: null). The
+     * layout's channel does not depend on {@code molecules} (taps are per molecule; the release enters
+     * only the link's levels), so one layout serves every step of a guard-band search.
+     */
+    public double errorWithMolecules(int l, SampleLayout layout, long molecules, long[] design) {
+        LinkInputs in = inputs(layout.scenario(), layout.channel(), l, molecules);
         if (in == null) {
             return 1;
         }
