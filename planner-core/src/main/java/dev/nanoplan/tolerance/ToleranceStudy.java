@@ -1,5 +1,6 @@
 package dev.nanoplan.tolerance;
 
+import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.count.CountTerm;
 import dev.nanoplan.info.ChannelCascade;
 import dev.nanoplan.network.AnalyticChannel;
@@ -182,13 +183,19 @@ public final class ToleranceStudy {
                 error[l] = 1;
                 continue;
             }
-            LinkEvaluation ev = in.equals(nominalInputs[l]) ? nominalEvaluations[l] : in.evaluate();
-            error[l] = error(l, ev);
-            long[] t = thresholds == Thresholds.DESIGN ? nominalEvaluations[l].operatingThresholds()
-                    : ev.operatingThresholds();
-            matrix[l] = LinkEvaluation.channelAt(ev.givenLevel(), t);
-            bits[l] = thresholds == Thresholds.DESIGN
-                    ? ChannelCascade.mutualInformationBits(weights(), matrix[l]) : ev.mutualInformationBits();
+            boolean nominalInputsKept = in.equals(nominalInputs[l]);
+            if (thresholds == Thresholds.DESIGN) {
+                // at the nominal thresholds only the pmfs count: no threshold search or log-space refinement
+                List<CountPmf> pmfs = nominalInputsKept ? nominalEvaluations[l].givenLevel() : in.pmfs();
+                error[l] = errorAt(pmfs, designThresholds(nominalEvaluations[l]));
+                matrix[l] = LinkEvaluation.channelAt(pmfs, nominalEvaluations[l].operatingThresholds());
+                bits[l] = ChannelCascade.mutualInformationBits(weights(), matrix[l]);
+                continue;
+            }
+            LinkEvaluation ev = nominalInputsKept ? nominalEvaluations[l] : in.evaluate();
+            error[l] = ev.minErrorProbability();
+            matrix[l] = LinkEvaluation.channelAt(ev.givenLevel(), ev.operatingThresholds());
+            bits[l] = ev.mutualInformationBits();
         }
         return new ToleranceSample(index, draw.redraws(), draw.z(), error, bits, demandsMeet(s, error, matrix));
     }
@@ -224,16 +231,11 @@ public final class ToleranceStudy {
         if (in == null) {
             return 1;
         }
-        LinkEvaluation ev = in.evaluate();
-        return design == null ? ev.minErrorProbability() : errorAt(ev, design);
-    }
-
-    /** The error of link l at the study's thresholds. */
-    private double error(int l, LinkEvaluation ev) {
-        if (thresholds == Thresholds.RECALIBRATED) {
-            return ev.minErrorProbability();
+        if (design == null) {
+            return in.evaluate().minErrorProbability();
         }
-        return errorAt(ev, designThresholds(nominalEvaluations[l]));
+        // at fixed thresholds only the pmfs count: no threshold search or log-space refinement
+        return errorAt(in.pmfs(), design);
     }
 
     private static long[] designThresholds(LinkEvaluation design) {
@@ -241,8 +243,8 @@ public final class ToleranceStudy {
     }
 
     /** Σ_i w_i·P(decide ≠ i | i) at thresholds t (binary: (1 − q)ε₀ + qε₁). */
-    private double errorAt(LinkEvaluation ev, long[] t) {
-        double[][] w = LinkEvaluation.channelAt(ev.givenLevel(), t);
+    private double errorAt(List<CountPmf> givenLevel, long[] t) {
+        double[][] w = LinkEvaluation.channelAt(givenLevel, t);
         double[] weights = weights();
         double e = 0;
         for (int i = 0; i < w.length; i++) {
@@ -326,6 +328,11 @@ public final class ToleranceStudy {
         LinkEvaluation evaluate() {
             List<CountTerm> terms = Crosstalk.terms(others, exactCount);
             return LinkEvaluator.evaluateBest(spec, terms, null, terms.size());
+        }
+
+        /** The pmfs of {@link #evaluate()} alone ({@link LinkEvaluator#countPmfs}). */
+        List<CountPmf> pmfs() {
+            return LinkEvaluator.countPmfs(spec, Crosstalk.terms(others, exactCount));
         }
     }
 }
