@@ -48,7 +48,9 @@ import java.util.Map;
  *
  * <p><b>Shared work</b>: a link whose inputs (its own taps and molecules, every interferer's taps and
  * molecules, the species and medium) a sample leaves at their nominal values is not re-evaluated; the
- * nominal evaluation is reused. Covers the all-active schedule only (under other schedules a link hears
+ * nominal evaluation is reused. Under {@code design} thresholds a link is judged at thresholds fixed by
+ * the nominal plan, so only its count pmfs are computed ({@link LinkEvaluator#countPmfs}), not the
+ * threshold search and log-space refinement of a full evaluation. Covers the all-active schedule only (under other schedules a link hears
  * decimated taps, which the plan's package keeps to itself). Thread-safe.
  */
 public final class ToleranceStudy {
