@@ -123,10 +123,7 @@ public final class LinkEvaluator {
         for (int i = 0; i < m; i++) {
             laws.add(lawGivenLevel(spec, i, interference));
         }
-        List<CountLaw> own = new ArrayList<>(m);
-        for (int i = 0; i < m; i++) {
-            own.add(CountLaw.of(new BinomialTerm(spec.molecules(i), spec.tap(0))));
-        }
+        List<CountLaw> own = ownLaws(spec);
         // the count pmfs with the own leftovers at the given level weights (other emitters fixed)
         Function<double[], List<CountPmf>> pmfsAt = weights -> {
             if (interferencePmf != null && model instanceof ExactCountModel exact) {
@@ -192,6 +189,26 @@ public final class LinkEvaluator {
         return new LinkEvaluation(spec, List.copyOf(pmfs), null, r, -1, symbolError, Math.log10(symbolError),
                 signalMean, isiMean, interferenceMean, spec.backgroundMoleculesPerSlot(), truncated,
                 opThresholds, opErr, Math.log10(opErr), cap);
+    }
+
+    /**
+     * The count pmfs given each level, exactly those of {@link #evaluate(LinkSpec, List)}'s
+     * {@link LinkEvaluation#givenLevel()}, without the threshold search, the log-space refinement or the
+     * capacity: what a caller that judges the link at thresholds fixed elsewhere needs (tolerance guard
+     * bands). Cost: one count-model window per level.
+     */
+    public static List<CountPmf> countPmfs(LinkSpec spec, List<CountTerm> interference) {
+        return List.copyOf(CountModels.of(spec.countModel()).pmfs(sharedLaw(spec, isiWeights(spec), interference),
+                ownLaws(spec)));
+    }
+
+    /** The own current-slot count given each level: Bin(N_i, p_0). */
+    private static List<CountLaw> ownLaws(LinkSpec spec) {
+        List<CountLaw> own = new ArrayList<>(spec.levels());
+        for (int i = 0; i < spec.levels(); i++) {
+            own.add(CountLaw.of(new BinomialTerm(spec.molecules(i), spec.tap(0))));
+        }
+        return own;
     }
 
     /** Whether the emitter's own earlier symbols leave anything in the current slot (some p_k > 0, k ≥ 1). */

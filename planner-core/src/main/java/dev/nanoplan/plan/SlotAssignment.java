@@ -3,6 +3,7 @@ package dev.nanoplan.plan;
 import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
+import dev.nanoplan.scenario.Schedule;
 import dev.nanoplan.scenario.Signalling;
 import dev.nanoplan.scenario.SlotPlan;
 import java.util.ArrayList;
@@ -34,7 +35,7 @@ import org.jgrapht.graph.DefaultEdge;
  *       taken until none improves or {@code maxEvaluations} plans were evaluated.</li>
  * </ol>
  *
- * <p>Cost: two full plans without budgets plus at most {@code maxEvaluations} incremental what-if plans.
+ * <p>Cost: two full plans without budgets or advice plus at most {@code maxEvaluations} incremental what-if plans.
  */
 public final class SlotAssignment {
 
@@ -90,9 +91,11 @@ public final class SlotAssignment {
      * throwing from {@code progress} (the exception propagates; nothing is kept).
      */
     public Result assign(Scenario scenario, DoubleConsumer progress) {
-        Plan before = NetworkPlanner.plan(scenario, options.withProgress(f -> progress.accept(0.2 * f)));
+        PlanOptions quiet = options.withProgress(f -> { });
+        // the routes and shared rates are those of the full plan; budgets and advice are not needed here
+        Plan before = IncrementalPlanner.exactWithoutBudgets(scenario, options.withProgress(f -> progress.accept(0.2 * f))).plan();
         Scenario rr = withSlots(scenario, SlotPlan.fileOrder(scenario.nodes()));
-        IncrementalPlanner planner = IncrementalPlanner.exact(rr, options.withProgress(f -> { }));
+        IncrementalPlanner planner = IncrementalPlanner.exactWithoutBudgets(rr, quiet);
         List<LinkKey> hops = new ArrayList<>();
         for (RouteReport r : planner.plan().routes()) {
             for (int h = 0; h + 1 < r.hops().size(); h++) {
@@ -120,7 +123,9 @@ public final class SlotAssignment {
             if (maxFrame > 0 && SlotSchedule.of(candidate).longestFrame() > maxFrame) {
                 continue;
             }
-            Score sc = Score.of(planner.whatIf(candidate));
+            // all slots 0 is the all-active plan (SlotsPlannerTest): an all-active input's plan is already at hand
+            boolean asBefore = seed == zero && scenario.signalling().schedule() == Schedule.ALL_ACTIVE;
+            Score sc = Score.of(asBefore ? before : planner.whatIf(candidate));
             evaluations++;
             if (sc.compareTo(best) > 0) {
                 current = candidate;
@@ -173,7 +178,7 @@ public final class SlotAssignment {
 
     private static Scenario withSlots(Scenario s, Map<String, Integer> slots) {
         return new Scenario(s.name(), s.volume(), s.medium(), s.species(), s.signalling().withSlots(0, slots),
-                s.nodes(), s.demands(), s.targets());
+                s.nodes(), s.demands(), s.targets(), s.candidateSpecies(), s.tolerances());
     }
 
     /** The slot below the cap in which {@code id} has the fewest conflicting neighbours already placed. */

@@ -1,14 +1,19 @@
 package dev.nanoplan.tolerance;
 
+import dev.nanoplan.tolerance.ToleranceStudy.SampleLayout;
+import java.util.List;
+import java.util.function.BooleanSupplier;
+
 /**
  * The guard band of a weak link: the smallest release per symbol of its emitter (nominal, the samples'
  * relative spread of it kept) at which the link meets its error target in at least
- * {@link ToleranceSummary#WEAK_YIELD} of the first {@code samples} perturbed layouts. Under design
+ * {@link ToleranceSummary#WEAK_YIELD} of the given perturbed layouts (the first {@code --guard-samples}). Under design
  * thresholds the nominal layout at that release sets the thresholds. Found by bisection on log2 of the
  * release between the nominal value and {@value #MAX_FACTOR}× it, to within {@value #RESOLUTION}
  * relative (then rounded up to a whole molecule); null when even {@value #MAX_FACTOR}× does not reach
- * the yield (the link is not limited by its own release). Cost: at most 8 × {@code samples} link
- * evaluations per link.
+ * the yield (the link is not limited by its own release). Cost: at most 9 × {@code layouts.size()} link
+ * evaluations per link (a step stops at the first failure that rules out the yield); the layouts and
+ * their channels are built once by the caller and shared by all steps and links ({@link GuardBands}).
  */
 public final class GuardBand {
 
@@ -20,20 +25,31 @@ public final class GuardBand {
     private GuardBand() {
     }
 
-    /** The guard band of link {@code l} of {@code study} over samples 0..samples−1, or null. */
-    public static Long of(ToleranceStudy study, int l, int samples) {
+    /** The guard band of link {@code l} of {@code study} over {@code layouts}, or null. */
+    public static Long of(ToleranceStudy study, int l, List<SampleLayout> layouts) {
+        return of(study, l, layouts, () -> false);
+    }
+
+    /**
+     * As {@link #of(ToleranceStudy, int, List)}; once {@code cancelled} is true the search stops between
+     * steps and the answer is null.
+     */
+    static Long of(ToleranceStudy study, int l, List<SampleLayout> layouts, BooleanSupplier cancelled) {
         long nominal = study.nominal().nodesById().get(study.links().get(l).from()).moleculesPerSymbol();
-        if (!reaches(study, l, samples, Math.round(nominal * MAX_FACTOR))) {
+        if (!reaches(study, l, layouts, Math.round(nominal * MAX_FACTOR))) {
             return null;
         }
         double lo = 0;
         double hi = Math.log(MAX_FACTOR) / Math.log(2);
-        if (reaches(study, l, samples, nominal)) {
+        if (reaches(study, l, layouts, nominal)) {
             return nominal;
         }
         while (Math.pow(2, hi - lo) > 1 + RESOLUTION) {
+            if (cancelled.getAsBoolean()) {
+                return null;
+            }
             double mid = (lo + hi) / 2;
-            if (reaches(study, l, samples, Math.round(nominal * Math.pow(2, mid)))) {
+            if (reaches(study, l, layouts, Math.round(nominal * Math.pow(2, mid)))) {
                 hi = mid;
             } else {
                 lo = mid;
@@ -42,12 +58,13 @@ public final class GuardBand {
         return (long) Math.ceil(nominal * Math.pow(2, hi));
     }
 
-    private static boolean reaches(ToleranceStudy study, int l, int samples, long molecules) {
+    private static boolean reaches(ToleranceStudy study, int l, List<SampleLayout> layouts, long molecules) {
         double target = study.nominal().targets().maxErrorProbability();
         long[] design = study.designThresholdsWithMolecules(l, molecules);
+        int samples = layouts.size();
         int ok = 0;
         for (int i = 0; i < samples; i++) {
-            ok += study.errorWithMolecules(l, i, molecules, design) <= target ? 1 : 0;
+            ok += study.errorWithMolecules(l, layouts.get(i), molecules, design) <= target ? 1 : 0;
             if (samples - (i + 1 - ok) < ToleranceSummary.WEAK_YIELD * samples) {
                 return false; // too many failures already
             }

@@ -1,6 +1,7 @@
 package dev.nanoplan.tolerance;
 
 import dev.nanoplan.engine.Engine;
+import dev.nanoplan.engine.EngineProgress;
 import dev.nanoplan.engine.LocalEngine;
 import dev.nanoplan.engine.UnitResults;
 import java.util.ArrayList;
@@ -13,8 +14,9 @@ import java.util.function.IntConsumer;
  * default the local thread pool, {@link LocalEngine}), combined in index order, so the result does not
  * depend on the engine or the thread count.
  * {@link #cancel()} (e.g. from Ctrl-C) stops handing out indices; the result then covers the samples
- * 0..m−1 that all finished and is marked partial. Guard bands of the weak links follow, over the first
- * {@code min(m, guardSamples)} samples (skipped after a cancel).
+ * 0..m−1 that all finished and is marked partial. Guard bands of the weak links follow, one work unit per
+ * weak link ({@link GuardBands}) on the same engine, over the first {@code min(m, guardSamples)} samples
+ * (skipped after a cancel; a cancel during them leaves the unfinished ones null).
  */
 public final class ToleranceRunner {
 
@@ -69,6 +71,14 @@ public final class ToleranceRunner {
      * @throws IllegalArgumentException as {@link ToleranceStudy#sample}
      */
     public ToleranceResult run(Engine engine, int n, IntConsumer progress) {
+        return run(engine, n, progress, EngineProgress.NONE);
+    }
+
+    /**
+     * As {@link #run(Engine, int, IntConsumer)}, with the guard bands' progress (weak links done of all)
+     * told to {@code guardProgress}.
+     */
+    public ToleranceResult run(Engine engine, int n, IntConsumer progress, EngineProgress guardProgress) {
         ToleranceSamples units = new ToleranceSamples(study, n);
         UnitResults<ToleranceSample> results = engine.run(units, (done, total) -> progress.accept((int) done),
                 cancelled::get);
@@ -77,16 +87,19 @@ public final class ToleranceRunner {
         if (guardSamples == 0 || cancelled.get()) {
             return r;
         }
-        return withGuardBands(r, Math.min(guardSamples, summary.size()));
+        return withGuardBands(engine, units, r, Math.min(guardSamples, summary.size()), guardProgress);
     }
 
-    private ToleranceResult withGuardBands(ToleranceResult r, int samples) {
+    private ToleranceResult withGuardBands(Engine engine, ToleranceSamples samples, ToleranceResult r, int count,
+            EngineProgress progress) {
+        int[] weak = r.weakLinks().stream().mapToInt(Integer::intValue).toArray();
+        UnitResults<GuardBands.Band> bands = engine.run(new GuardBands(samples, weak, count), progress,
+                cancelled::get);
         List<ToleranceResult.LinkYield> links = new ArrayList<>(r.links());
-        for (int l : r.weakLinks()) {
-            if (cancelled.get()) {
-                break;
+        for (int k = 0; k < weak.length; k++) {
+            if (bands.get(k) != null) {
+                links.set(weak[k], links.get(weak[k]).withGuardBand(bands.get(k).moleculesPerSymbol()));
             }
-            links.set(l, links.get(l).withGuardBand(GuardBand.of(study, l, samples)));
         }
         return new ToleranceResult(r.samples(), r.seed(), r.sampler(), r.thresholds(), r.redraws(), r.partial(),
                 r.layoutYield(), r.layoutInterval(), links, r.demands(), r.weakLinks(), r.driversMethod());

@@ -1,5 +1,6 @@
 package dev.nanoplan.tolerance;
 
+import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.count.CountTerm;
 import dev.nanoplan.info.ChannelCascade;
 import dev.nanoplan.network.AnalyticChannel;
@@ -9,8 +10,8 @@ import dev.nanoplan.network.Crosstalk;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkEvaluator;
 import dev.nanoplan.network.LinkSpec;
+import dev.nanoplan.plan.IncrementalPlanner;
 import dev.nanoplan.plan.LinkReport;
-import dev.nanoplan.plan.NetworkPlanner;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.PlanOptions;
 import dev.nanoplan.plan.RouteReport;
@@ -47,7 +48,9 @@ import java.util.Map;
  *
  * <p><b>Shared work</b>: a link whose inputs (its own taps and molecules, every interferer's taps and
  * molecules, the species and medium) a sample leaves at their nominal values is not re-evaluated; the
- * nominal evaluation is reused. Covers the all-active schedule only (under other schedules a link hears
+ * nominal evaluation is reused. Under {@code design} thresholds a link is judged at thresholds fixed by
+ * the nominal plan, so only its count pmfs are computed ({@link LinkEvaluator#countPmfs}), not the
+ * threshold search and log-space refinement of a full evaluation. Covers the all-active schedule only (under other schedules a link hears
  * decimated taps, which the plan's package keeps to itself). Thread-safe.
  */
 public final class ToleranceStudy {
@@ -62,8 +65,16 @@ public final class ToleranceStudy {
     private final List<LinkReport> links;
     private final List<RouteReport> routes;
     private final int[][] routeLinks;
+    private final ChannelMatrix nominalChannel;
     private final LinkInputs[] nominalInputs;
     private final LinkEvaluation[] nominalEvaluations;
+
+    /**
+     * Perturbed layout {@code index} with its analytic channel: what every guard-band step of every weak
+     * link reads, built once ({@link #layout(int)}).
+     */
+    public record SampleLayout(int index, Scenario scenario, ChannelMatrix channel) {
+    }
 
     /**
      * Plans the nominal layout once.
@@ -81,7 +92,8 @@ public final class ToleranceStudy {
         this.thresholds = thresholds;
         this.options = PlanOptions.DEFAULT;
         this.perturbation = new Perturbation(nominal, sampler, seed);
-        this.nominalPlan = NetworkPlanner.plan(nominal, options);
+        // links and routes as the full plan gives them; its budgets and advice are not read here
+        this.nominalPlan = IncrementalPlanner.exactWithoutBudgets(nominal, options).plan();
         this.links = nominalPlan.links();
         this.routes = nominalPlan.routes();
         this.routeLinks = new int[routes.size()][];
@@ -94,6 +106,7 @@ public final class ToleranceStudy {
             routeLinks[d] = idx;
         }
         ChannelMatrix channel = AnalyticChannel.build(nominal, options.cutoffMolecules());
+        this.nominalChannel = channel;
         this.nominalInputs = new LinkInputs[links.size()];
         this.nominalEvaluations = new LinkEvaluation[links.size()];
         for (int l = 0; l < links.size(); l++) {
@@ -122,7 +135,7 @@ public final class ToleranceStudy {
         return thresholds;
     }
 
-    /** The nominal plan. */
+    /** The nominal plan (links and routes; without budgets or advice). */
     public Plan nominalPlan() {
         return nominalPlan;
     }
@@ -172,13 +185,19 @@ public final class ToleranceStudy {
                 error[l] = 1;
                 continue;
             }
-            LinkEvaluation ev = in.equals(nominalInputs[l]) ? nominalEvaluations[l] : in.evaluate();
-            error[l] = error(l, ev);
-            long[] t = thresholds == Thresholds.DESIGN ? nominalEvaluations[l].operatingThresholds()
-                    : ev.operatingThresholds();
-            matrix[l] = LinkEvaluation.channelAt(ev.givenLevel(), t);
-            bits[l] = thresholds == Thresholds.DESIGN
-                    ? ChannelCascade.mutualInformationBits(weights(), matrix[l]) : ev.mutualInformationBits();
+            boolean nominalInputsKept = in.equals(nominalInputs[l]);
+            if (thresholds == Thresholds.DESIGN) {
+                // at the nominal thresholds only the pmfs count: no threshold search or log-space refinement
+                List<CountPmf> pmfs = nominalInputsKept ? nominalEvaluations[l].givenLevel() : in.pmfs();
+                error[l] = errorAt(pmfs, designThresholds(nominalEvaluations[l]));
+                matrix[l] = LinkEvaluation.channelAt(pmfs, nominalEvaluations[l].operatingThresholds());
+                bits[l] = ChannelCascade.mutualInformationBits(weights(), matrix[l]);
+                continue;
+            }
+            LinkEvaluation ev = nominalInputsKept ? nominalEvaluations[l] : in.evaluate();
+            error[l] = ev.minErrorProbability();
+            matrix[l] = LinkEvaluation.channelAt(ev.givenLevel(), ev.operatingThresholds());
+            bits[l] = ev.mutualInformationBits();
         }
         return new ToleranceSample(index, draw.redraws(), draw.z(), error, bits, demandsMeet(s, error, matrix));
     }
@@ -192,32 +211,33 @@ public final class ToleranceStudy {
         if (thresholds == Thresholds.RECALIBRATED) {
             return null;
         }
-        LinkInputs nom = inputs(nominal, AnalyticChannel.build(nominal, options.cutoffMolecules()), l, molecules);
+        LinkInputs nom = inputs(nominal, nominalChannel, l, molecules);
         return designThresholds(nom.evaluate());
     }
 
-    /**
-     * The error probability of link {@code l} in perturbed layout {@code index} when its emitter's nominal
-     * release is {@code molecules} per symbol (the sample's relative spread of the release kept), at the
-     * thresholds {@code design} of {@link #designThresholdsWithMolecules} (recalibrated: null).
-     */
-    public double errorWithMolecules(int l, int index, long molecules, long[] design) {
+    /** Perturbed layout {@code index} (≥ 0) and its analytic channel. */
+    public SampleLayout layout(int index) {
         Scenario s = perturbation.draw(index).scenario();
-        ChannelMatrix channel = AnalyticChannel.build(s, options.cutoffMolecules());
-        LinkInputs in = inputs(s, channel, l, molecules);
+        return new SampleLayout(index, s, AnalyticChannel.build(s, options.cutoffMolecules()));
+    }
+
+    /**
+     * The error probability of link {@code l} in perturbed layout {@code layout} when its emitter's nominal
+     * release is {@code molecules} per symbol (the sample's relative spread of the release kept), at the
+     * thresholds {@code design} of {@link #designThresholdsWithMolecules} (recalibrated: null). The
+     * layout's channel does not depend on {@code molecules} (taps are per molecule; the release enters
+     * only the link's levels), so one layout serves every step of a guard-band search.
+     */
+    public double errorWithMolecules(int l, SampleLayout layout, long molecules, long[] design) {
+        LinkInputs in = inputs(layout.scenario(), layout.channel(), l, molecules);
         if (in == null) {
             return 1;
         }
-        LinkEvaluation ev = in.evaluate();
-        return design == null ? ev.minErrorProbability() : errorAt(ev, design);
-    }
-
-    /** The error of link l at the study's thresholds. */
-    private double error(int l, LinkEvaluation ev) {
-        if (thresholds == Thresholds.RECALIBRATED) {
-            return ev.minErrorProbability();
+        if (design == null) {
+            return in.evaluate().minErrorProbability();
         }
-        return errorAt(ev, designThresholds(nominalEvaluations[l]));
+        // at fixed thresholds only the pmfs count: no threshold search or log-space refinement
+        return errorAt(in.pmfs(), design);
     }
 
     private static long[] designThresholds(LinkEvaluation design) {
@@ -225,8 +245,8 @@ public final class ToleranceStudy {
     }
 
     /** Σ_i w_i·P(decide ≠ i | i) at thresholds t (binary: (1 − q)ε₀ + qε₁). */
-    private double errorAt(LinkEvaluation ev, long[] t) {
-        double[][] w = LinkEvaluation.channelAt(ev.givenLevel(), t);
+    private double errorAt(List<CountPmf> givenLevel, long[] t) {
+        double[][] w = LinkEvaluation.channelAt(givenLevel, t);
         double[] weights = weights();
         double e = 0;
         for (int i = 0; i < w.length; i++) {
@@ -310,6 +330,11 @@ public final class ToleranceStudy {
         LinkEvaluation evaluate() {
             List<CountTerm> terms = Crosstalk.terms(others, exactCount);
             return LinkEvaluator.evaluateBest(spec, terms, null, terms.size());
+        }
+
+        /** The pmfs of {@link #evaluate()} alone ({@link LinkEvaluator#countPmfs}). */
+        List<CountPmf> pmfs() {
+            return LinkEvaluator.countPmfs(spec, Crosstalk.terms(others, exactCount));
         }
     }
 }

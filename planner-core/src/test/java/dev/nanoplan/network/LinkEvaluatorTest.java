@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 import dev.nanoplan.count.CountModelKind;
+import dev.nanoplan.count.CountPmf;
 import dev.nanoplan.physics.OpenSphereHitting;
 import java.util.List;
 import org.apache.commons.rng.UniformRandomProvider;
@@ -125,6 +126,32 @@ class LinkEvaluatorTest {
             best = Math.min(best, (1 - q) * upper0 + q * lower1);
         }
         assertThat(e.minErrorProbability()).isCloseTo(best, within(1e-12 + 1e-9 * best));
+    }
+
+    @ParameterizedTest
+    @MethodSource("randomBackgroundCases")
+    void countPmfsAloneAreTheEvaluationsPmfsAndMatchLibraryDistributions(int n, double p, double background,
+            double q) {
+        LinkSpec s = LinkSpec.binary(new double[] {p}, 0, n, q, background, CountModelKind.EXACT, 1);
+        List<CountPmf> pmfs = LinkEvaluator.countPmfs(s, List.of());
+        List<CountPmf> full = LinkEvaluator.evaluate(s).givenLevel();
+        for (int level = 0; level < 2; level++) {
+            assertThat(pmfs.get(level).offset()).isEqualTo(full.get(level).offset());
+            assertThat(pmfs.get(level).last()).isEqualTo(full.get(level).last());
+            for (long y = full.get(level).offset(); y <= full.get(level).last(); y++) {
+                assertThat(pmfs.get(level).probability(y)).isEqualTo(full.get(level).probability(y));
+            }
+        }
+        // Reference: Y|1 ~ Bin(n, p) + Poisson(β), convolved from Commons Statistics pmfs
+        PoissonDistribution bg = PoissonDistribution.of(Math.max(background, 1e-300));
+        BinomialDistribution sig = BinomialDistribution.of(n, p);
+        for (int y = 0; y <= n; y += Math.max(1, n / 20)) {
+            double expected = 0;
+            for (int b = 0; b <= y; b++) {
+                expected += sig.probability(y - b) * (background == 0 ? (b == 0 ? 1 : 0) : bg.probability(b));
+            }
+            assertThat(pmfs.get(1).probability(y)).isCloseTo(expected, within(1e-12 + 1e-9 * expected));
+        }
     }
 
     @Test

@@ -22,6 +22,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicLong;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Mixin;
@@ -129,10 +130,16 @@ public final class ToleranceCommand implements Callable<Integer> {
         Runtime.getRuntime().addShutdownHook(hook);
         try {
             long start = System.nanoTime();
+            AtomicLong samplesDone = new AtomicLong(start);
             ToleranceResult r;
             try {
                 try (Engine engine = engineOptions.open(n, err)) {
-                    r = runner.run(engine, samples, done -> progress(err, done, samples, start));
+                    r = runner.run(engine, samples, done -> {
+                        progress(err, done, samples, start);
+                        if (done == samples) {
+                            samplesDone.set(System.nanoTime());
+                        }
+                    }, (done, total) -> guardProgress(err, done, total, samplesDone.get()));
                 }
             } catch (IllegalArgumentException e) {
                 throw new BadInputException(scenarioFile + ": " + e.getMessage());
@@ -167,6 +174,14 @@ public final class ToleranceCommand implements Callable<Integer> {
                     Double.isFinite(eta) ? String.format(Locale.ROOT, "%.0f s", eta) : "?"));
             err.flush();
         }
+    }
+
+    private static synchronized void guardProgress(PrintWriter err, long done, long total, long start) {
+        double s = (System.nanoTime() - start) / 1e9;
+        double eta = done > 0 ? s / done * (total - done) : Double.NaN;
+        err.print(String.format(Locale.ROOT, "%sguard bands: %d/%d weak links  %.1f s  ETA %s ", done == 1 ? "\n" : "\r",
+                done, total, s, Double.isFinite(eta) ? String.format(Locale.ROOT, "%.0f s", eta) : "?"));
+        err.flush();
     }
 
     private void write(Scenario scenario, ToleranceResult r) throws IOException {
