@@ -109,6 +109,9 @@ public final class PlanHtml {
             tr.advice td { border-top: none; color: var(--muted); padding-bottom: 10px; }
             tr.route td { border-bottom: none; }
             table.routes th, table.routes td { min-width: 150px; }
+            table.budgets th, table.budgets td { min-width: 150px; }
+            table.budgets td:first-child { white-space: nowrap; }
+            table.budgets td:last-child { min-width: 420px; }
             td .sub { color: var(--muted); font-size: 0.9em; }
             td.hops { white-space: nowrap; }
             .tablewrap { overflow-x: auto; }
@@ -282,7 +285,7 @@ public final class PlanHtml {
             h.append("<p class=\"note\">No emitting node sends on a route.</p>\n</section>\n");
             return;
         }
-        h.append("<div class=\"tablewrap\"><table>\n<tr><th>Node</th><th class=\"n\">Needed (molecules/symbol)</th>"
+        h.append("<div class=\"tablewrap\"><table class=\"budgets\">\n<tr><th>Node</th><th class=\"n\">Needed (molecules/symbol)</th>"
                 + "<th class=\"n\">Release (molecules/s)</th><th class=\"n\">Per mission (molecules)</th>"
                 + "<th>Feasible</th><th>Reason</th></tr>\n");
         for (BudgetReport b : plan.budgets()) {
