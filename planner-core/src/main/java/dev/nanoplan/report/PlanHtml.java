@@ -111,7 +111,8 @@ public final class PlanHtml {
             table.routes th, table.routes td { min-width: 150px; }
             table.budgets th, table.budgets td { min-width: 150px; }
             table.budgets td:first-child { white-space: nowrap; }
-            table.budgets td:last-child { min-width: 420px; }
+            table.budgets th { white-space: normal; }
+            table.budgets td:last-child { min-width: 360px; }
             td .sub { color: var(--muted); font-size: 0.9em; }
             td.hops { white-space: nowrap; }
             .tablewrap { overflow-x: auto; }
