@@ -126,6 +126,8 @@ public final class AnalyticChannel {
         int total = Math.max(1, receivers.size());
         @SuppressWarnings("unchecked")
         List<ChannelEntry>[] perReceiver = new List[receivers.size()];
+        int[] keptLags = new int[receivers.size()];
+        double[] droppedBound = new double[receivers.size()];
         IntStream.range(0, receivers.size()).parallel().forEach(ri -> {
             Node rx = nodes.get(receivers.get(ri));
             List<ChannelEntry> list = new ArrayList<>();
@@ -158,6 +160,10 @@ public final class AnalyticChannel {
                     if (taps == null) {
                         taps = model.taps(symbolTimeS, memory);
                     }
+                    int len = IsiTail.kept(taps, tx.moleculesPerSymbol());
+                    droppedBound[ri] += IsiTail.droppedBound(taps, len, tx.moleculesPerSymbol());
+                    keptLags[ri] = Math.max(keptLags[ri], len - 1);
+                    taps = IsiTail.truncate(taps, tx.moleculesPerSymbol());
                     boolean walls = rxNearWall || nearWall(scenario.volume(), tx.positionUm(), wallReach);
                     String caveat = walls && flows ? "walls+flow" : walls ? "walls" : flows ? "flow" : null;
                     list.add(new ChannelEntry(tx.id(), rx.id(), rx.species(), taps, ChannelMatrix.ANALYTIC, caveat));
@@ -169,6 +175,13 @@ public final class AnalyticChannel {
         List<ChannelEntry> all = new ArrayList<>();
         for (List<ChannelEntry> l : perReceiver) {
             all.addAll(l);
+        }
+        int kept = Arrays.stream(keptLags).max().orElse(0);
+        if (memory > IsiTail.ALWAYS_KEPT && kept < memory) {
+            notes.add(String.format(Locale.ROOT, "ISI memory %d symbols: leftovers beyond lag %d dropped (at most %.3g "
+                    + "molecules counted per receiver and slot at the file's molecules, so every count distribution and "
+                    + "error probability moves by at most that much; union bound)", memory, kept,
+                    Arrays.stream(droppedBound).max().orElse(0)));
         }
         return ChannelMatrix.of(withVerdicts(scenario, all), notes);
     }

@@ -98,10 +98,13 @@ final class JointMoleculeBudgets {
                     names.add(links.get(i).report().from() + " -> " + links.get(i).report().to());
                 }
             }
+            // an infinite radius (a link whose target no budget reaches) reads as a word, not "Infinity"
+            String radius = Double.isFinite(r.spectralRadius())
+                    ? String.format(Locale.ROOT, "%.3g", r.spectralRadius()) : "unbounded";
             String why = r.spectralRadius() >= 1
                     ? String.format(Locale.ROOT, "joint budgets infeasible: the links %s conflict (spectral radius of "
-                            + "the normalised crosstalk-gain matrix %.3g >= 1); left at the file budget",
-                            String.join(", ", names), r.spectralRadius())
+                            + "the normalised crosstalk-gain matrix %s, at least 1); left at the file budget",
+                            String.join(", ", names), radius)
                     : String.format(Locale.ROOT, "joint budgets out of reach: %s still miss the target at 2^20 "
                             + "molecules with the others (spectral radius %.3g); left at the file budget",
                             String.join(", ", names), r.spectralRadius());

@@ -8,6 +8,7 @@ import dev.nanoplan.network.ChannelEntry;
 import dev.nanoplan.network.ChannelMatrix;
 import dev.nanoplan.network.Crosstalk;
 import dev.nanoplan.network.GaussianScreen;
+import dev.nanoplan.network.IsiTail;
 import dev.nanoplan.network.LinkEvaluation;
 import dev.nanoplan.network.LinkEvaluator;
 import dev.nanoplan.network.LinkSpec;
@@ -287,8 +288,8 @@ final class LinkContext {
 
     /** Analytic only: the link with the emitter moved to centre distance {@code distanceUm}. */
     LinkEvaluation atDistance(double distanceUm) {
-        double[] taps = slots.own(entry.species(), AnalyticChannel.tapModel(distanceUm, receiver, species)
-                .taps(symbolTimeS(), signalling().isiMemorySymbols()));
+        double[] taps = slots.own(entry.species(), IsiTail.truncate(AnalyticChannel.tapModel(distanceUm, receiver,
+                species).taps(symbolTimeS(), signalling().isiMemorySymbols()), emitter.moleculesPerSymbol()));
         return whatIf(taps, emitter.moleculesPerSymbol(), symbolTimeS(), scenario.medium().backgroundMoleculesPerS(),
                 interferers);
     }
@@ -297,13 +298,15 @@ final class LinkContext {
     LinkEvaluation withSymbolTime(double t, Map<String, Node> nodes) {
         int memory = signalling().isiMemorySymbols();
         double[] taps = slots.own(entry.species(),
-                AnalyticChannel.tapModel(distance(), receiver, species).taps(t, memory));
+                IsiTail.truncate(AnalyticChannel.tapModel(distance(), receiver, species).taps(t, memory),
+                        emitter.moleculesPerSymbol()));
         List<Crosstalk.Interferer> others = new ArrayList<>(interferers.size());
         for (Crosstalk.Interferer i : interferers) {
             Node n = nodes.get(i.id());
             double d = n.positionUm().distance(receiver.positionUm());
             double[] it = slots.interferer(entry.species(), emitter.id(), i.id(),
-                    AnalyticChannel.tapModel(d, receiver, species).taps(t, memory));
+                    IsiTail.truncate(AnalyticChannel.tapModel(d, receiver, species).taps(t, memory),
+                            n.moleculesPerSymbol()));
             others.add(new Crosstalk.Interferer(i.id(), it, i.levelMolecules(), i.weights()));
         }
         return whatIf(taps, emitter.moleculesPerSymbol(), t, scenario.medium().backgroundMoleculesPerS(), others);

@@ -41,7 +41,7 @@ import java.util.stream.IntStream;
  * receivers the change reaches ({@link IncrementalPlanner#whatIf}) and skip budgets and advice.
  *
  * <p>Progress: the channel is 20 % of the work, links 65 %, routes 5 %, budgets 5 %, the advice
- * check 5 %.
+ * 5 % (proposals per route, then the checking re-plans).
  */
 final class PlanPipeline {
 
@@ -202,6 +202,8 @@ final class PlanPipeline {
                     && e.report().to().equals(r.bottleneckTo())).findFirst().orElse(null);
             proposals.add(weakest == null ? null
                     : evaluator.propose(in, weakest, id -> followers.getOrDefault(id, List.of())));
+            // proposing searches each bottleneck (slow with many levels): the first half of the advice share
+            progress.accept(0.95 + 0.025 * (i + 1) / plan.routes().size());
         }
         if (proposals.stream().allMatch(p -> p == null)) {
             progress.accept(1.0);
@@ -212,7 +214,7 @@ final class PlanPipeline {
         AtomicInteger replans = new AtomicInteger();
         AdviceChecker.Result checked = AdviceChecker.check(plan, proposals, s -> {
             Plan p = IncrementalPlanner.whatIf(in, channel, byReceiver, evaluator, s);
-            progress.accept(0.95 + 0.05 * Math.min(1.0, replans.incrementAndGet() / (double) bound));
+            progress.accept(0.975 + 0.025 * Math.min(1.0, replans.incrementAndGet() / (double) bound));
             return p;
         });
         progress.accept(1.0);

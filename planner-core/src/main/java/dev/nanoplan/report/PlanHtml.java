@@ -109,6 +109,14 @@ public final class PlanHtml {
             tr.advice td { border-top: none; color: var(--muted); padding-bottom: 10px; }
             tr.route td { border-bottom: none; }
             table.routes th, table.routes td { min-width: 150px; }
+            table.budgets th, table.budgets td { min-width: 150px; }
+            table.budgets td:first-child { white-space: nowrap; }
+            table.budgets th { white-space: normal; }
+            table.budgets td:last-child { min-width: 360px; }
+            table.links th { white-space: normal; min-width: 90px; }
+            table.links td:nth-child(-n+3) { white-space: nowrap; }
+            table.links td:nth-child(n+13) { min-width: 160px; }
+            table.links td:last-child { min-width: 320px; }
             td .sub { color: var(--muted); font-size: 0.9em; }
             td.hops { white-space: nowrap; }
             .tablewrap { overflow-x: auto; }
@@ -282,7 +290,7 @@ public final class PlanHtml {
             h.append("<p class=\"note\">No emitting node sends on a route.</p>\n</section>\n");
             return;
         }
-        h.append("<div class=\"tablewrap\"><table>\n<tr><th>Node</th><th class=\"n\">Needed (molecules/symbol)</th>"
+        h.append("<div class=\"tablewrap\"><table class=\"budgets\">\n<tr><th>Node</th><th class=\"n\">Needed (molecules/symbol)</th>"
                 + "<th class=\"n\">Release (molecules/s)</th><th class=\"n\">Per mission (molecules)</th>"
                 + "<th>Feasible</th><th>Reason</th></tr>\n");
         for (BudgetReport b : plan.budgets()) {
@@ -323,7 +331,7 @@ public final class PlanHtml {
                 : sorted.size() + " links, most informative first.").append(" Threshold, error, information and "
                         + "rate are at the operating point (the file's prior, the information-maximising threshold); "
                         + "capacity is the headroom at the emitter's best prior, computed for route hops.</p>\n");
-        h.append("<div class=\"tablewrap\"><table>\n<tr><th>From</th><th>To</th><th>Species</th>"
+        h.append("<div class=\"tablewrap\"><table class=\"links\">\n<tr><th>From</th><th>To</th><th>Species</th>"
                 + "<th class=\"n\">Hit prob. p<sub>0</sub> (fraction)</th><th class=\"n\">Signal (molecules)</th>"
                 + "<th class=\"n\">ISI (molecules)</th><th class=\"n\">Crosstalk (molecules)</th>"
                 + "<th class=\"n\">Threshold (molecules)</th><th class=\"n\">Error prob. (per symbol)</th>"

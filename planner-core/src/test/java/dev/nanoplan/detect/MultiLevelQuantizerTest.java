@@ -288,6 +288,36 @@ class MultiLevelQuantizerTest {
     }
 
     @Test
+    void candidatePathCannotGainByMovingAnyOneThresholdToAnyInteger() {
+        // four Poisson levels over a window of 701 counts, wider than the 64 candidates allowed
+        List<DiscreteDistribution> d = List.of(PoissonDistribution.of(150), PoissonDistribution.of(210),
+                PoissonDistribution.of(300), PoissonDistribution.of(420));
+        List<CountPmf> levels = new ArrayList<>();
+        for (DiscreteDistribution x : d) {
+            levels.add(LibraryPmfs.window(x, 0, 700));
+        }
+        double[] pi = {0.4, 0.3, 0.2, 0.1};
+        MultiLevelQuantizer small = new MultiLevelQuantizer(64, BlahutArimoto.DEFAULT, 1e-12, 50);
+        MultiLevelQuantizer.Quantization q = small.bestThresholds(levels, pi);
+        long[] t = q.thresholds();
+        // mutual information recomputed from library CDFs (Commons Statistics 1.2) at every single-
+        // threshold move over all integers between the neighbours: none beats the result (the
+        // coordinate sweep's guarantee); common practice for checking a local optimum
+        double at = mi(d, pi, t, Integer.MAX_VALUE - 1L);
+        assertThat(q.mutualInformationBits()).isCloseTo(at, within(1e-11));
+        for (int j = 0; j < t.length; j++) {
+            long lo = j == 0 ? 0 : t[j - 1] + 1;
+            long hi = j == t.length - 1 ? 701 : t[j + 1] - 1;
+            for (long v = lo; v <= hi; v++) {
+                long[] moved = t.clone();
+                moved[j] = v;
+                assertThat(mi(d, pi, moved, Integer.MAX_VALUE - 1L)).isLessThanOrEqualTo(at + 1e-12);
+            }
+        }
+        assertThat(q.exactOverAllCuts()).isFalse();
+    }
+
+    @Test
     void validation() {
         CountPmf a = new CountPmf(0, new double[] {1}, 0, 0);
         assertThatThrownBy(() -> MultiLevelQuantizer.DEFAULT.optimise(List.of(a)))

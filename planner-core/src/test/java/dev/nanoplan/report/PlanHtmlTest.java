@@ -50,6 +50,15 @@ class PlanHtmlTest {
     }
 
     @Test
+    void givesEveryBudgetColumnAtLeast150Pixels() {
+        String html = PlanHtml.render(PlanFixtures.demo("s3"));
+        // issue 11's reading check at 1,300 px wide (a headless Chromium screenshot showed the node ids
+        // broken over two lines): the budgets table, like the routes table, keeps each column ≥ 150 px
+        assertThat(html).contains("<table class=\"budgets\">")
+                .contains("table.budgets th, table.budgets td { min-width: 150px; }");
+    }
+
+    @Test
     void isSelfContained() {
         String html = PlanHtml.render(PlanFixtures.demo("s3"));
         // no fetched resource: no src/href attributes, no @import or url() other than in-page gradients

@@ -101,6 +101,13 @@ public final class PlanCommand implements Callable<Integer> {
             OutputPaths.folder("--out", outDir);
         }
         ScenarioFiles.printWarnings(scenarioFile, read, err);
+        int levels = read.scenario().signalling().levels();
+        if (levels > 2) {
+            // said before the long work starts (measured on the culture tank, 2 shared cores, 2026-12-05)
+            err.println("note: levels " + levels + ": every link, budget and advice step runs a multi-level threshold "
+                    + "search; the 17-node culture tank needs about 1 min of CPU with 3 levels, 3 min with 4 and many "
+                    + "minutes with 16 (progress and time left follow)");
+        }
         channelOptions.checkStep(read.scenario());
         boolean[] stopped = new boolean[1];
         ChannelMatrix matrix = channelOptions.channel(read.scenario(), options, environment, err, stopped);

@@ -85,6 +85,18 @@ class PlanCommandTest {
     }
 
     @Test
+    void aMultiLevelPlanSaysWhatItCostsBeforePlanning(@TempDir Path dir) throws Exception {
+        Path f = write(dir, "three.json", SMALL.replace("\"isi_memory_symbols\": 3}",
+                "\"isi_memory_symbols\": 3, \"levels\": 3}"));
+        CliRun r = run("plan", f.toString());
+        assertThat(r.status()).as(r.err()).isZero();
+        // the note comes first on stderr, before any progress line (common practice: say the cost up front)
+        assertThat(r.err()).startsWith("note: levels 3: ").contains("culture tank").contains("progress and time left");
+        CliRun binary = run("plan", write(dir, "two.json", SMALL).toString());
+        assertThat(binary.err()).doesNotContain("note: levels");
+    }
+
+    @Test
     void missingFileIsBadInputOnOneLine(@TempDir Path dir) {
         CliRun r = run("plan", dir.resolve("nope.json").toString());
         assertThat(r.status()).isEqualTo(2);
