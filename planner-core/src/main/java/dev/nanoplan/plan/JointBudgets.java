@@ -30,7 +30,7 @@ import java.util.List;
  * it converges geometrically (rate ρ(F)) to the minimal fixed point (I − F)^{-1} u. Powers are clamped to
  * [floor, cap]; an emitter still short at the cap is out of reach.
  *
- * <p>Cost: O(iterations · (hops · n)) for the radius (at most {@value #MAX_RADIUS_ITERATIONS} iterations)
+ * <p>Cost: O(iterations · non-zero gains) for the radius (at most {@value #MAX_RADIUS_ITERATIONS} iterations)
  * plus {@code iterations × hops} ratio evaluations for the fixed point (at most
  * {@value #MAX_ITERATIONS}).
  */
@@ -38,6 +38,8 @@ final class JointBudgets {
 
     static final int MAX_ITERATIONS = 5000;
     static final int MAX_RADIUS_ITERATIONS = 20000;
+    /** Smallest entry of the unit-sum iterate of the radius (far above underflow, far below any Perron share that matters). */
+    private static final double X_FLOOR = 1e-250;
 
     /** One constraint of one emitter. */
     interface Hop {
@@ -72,30 +74,50 @@ final class JointBudgets {
      * emitters carrying at least 1 % of the largest Perron-vector entry.
      */
     static Result radius(int n, List<Hop> hops) {
-        double[][] rows = new double[hops.size()][];
-        for (int h = 0; h < rows.length; h++) {
-            rows[h] = hops.get(h).gains();
-            for (double g : rows[h]) {
-                if (g == Double.POSITIVE_INFINITY) {
+        // sparse rows: far emitters of a large swarm have gain exactly 0 at most receivers
+        int[][] cols = new int[hops.size()][];
+        double[][] vals = new double[hops.size()][];
+        int[] owner = new int[hops.size()];
+        for (int h = 0; h < cols.length; h++) {
+            double[] g = hops.get(h).gains();
+            owner[h] = hops.get(h).emitter();
+            int nz = 0;
+            for (double v : g) {
+                if (v == Double.POSITIVE_INFINITY) {
                     return new Result(false, Double.POSITIVE_INFINITY, new double[n], 0,
                             List.of(hops.get(h).emitter()));
+                }
+                if (v > 0) {
+                    nz++;
+                }
+            }
+            cols[h] = new int[nz];
+            vals[h] = new double[nz];
+            for (int j = 0, k = 0; j < g.length; j++) {
+                if (g[j] > 0) {
+                    cols[h][k] = j;
+                    vals[h][k++] = g[j];
                 }
             }
         }
         double[] x = new double[n];
-        Arrays.fill(x, 1);
+        Arrays.fill(x, 1.0 / Math.max(1, n));
         double bound = Double.POSITIVE_INFINITY;
+        double[] t = new double[n];
         for (int it = 0; it < MAX_RADIUS_ITERATIONS; it++) {
-            double[] t = apply(n, hops, rows, x);
+            apply(cols, vals, owner, x, t);
             double upper = 0;
             double sum = 0;
             for (int i = 0; i < n; i++) {
-                upper = Math.max(upper, t[i] / x[i]);
+                // t_i = 0 (no gain from anyone) contributes a ratio of 0, whatever x_i
+                upper = t[i] > 0 ? Math.max(upper, t[i] / x[i]) : upper;
                 x[i] = t[i] + x[i];
                 sum += x[i];
             }
             for (int i = 0; i < n; i++) {
-                x[i] /= sum;
+                // the Collatz–Wielandt bound holds for every positive x: entries that the growth of the others
+                // pushes towards underflow are held at X_FLOOR (of a unit sum) so that no ratio reads 0/0
+                x[i] = Math.max(X_FLOOR, x[i] / sum);
             }
             boolean settled = Math.abs(bound - upper) <= 1e-12 * Math.max(1, upper);
             bound = upper;
@@ -103,7 +125,10 @@ final class JointBudgets {
                 break;
             }
         }
-        double max = Arrays.stream(x).max().orElse(0);
+        double max = 0;
+        for (double v : x) {
+            max = Math.max(max, v);
+        }
         List<Integer> conflict = new ArrayList<>();
         for (int i = 0; i < n; i++) {
             if (bound > 0 && x[i] >= 0.01 * max) {
@@ -113,17 +138,18 @@ final class JointBudgets {
         return new Result(false, bound, x, 0, List.copyOf(conflict));
     }
 
-    private static double[] apply(int n, List<Hop> hops, double[][] rows, double[] x) {
-        double[] t = new double[n];
-        for (int h = 0; h < rows.length; h++) {
+    /** t = T(x), row by sparse row (t is overwritten). */
+    private static void apply(int[][] cols, double[][] vals, int[] owner, double[] x, double[] t) {
+        Arrays.fill(t, 0);
+        for (int h = 0; h < cols.length; h++) {
             double s = 0;
-            for (int j = 0; j < n; j++) {
-                s += rows[h][j] * x[j];
+            int[] c = cols[h];
+            double[] v = vals[h];
+            for (int k = 0; k < c.length; k++) {
+                s += v[k] * x[c[k]];
             }
-            int i = hops.get(h).emitter();
-            t[i] = Math.max(t[i], s);
+            t[owner[h]] = Math.max(t[owner[h]], s);
         }
-        return t;
     }
 
     /**
@@ -157,7 +183,9 @@ final class JointBudgets {
             it++;
             double[] factor = new double[n];
             for (Hop h : hops) {
-                factor[h.emitter()] = Math.max(factor[h.emitter()], h.ratio(p));
+                double ratio = h.ratio(p);
+                // a ratio that is not a number reads as "far from met" rather than poisoning every power
+                factor[h.emitter()] = Math.max(factor[h.emitter()], Double.isNaN(ratio) ? 1e6 : ratio);
             }
             moved = false;
             for (int i = 0; i < n; i++) {

@@ -114,4 +114,18 @@ class JointBudgetsTest {
         assertThat(JointBudgets.radius(n, linear(f, new double[n])).spectralRadius())
                 .isBetween(expected - 1e-9, expected + 1e-4 + 1e-6 * expected);
     }
+
+    @Test
+    void aSlowlySettlingRadiusWithAnUnfedEmitterStaysFinite() {
+        // Emitters 0 and 1 conflict with gains 200 and 50: the Perron root of [[0, 200], [50, 0]] is
+        // sqrt(200 · 50) = 100 (worked by hand). Emitter 2 hears no one and no one hears it: its share of the
+        // iterate shrinks by about 1/101 per step, and the shifted iteration settles only at the rate
+        // 99/101 per step, long after that share has fallen below the smallest double. The bound must still
+        // come out as 100, not 0/0 (a NaN radius used to send the joint budgets round the same problem for
+        // ever).
+        double[][] f = {{0, 200, 0}, {50, 0, 0}, {0, 0, 0}};
+        JointBudgets.Result r = JointBudgets.radius(3, linear(f, new double[3]));
+        assertThat(r.spectralRadius()).isCloseTo(100, within(1e-6));
+        assertThat(r.conflict()).containsExactly(0, 1);
+    }
 }
