@@ -3,6 +3,7 @@ package dev.nanoplan.plan;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.stream.IntStream;
 
 /**
  * Joint power control: the smallest "powers" P_i of n emitters with which every constraint (hop) h of
@@ -31,7 +32,7 @@ import java.util.List;
  * [floor, cap]; an emitter still short at the cap is out of reach.
  *
  * <p>Cost: O(iterations · non-zero gains) for the radius (at most {@value #MAX_RADIUS_ITERATIONS} iterations)
- * plus {@code iterations × hops} ratio evaluations for the fixed point (at most
+ * plus {@code iterations × hops} ratio evaluations for the fixed point (the hops of one iteration in parallel) (at most
  * {@value #MAX_ITERATIONS}).
  */
 final class JointBudgets {
@@ -182,10 +183,14 @@ final class JointBudgets {
         while (moved && it < maxIterations) {
             it++;
             double[] factor = new double[n];
-            for (Hop h : hops) {
-                double ratio = h.ratio(p);
+            // the hops' ratios are independent evaluations at the same powers: in parallel (p is only read)
+            double[] p0 = p;
+            double[] ratios = IntStream.range(0, hops.size()).parallel().mapToDouble(h -> hops.get(h).ratio(p0))
+                    .toArray();
+            for (int h = 0; h < ratios.length; h++) {
                 // a ratio that is not a number reads as "far from met" rather than poisoning every power
-                factor[h.emitter()] = Math.max(factor[h.emitter()], Double.isNaN(ratio) ? 1e6 : ratio);
+                int e = hops.get(h).emitter();
+                factor[e] = Math.max(factor[e], Double.isNaN(ratios[h]) ? 1e6 : ratios[h]);
             }
             moved = false;
             for (int i = 0; i < n; i++) {

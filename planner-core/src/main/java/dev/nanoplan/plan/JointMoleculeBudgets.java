@@ -141,7 +141,7 @@ final class JointMoleculeBudgets {
                 all.addAll(sends.get(id));
             }
             Map<LinkKey, MoleculeBudgets.HopBudget> found = new java.util.concurrent.ConcurrentHashMap<>();
-            all.parallelStream().forEach(e -> found.put(e.key(), MoleculeBudgets.hop(atBudgets(e.context(), now), c)));
+            all.parallelStream().forEach(e -> found.put(e.key(), MoleculeBudgets.hop(atBudgets(e.context(), now), c, true)));
             changed = false;
             for (String id : new ArrayList<>(open)) {
                 MoleculeBudgets.HopBudget worst = null;

@@ -275,6 +275,15 @@ final class MoleculeBudgets {
 
     /** The search of one hop (see the class comment). */
     static HopBudget hop(LinkContext ctx, Criterion c) {
+        return hop(ctx, c, false);
+    }
+
+    /**
+     * The search of one hop; with {@code startAtCurrent}, when the emitter's budget as given meets the
+     * criterion and one molecule fewer misses it, that budget is the answer at once (two evaluations instead of
+     * a search: the joint rounds start every hop from the previous round's answer, which mostly still holds).
+     */
+    static HopBudget hop(LinkContext ctx, Criterion c, boolean startAtCurrent) {
         if (!c.error()) {
             // at the operating prior no N carries more than the input entropy H(w) bits per symbol
             double periodS = ctx.symbolTimeS() * ctx.frameSlots;
@@ -302,6 +311,9 @@ final class MoleculeBudgets {
                 lo = now;
             }
         }
+        if (startAtCurrent && hi > levels - 1 && !c.meets(exact.apply(hi - 1))) {
+            lo = hi - 1;
+        }
         long estimate = hi > 0 ? hi : lo + 1;
         boolean sameModel = ctx.whatIfModel() == ctx.signalling().countModel();
         if (hi < 0) {
@@ -312,7 +324,7 @@ final class MoleculeBudgets {
             }
             estimate = lo + 1;
         }
-        if (!sameModel) {
+        if (!sameModel && (hi < 0 || hi - lo > 1)) {
             estimate = whatIfEstimate(ctx, c, levels - 1);
         }
         estimate = Math.max(lo + 1, hi > 0 ? Math.min(hi, estimate) : estimate);
