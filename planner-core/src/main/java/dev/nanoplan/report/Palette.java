@@ -21,6 +21,8 @@ public final class Palette {
     public static final String RELAY = "#cc79a7";
     /** Okabe–Ito vermilion: route hops. */
     public static final String ROUTE = "#d55e00";
+    /** Bright pink of the desktop's bottleneck hop (the 3D scene's tube and the legend's swatch). */
+    public static final String BOTTLENECK = "#ff5ea8";
     /** Grey for a value that is not known (NaN). */
     public static final String UNKNOWN = "#8a8f98";
 

@@ -1,5 +1,6 @@
 package dev.nanoplan.desktop;
 
+import dev.nanoplan.report.Palette;
 import dev.nanoplan.scenario.Role;
 import javafx.beans.binding.Bindings;
 import javafx.beans.value.ObservableDoubleValue;
@@ -47,7 +48,7 @@ final class Legend {
             Label l = new Label(r.id(), c);
             roles.getChildren().add(l);
         }
-        Rectangle bn = new Rectangle(22, 5, Color.web("#ff5ea8"));
+        Rectangle bn = new Rectangle(22, 5, Color.web(Palette.BOTTLENECK));
         Label bottleneck = new Label("bottleneck of the selected route", bn);
         VBox box = new VBox(4, title, bar, ticks, roles, bottleneck);
         box.getStyleClass().add("legend");

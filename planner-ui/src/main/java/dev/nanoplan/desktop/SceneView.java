@@ -4,6 +4,7 @@ import dev.nanoplan.geometry.Vec3;
 import dev.nanoplan.plan.LinkReport;
 import dev.nanoplan.plan.Plan;
 import dev.nanoplan.plan.RouteReport;
+import dev.nanoplan.report.Palette;
 import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
 import java.util.Collections;
@@ -55,7 +56,7 @@ public final class SceneView {
 
     private static final Color BACKGROUND = Color.web("#141a22");
     private static final Color OUTLINE = Color.web("#7d93ad");
-    private static final Color BOTTLENECK = Color.web("#ff5ea8");
+    private static final Color BOTTLENECK = Color.web(Palette.BOTTLENECK);
 
     private final PlannerViewModel vm;
     private final OrbitCamera orbit = new OrbitCamera();
