@@ -32,8 +32,8 @@ import java.util.stream.IntStream;
  * [floor, cap]; an emitter still short at the cap is out of reach.
  *
  * <p>Cost: O(iterations · non-zero gains) for the radius (at most {@value #MAX_RADIUS_ITERATIONS} iterations)
- * plus {@code iterations × hops} ratio evaluations for the fixed point (the hops of one iteration in parallel) (at most
- * {@value #MAX_ITERATIONS}).
+ * plus {@code iterations × hops} ratio evaluations for the fixed point (at most {@value #MAX_ITERATIONS}
+ * iterations; the hops of one iteration are evaluated in parallel).
  */
 final class JointBudgets {
 
@@ -126,10 +126,7 @@ final class JointBudgets {
                 break;
             }
         }
-        double max = 0;
-        for (double v : x) {
-            max = Math.max(max, v);
-        }
+        double max = Arrays.stream(x).max().orElse(0);
         List<Integer> conflict = new ArrayList<>();
         for (int i = 0; i < n; i++) {
             if (bound > 0 && x[i] >= 0.01 * max) {
@@ -184,8 +181,7 @@ final class JointBudgets {
             it++;
             double[] factor = new double[n];
             // the hops' ratios are independent evaluations at the same powers: in parallel (p is only read)
-            double[] p0 = p;
-            double[] ratios = IntStream.range(0, hops.size()).parallel().mapToDouble(h -> hops.get(h).ratio(p0))
+            double[] ratios = IntStream.range(0, hops.size()).parallel().mapToDouble(h -> hops.get(h).ratio(p))
                     .toArray();
             for (int h = 0; h < ratios.length; h++) {
                 // a ratio that is not a number reads as "far from met" rather than poisoning every power

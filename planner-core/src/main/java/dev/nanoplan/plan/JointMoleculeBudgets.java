@@ -112,11 +112,6 @@ final class JointMoleculeBudgets {
             for (int i : r.conflict()) {
                 dropped.add(open.get(i));
             }
-            if (dropped.isEmpty()) {
-                // no emitter singled out (cannot happen for a finite radius ≥ 1): give up on all that are left
-                // rather than solve the same problem again
-                dropped.addAll(open);
-            }
             for (String id : dropped) {
                 out.put(id, new MoleculeBudgets.HopBudget(-1, why));
             }

@@ -4,8 +4,11 @@ import com.sun.management.OperatingSystemMXBean;
 import dev.nanoplan.plan.NetworkPlanner;
 import dev.nanoplan.plan.PlanOptions;
 import dev.nanoplan.plan.SlotAssignment;
+import dev.nanoplan.scenario.Node;
 import dev.nanoplan.scenario.Scenario;
 import java.lang.management.ManagementFactory;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import java.util.function.Supplier;
 
 /**
@@ -60,8 +63,8 @@ public final class SlotsBench {
      * budgets are feasible here, unlike all-active, so the joint plan does its whole exact stage.
      */
     static Scenario reuse(Scenario s) {
-        java.util.Map<String, Integer> slots = new java.util.LinkedHashMap<>();
-        for (dev.nanoplan.scenario.Node node : s.nodes()) {
+        Map<String, Integer> slots = new LinkedHashMap<>();
+        for (Node node : s.nodes()) {
             if (!node.role().emits()) {
                 continue;
             }
